@@ -1,0 +1,60 @@
+/**
+ * `/api/auth`: login (rate-limited per IP and per account), refresh, logout.
+ */
+import { Router } from 'express';
+import { rateLimit, ipKeyGenerator } from 'express-rate-limit';
+import { loginRequestSchema, refreshRequestSchema } from '../../shared/schemas/auth';
+import type { AppConfig } from '../config';
+import { HttpError, parseOrThrow } from '../errors';
+import type { AuthService } from './auth.service';
+
+const WINDOW_MS = 15 * 60 * 1000;
+
+function tooMany(message: string): HttpError {
+  return new HttpError(429, 'rate_limited', message);
+}
+
+/** Builds the auth router. Failed attempts count toward both limits; successful ones do not. */
+export function authRouter(auth: AuthService, config: AppConfig): Router {
+  const router = Router();
+  const perIp = rateLimit({
+    windowMs: WINDOW_MS,
+    limit: config.loginFailuresPerIp,
+    skipSuccessfulRequests: true,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    keyGenerator: (req) => `ip:${ipKeyGenerator(req.ip ?? 'unknown')}`,
+    handler: (_req, _res, next) => next(tooMany('Too many sign-in attempts from this network; wait 15 minutes and try again')),
+  });
+  const perAccount = rateLimit({
+    windowMs: WINDOW_MS,
+    limit: config.loginFailuresPerAccount,
+    skipSuccessfulRequests: true,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    keyGenerator: (req) => {
+      const body: unknown = req.body;
+      const email = body && typeof body === 'object' && 'email' in body && typeof body.email === 'string' ? body.email : '';
+      return `acct:${email.trim().toLowerCase()}`;
+    },
+    handler: (_req, _res, next) => next(tooMany('Too many failed sign-ins for this account; wait 15 minutes and try again')),
+  });
+
+  router.post('/login', perIp, perAccount, async (req, res) => {
+    const { email, password } = parseOrThrow(loginRequestSchema, req.body, 'Sign-in');
+    res.json(await auth.login(email, password));
+  });
+
+  router.post('/refresh', (req, res) => {
+    const { refreshToken } = parseOrThrow(refreshRequestSchema, req.body, 'Refresh');
+    res.json(auth.refresh(refreshToken));
+  });
+
+  router.post('/logout', (req, res) => {
+    const { refreshToken } = parseOrThrow(refreshRequestSchema, req.body, 'Sign-out');
+    auth.logout(refreshToken);
+    res.status(204).end();
+  });
+
+  return router;
+}

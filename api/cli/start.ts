@@ -1,0 +1,24 @@
+/**
+ * `npm start` / `npm run start:api`: builds the client when its build is missing or older
+ * than its sources (not with `--api-only`), then starts the server.
+ */
+import { ConfigError, loadConfig } from '../config';
+import { startServer } from '../server';
+import { buildClient, clientBuildIsStale } from './client-build';
+
+async function main(): Promise<void> {
+  const apiOnly = process.argv.includes('--api-only');
+  const config = loadConfig();
+  if (!apiOnly && clientBuildIsStale()) buildClient();
+  const server = await startServer(config);
+  const stop = (): void => {
+    void server.close().then(() => process.exit(0));
+  };
+  process.once('SIGINT', stop);
+  process.once('SIGTERM', stop);
+}
+
+main().catch((err: unknown) => {
+  console.error(err instanceof ConfigError ? err.message : err);
+  process.exit(1);
+});

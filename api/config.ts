@@ -1,0 +1,89 @@
+/**
+ * Environment, read once and validated at start-up. Nothing else in the server reads
+ * `process.env`; the parsed `AppConfig` is passed in.
+ */
+import { randomBytes } from 'node:crypto';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { dirname, join, resolve } from 'node:path';
+import * as z from 'zod';
+
+const envSchema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+  PORT: z.coerce.number().int().min(0).max(65535).default(4300),
+  LOFTLINE_DB: z.string().min(1).default('data/loftline.db'),
+  LOFTLINE_JWT_SECRET: z.string().min(32, { error: 'must be at least 32 characters' }).optional(),
+  LOFTLINE_LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  LOFTLINE_SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
+  LOFTLINE_PUBLIC_URL: z.string().url().optional(),
+});
+
+/** The server's validated configuration. */
+export interface AppConfig {
+  env: 'development' | 'production' | 'test';
+  port: number;
+  dbPath: string;
+  jwtSecret: string;
+  logLevel: 'fatal' | 'error' | 'warn' | 'info' | 'debug' | 'trace' | 'silent';
+  smtpPort: number;
+  publicUrl: string;
+  /** Access tokens are short-lived: a stolen one is useful for minutes only. */
+  accessTokenTtlS: number;
+  /** Refresh tokens last 30 days so a phone stays signed in through weeks of training. */
+  refreshTokenTtlS: number;
+  /** bcrypt cost; ≥ 12 in production (OWASP password storage guidance), lower only in tests. */
+  bcryptCost: number;
+  /** Failed sign-ins allowed per IP and per account in a 15-minute window. */
+  loginFailuresPerIp: number;
+  loginFailuresPerAccount: number;
+  /** Where the built Angular app lives. */
+  clientDir: string;
+}
+
+/** Thrown when the environment is unusable; the message names the variable and the reason. */
+export class ConfigError extends Error {}
+
+/**
+ * Parses the environment. In development a JWT secret is generated once and kept beside the
+ * database (so tokens survive restarts); in production the server refuses to start without one.
+ */
+export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Partial<AppConfig> = {}): AppConfig {
+  const parsed = envSchema.safeParse(env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`);
+    throw new ConfigError(`Invalid environment:\n  ${lines.join('\n  ')}`);
+  }
+  const e = parsed.data;
+  const dbPath = e.LOFTLINE_DB === ':memory:' ? e.LOFTLINE_DB : resolve(e.LOFTLINE_DB);
+  let jwtSecret = e.LOFTLINE_JWT_SECRET;
+  if (!jwtSecret) {
+    if (e.NODE_ENV === 'production') {
+      throw new ConfigError('LOFTLINE_JWT_SECRET is required in production (at least 32 characters).');
+    }
+    jwtSecret = devSecret(dbPath === ':memory:' ? resolve('data/loftline.db') : dbPath);
+  }
+  return {
+    env: e.NODE_ENV,
+    port: e.PORT,
+    dbPath,
+    jwtSecret,
+    logLevel: e.LOFTLINE_LOG_LEVEL,
+    smtpPort: e.LOFTLINE_SMTP_PORT,
+    publicUrl: e.LOFTLINE_PUBLIC_URL ?? `http://localhost:${e.PORT}`,
+    accessTokenTtlS: 15 * 60,
+    refreshTokenTtlS: 30 * 24 * 3600,
+    bcryptCost: 12,
+    loginFailuresPerIp: 50,
+    loginFailuresPerAccount: 10,
+    clientDir: resolve('dist/loftline/browser'),
+    ...overrides,
+  };
+}
+
+function devSecret(dbPath: string): string {
+  const file = join(dirname(dbPath), 'jwt-secret.txt');
+  if (existsSync(file)) return readFileSync(file, 'utf8').trim();
+  mkdirSync(dirname(file), { recursive: true });
+  const secret = randomBytes(48).toString('base64url');
+  writeFileSync(file, secret + '\n', { mode: 0o600 });
+  return secret;
+}

@@ -1,0 +1,340 @@
+/**
+ * The one Drizzle schema module for Loftline's SQLite database (DESIGN §5).
+ *
+ * Conventions: camelCase keys over snake_case columns; timestamps are ISO 8601 UTC text
+ * (sortable, readable in a SQL shell, and what the sync payloads carry). Rows a client can
+ * create (sessions, drills, kicks) have a client-generated UUID v4 key, `updated_at`,
+ * `deleted_at` (tombstone), a per-row `version` for optimistic concurrency and a
+ * server-assigned, strictly increasing `change_seq` that the pull cursor follows.
+ */
+import { sql } from 'drizzle-orm';
+import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
+
+const createdAt = () => text('created_at').notNull().default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ', 'now'))`);
+const updatedAt = () => text('updated_at').notNull().default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ', 'now'))`);
+
+/** A club (or academy). Every other row hangs off one, and every query is scoped by it. */
+export const clubs = sqliteTable('clubs', {
+  id: text('id').primaryKey(),
+  name: text('name').notNull(),
+  timezone: text('timezone').notNull().default('Europe/London'),
+  /** Repetitions per player per session above which Pitchside shows the kicking-load caution. */
+  repLimitPerSession: integer('rep_limit_per_session').notNull().default(40),
+  /** Optional club-tuned spin-step rates (JSON), overriding the flight model's defaults. */
+  spinStepsJson: text('spin_steps_json'),
+  createdAt: createdAt(),
+  updatedAt: updatedAt(),
+});
+
+/** Where a club trains: used to prefill altitude and to turn compass wind into head/tail wind. */
+export const trainingGrounds = sqliteTable(
+  'training_grounds',
+  {
+    id: text('id').primaryKey(),
+    clubId: text('club_id').notNull().references(() => clubs.id),
+    name: text('name').notNull(),
+    latitude: real('latitude'),
+    longitude: real('longitude'),
+    altitudeM: real('altitude_m').notNull().default(0),
+    /** Compass bearing (degrees from north) of the main kicking direction on this ground. */
+    kickingBearingDeg: real('kicking_bearing_deg').notNull().default(0),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [index('training_grounds_club_idx').on(t.clubId)],
+);
+
+/** Accounts. `role` is one of DESIGN §2's five roles. */
+export const users = sqliteTable(
+  'users',
+  {
+    id: text('id').primaryKey(),
+    clubId: text('club_id').notNull().references(() => clubs.id),
+    email: text('email').notNull(),
+    displayName: text('display_name').notNull(),
+    role: text('role', { enum: ['admin', 'head_coach', 'assistant_coach', 'player', 'guardian'] }).notNull(),
+    passwordHash: text('password_hash'),
+    disabledAt: text('disabled_at'),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [uniqueIndex('users_email_uq').on(t.email), index('users_club_idx').on(t.clubId)],
+);
+
+/** Refresh tokens, stored as SHA-256 hashes; rotation keeps a family so reuse can revoke it. */
+export const refreshTokens = sqliteTable(
+  'refresh_tokens',
+  {
+    id: text('id').primaryKey(),
+    userId: text('user_id').notNull().references(() => users.id),
+    familyId: text('family_id').notNull(),
+    tokenHash: text('token_hash').notNull(),
+    createdAt: createdAt(),
+    expiresAt: text('expires_at').notNull(),
+    revokedAt: text('revoked_at'),
+    replacedById: text('replaced_by_id'),
+  },
+  (t) => [uniqueIndex('refresh_tokens_hash_uq').on(t.tokenHash), index('refresh_tokens_family_idx').on(t.familyId)],
+);
+
+/** A squad (age group team) with the ball size it trains with. */
+export const squads = sqliteTable(
+  'squads',
+  {
+    id: text('id').primaryKey(),
+    clubId: text('club_id').notNull().references(() => clubs.id),
+    name: text('name').notNull(),
+    ageGroup: text('age_group').notNull(),
+    ballSize: integer('ball_size').notNull().default(5),
+    groundId: text('ground_id').references(() => trainingGrounds.id),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+    deletedAt: text('deleted_at'),
+  },
+  (t) => [index('squads_club_idx').on(t.clubId)],
+);
+
+/** Which staff work with which squad (head coaches and assistant coaches). */
+export const squadStaff = sqliteTable(
+  'squad_staff',
+  {
+    squadId: text('squad_id').notNull().references(() => squads.id),
+    userId: text('user_id').notNull().references(() => users.id),
+    createdAt: createdAt(),
+  },
+  (t) => [primaryKey({ columns: [t.squadId, t.userId] }), index('squad_staff_user_idx').on(t.userId)],
+);
+
+/** A player on a squad; `userId` links the player's own account when they have one. */
+export const players = sqliteTable(
+  'players',
+  {
+    id: text('id').primaryKey(),
+    clubId: text('club_id').notNull().references(() => clubs.id),
+    squadId: text('squad_id').notNull().references(() => squads.id),
+    userId: text('user_id').references(() => users.id),
+    displayName: text('display_name').notNull(),
+    shirtNumber: integer('shirt_number'),
+    dominantFoot: text('dominant_foot', { enum: ['left', 'right'] }).notNull().default('right'),
+    birthDate: text('birth_date'),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+    deletedAt: text('deleted_at'),
+  },
+  (t) => [
+    index('players_squad_idx').on(t.squadId),
+    index('players_club_idx').on(t.clubId),
+    uniqueIndex('players_user_uq').on(t.userId),
+  ],
+);
+
+/** Guardian ↔ player links with the consent record a Family digest requires. */
+export const guardianLinks = sqliteTable(
+  'guardian_links',
+  {
+    id: text('id').primaryKey(),
+    guardianUserId: text('guardian_user_id').notNull().references(() => users.id),
+    playerId: text('player_id').notNull().references(() => players.id),
+    relationship: text('relationship').notNull().default('guardian'),
+    consentAt: text('consent_at'),
+    consentRecordedBy: text('consent_recorded_by').references(() => users.id),
+    digestOptIn: integer('digest_opt_in', { mode: 'boolean' }).notNull().default(false),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [
+    uniqueIndex('guardian_links_pair_uq').on(t.guardianUserId, t.playerId),
+    index('guardian_links_player_idx').on(t.playerId),
+  ],
+);
+
+/** A training session and its conditions (client-created, synced). */
+export const trainingSessions = sqliteTable(
+  'training_sessions',
+  {
+    id: text('id').primaryKey(),
+    clubId: text('club_id').notNull().references(() => clubs.id),
+    squadId: text('squad_id').notNull().references(() => squads.id),
+    groundId: text('ground_id').references(() => trainingGrounds.id),
+    startedAt: text('started_at').notNull(),
+    endedAt: text('ended_at'),
+    temperatureC: real('temperature_c'),
+    altitudeM: real('altitude_m'),
+    relativeHumidityPct: real('relative_humidity_pct'),
+    pressureHpa: real('pressure_hpa'),
+    windSpeedMs: real('wind_speed_ms'),
+    /** Wind direction relative to the main kicking direction: 0 = headwind, 90 = from the left, 180 = tailwind. */
+    windFromDeg: real('wind_from_deg'),
+    ballSize: integer('ball_size').notNull().default(5),
+    /** JSON map of condition field → where it came from ('coach', 'ground', 'weather', 'default'). */
+    conditionsSourceJson: text('conditions_source_json'),
+    notes: text('notes'),
+    recordedBy: text('recorded_by').references(() => users.id),
+    deviceId: text('device_id'),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+    deletedAt: text('deleted_at'),
+    version: integer('version').notNull().default(1),
+    changeSeq: integer('change_seq').notNull(),
+  },
+  (t) => [
+    index('training_sessions_squad_started_idx').on(t.squadId, t.startedAt),
+    index('training_sessions_club_seq_idx').on(t.clubId, t.changeSeq),
+  ],
+);
+
+/** A drill within a session: technique, target and default spin (client-created, synced). */
+export const drills = sqliteTable(
+  'drills',
+  {
+    id: text('id').primaryKey(),
+    clubId: text('club_id').notNull().references(() => clubs.id),
+    sessionId: text('session_id').notNull().references(() => trainingSessions.id),
+    technique: text('technique', { enum: ['driven', 'lofted', 'chipped', 'curled'] }).notNull(),
+    targetDistanceM: real('target_distance_m').notNull(),
+    targetRadiusM: real('target_radius_m').notNull(),
+    lateralOffsetM: real('lateral_offset_m').notNull().default(0),
+    backspinStep: integer('backspin_step').notNull().default(0),
+    sidespinStep: integer('sidespin_step').notNull().default(0),
+    label: text('label'),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+    deletedAt: text('deleted_at'),
+    version: integer('version').notNull().default(1),
+    changeSeq: integer('change_seq').notNull(),
+  },
+  (t) => [index('drills_session_idx').on(t.sessionId), index('drills_club_seq_idx').on(t.clubId, t.changeSeq)],
+);
+
+/** One kicking repetition (client-created, synced). */
+export const kicks = sqliteTable(
+  'kicks',
+  {
+    id: text('id').primaryKey(),
+    clubId: text('club_id').notNull().references(() => clubs.id),
+    sessionId: text('session_id').notNull().references(() => trainingSessions.id),
+    drillId: text('drill_id').references(() => drills.id),
+    playerId: text('player_id').notNull().references(() => players.id),
+    technique: text('technique', { enum: ['driven', 'lofted', 'chipped', 'curled'] }).notNull(),
+    foot: text('foot', { enum: ['left', 'right'] }).notNull(),
+    /** −3..3, + = backspin (DESIGN §3 seven-step scale). */
+    backspinStep: integer('backspin_step').notNull().default(0),
+    /** −2..2, + = curls left (DESIGN §3 five-step scale). */
+    sidespinStep: integer('sidespin_step').notNull().default(0),
+    targetDistanceM: real('target_distance_m').notNull(),
+    targetRadiusM: real('target_radius_m').notNull(),
+    outcome: text('outcome', { enum: ['on_target', 'short', 'long', 'left', 'right', 'blocked', 'over'] }).notNull(),
+    carryM: real('carry_m'),
+    lateralM: real('lateral_m'),
+    measuredSpeedMs: real('measured_speed_ms'),
+    launchAngleDeg: real('launch_angle_deg'),
+    measuredSpinRps: real('measured_spin_rps'),
+    recordedAt: text('recorded_at').notNull(),
+    recordedBy: text('recorded_by').references(() => users.id),
+    deviceId: text('device_id'),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+    deletedAt: text('deleted_at'),
+    version: integer('version').notNull().default(1),
+    changeSeq: integer('change_seq').notNull(),
+  },
+  (t) => [
+    index('kicks_player_recorded_idx').on(t.playerId, t.recordedAt),
+    index('kicks_session_idx').on(t.sessionId),
+    index('kicks_club_seq_idx').on(t.clubId, t.changeSeq),
+  ],
+);
+
+/** Sync idempotency: each mutation id is applied at most once; replays are acknowledged. */
+export const appliedMutations = sqliteTable(
+  'applied_mutations',
+  {
+    id: text('id').primaryKey(),
+    userId: text('user_id').notNull().references(() => users.id),
+    deviceId: text('device_id'),
+    entity: text('entity').notNull(),
+    entityId: text('entity_id').notNull(),
+    status: text('status').notNull(),
+    appliedAt: createdAt(),
+  },
+  (t) => [index('applied_mutations_user_idx').on(t.userId)],
+);
+
+/** The single server-wide counter that hands out `change_seq` values. */
+export const changeCounter = sqliteTable('change_counter', {
+  id: integer('id').primaryKey(),
+  lastSeq: integer('last_seq').notNull().default(0),
+});
+
+/** Uploaded CSV files (roster and measured-kick imports) awaiting preview and commit. */
+export const uploads = sqliteTable(
+  'uploads',
+  {
+    id: text('id').primaryKey(),
+    clubId: text('club_id').notNull().references(() => clubs.id),
+    uploadedBy: text('uploaded_by').notNull().references(() => users.id),
+    kind: text('kind', { enum: ['roster', 'measured_kicks'] }).notNull(),
+    filename: text('filename').notNull(),
+    sizeBytes: integer('size_bytes').notNull(),
+    content: text('content').notNull(),
+    status: text('status', { enum: ['uploaded', 'previewed', 'committed', 'failed'] }).notNull().default('uploaded'),
+    error: text('error'),
+    createdAt: createdAt(),
+    committedAt: text('committed_at'),
+  },
+  (t) => [index('uploads_club_idx').on(t.clubId)],
+);
+
+/** Every outgoing e-mail, written before sending so a crash never loses or doubles one. */
+export const mailOutbox = sqliteTable(
+  'mail_outbox',
+  {
+    id: text('id').primaryKey(),
+    clubId: text('club_id').references(() => clubs.id),
+    kind: text('kind', { enum: ['invite', 'password_reset', 'family_digest', 'squad_week'] }).notNull(),
+    /** Idempotency key, e.g. `family_digest:<linkId>:<weekStart>`: a job run twice sends once. */
+    dedupeKey: text('dedupe_key').notNull(),
+    toAddress: text('to_address').notNull(),
+    subject: text('subject').notNull(),
+    textBody: text('text_body').notNull(),
+    htmlBody: text('html_body'),
+    status: text('status', { enum: ['queued', 'sent', 'failed'] }).notNull().default('queued'),
+    attempts: integer('attempts').notNull().default(0),
+    lastError: text('last_error'),
+    createdAt: createdAt(),
+    sentAt: text('sent_at'),
+  },
+  (t) => [uniqueIndex('mail_outbox_dedupe_uq').on(t.dedupeKey), index('mail_outbox_status_idx').on(t.status)],
+);
+
+/** One row per scheduled digest run, so a job that fires twice does its work once. */
+export const digestRuns = sqliteTable(
+  'digest_runs',
+  {
+    id: text('id').primaryKey(),
+    clubId: text('club_id').notNull().references(() => clubs.id),
+    kind: text('kind', { enum: ['family_digest', 'squad_week'] }).notNull(),
+    periodStart: text('period_start').notNull(),
+    status: text('status', { enum: ['running', 'done', 'failed'] }).notNull().default('running'),
+    sentCount: integer('sent_count').notNull().default(0),
+    startedAt: createdAt(),
+    finishedAt: text('finished_at'),
+  },
+  (t) => [uniqueIndex('digest_runs_period_uq').on(t.clubId, t.kind, t.periodStart)],
+);
+
+/** Who did what, for safeguarding and data-protection questions. */
+export const auditLog = sqliteTable(
+  'audit_log',
+  {
+    id: text('id').primaryKey(),
+    clubId: text('club_id').references(() => clubs.id),
+    userId: text('user_id').references(() => users.id),
+    action: text('action').notNull(),
+    entity: text('entity'),
+    entityId: text('entity_id'),
+    detailJson: text('detail_json'),
+    at: createdAt(),
+  },
+  (t) => [index('audit_log_club_at_idx').on(t.clubId, t.at)],
+);

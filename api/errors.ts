@@ -1,0 +1,106 @@
+/**
+ * Typed HTTP errors and the one middleware that shapes every failure as
+ * `{ error: { code, message, fields? } }`. Handlers just `throw`.
+ */
+import type { ErrorRequestHandler } from 'express';
+import type * as z from 'zod';
+
+/** One offending input field (dotted path) and why it was refused. */
+export interface FieldError {
+  field: string;
+  message: string;
+}
+
+/** Base class: an error with an HTTP status and a stable machine-readable code. */
+export class HttpError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly fields?: FieldError[],
+  ) {
+    super(message);
+  }
+}
+
+/** 400: the request is malformed or fails validation. */
+export class Invalid extends HttpError {
+  constructor(message: string, fields?: FieldError[]) {
+    super(400, 'invalid', message, fields);
+  }
+}
+/** 401: no valid credentials. */
+export class Unauthorized extends HttpError {
+  constructor(message = 'Sign-in required', code = 'unauthorized') {
+    super(401, code, message);
+  }
+}
+/** 403: signed in, but the role or scope does not allow this. */
+export class Forbidden extends HttpError {
+  constructor(message = 'Your role does not allow this') {
+    super(403, 'forbidden', message);
+  }
+}
+/** 404: nothing there that the caller may see. */
+export class NotFound extends HttpError {
+  constructor(message = 'Not found') {
+    super(404, 'not_found', message);
+  }
+}
+
+/** Converts zod issues into field errors (`body` when the whole value is wrong). */
+export function fieldErrors(error: z.ZodError): FieldError[] {
+  return error.issues.map((issue) => ({
+    field: issue.path.length ? issue.path.map(String).join('.') : 'body',
+    message: issue.message,
+  }));
+}
+
+/** Parses `value` with `schema` or throws `Invalid` naming every bad field. */
+export function parseOrThrow<S extends z.ZodType>(schema: S, value: unknown, what = 'Request'): z.infer<S> {
+  const result = schema.safeParse(value);
+  if (!result.success) {
+    const fields = fieldErrors(result.error);
+    const summary = fields.map((f) => `${f.field}: ${f.message}`).join('; ');
+    throw new Invalid(`${what} is invalid — ${summary}`, fields);
+  }
+  return result.data;
+}
+
+interface BodyParserError {
+  type?: string;
+  status?: number;
+  limit?: number;
+  message?: string;
+}
+
+/** The single error middleware. Unknown errors become a 500 without leaking internals. */
+export const errorMiddleware: ErrorRequestHandler = (err: unknown, req, res, _next) => {
+  if (err instanceof HttpError) {
+    res.status(err.status).json({ error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) } });
+    return;
+  }
+  const bp = err as BodyParserError;
+  if (bp && bp.type === 'entity.parse.failed') {
+    res.status(400).json({
+      error: { code: 'invalid_json', message: 'The request body is not valid JSON', fields: [{ field: 'body', message: 'Malformed JSON' }] },
+    });
+    return;
+  }
+  if (bp && bp.type === 'entity.too.large') {
+    res.status(400).json({
+      error: {
+        code: 'body_too_large',
+        message: `The request body is larger than the ${bp.limit ?? ''} byte limit`.replace('  ', ' '),
+        fields: [{ field: 'body', message: 'Too large' }],
+      },
+    });
+    return;
+  }
+  if (bp && typeof bp.status === 'number' && bp.status >= 400 && bp.status < 500) {
+    res.status(bp.status).json({ error: { code: 'bad_request', message: bp.message ?? 'Bad request' } });
+    return;
+  }
+  req.log?.error({ err }, 'unhandled error');
+  res.status(500).json({ error: { code: 'internal', message: 'Something went wrong on the server' } });
+};

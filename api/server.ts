@@ -1,0 +1,62 @@
+/**
+ * Starts Loftline: opens and migrates the database, loads the demo scenario into an empty
+ * one, starts the local fake mail server (outside production) and listens.
+ */
+import type { Server } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import { isDatabaseEmpty, seedDemo } from '../seed/scenario';
+import { createApp } from './app';
+import type { AppConfig } from './config';
+import { openDatabase, type Db } from './db/client';
+import { createLogger } from './logger';
+import { startFakeSmtp, type FakeSmtp } from './mail/fake-smtp';
+
+/** A running Loftline server. */
+export interface RunningServer {
+  port: number;
+  db: Db;
+  smtp: FakeSmtp | null;
+  close(): Promise<void>;
+}
+
+/** Options for `startServer`. */
+export interface StartOptions {
+  /** Whether to load the demo scenario when the database is empty (default true). */
+  seedIfEmpty?: boolean;
+}
+
+/** Starts the whole server on `config.port`. */
+export async function startServer(config: AppConfig, options: StartOptions = {}): Promise<RunningServer> {
+  const logger = createLogger(config);
+  const db = openDatabase(config.dbPath);
+  if ((options.seedIfEmpty ?? true) && isDatabaseEmpty(db)) {
+    const summary = seedDemo(db);
+    logger.info({ summary }, 'loaded the demo scenario into the empty database');
+  }
+  let smtp: FakeSmtp | null = null;
+  if (config.env !== 'production') {
+    try {
+      smtp = await startFakeSmtp(config.smtpPort);
+      logger.info({ port: smtp.port }, 'fake SMTP server capturing mail on 127.0.0.1');
+    } catch (err) {
+      logger.warn({ err }, 'fake SMTP server could not start; mail will queue until it can be sent');
+    }
+  }
+  const app = createApp({ db, config, logger });
+  const server: Server = await new Promise((resolveServer, reject) => {
+    const s = app.listen(config.port, () => resolveServer(s));
+    s.once('error', reject);
+  });
+  const port = (server.address() as AddressInfo).port;
+  logger.info({ port, db: config.dbPath }, `Loftline listening on http://localhost:${port}`);
+  return {
+    port,
+    db,
+    smtp,
+    close: async () => {
+      await new Promise<void>((done) => server.close(() => done()));
+      await smtp?.close();
+      db.$client.close();
+    },
+  };
+}

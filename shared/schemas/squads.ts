@@ -1,0 +1,31 @@
+/** A squad as `GET /api/squads` lists it (scoped to the caller). */
+export interface SquadSummary {
+  id: string;
+  name: string;
+  ageGroup: string;
+  /** Ball size the squad trains with (3, 4 or 5). */
+  ballSize: number;
+  playerCount: number;
+}
+
+/** A player as `GET /api/players` lists it (scoped to the caller). */
+export interface PlayerSummary {
+  id: string;
+  squadId: string;
+  squadName: string;
+  displayName: string;
+  shirtNumber: number | null;
+  dominantFoot: 'left' | 'right';
+  /** Whether the player is under 18 (academy youth data rules apply). */
+  isMinor: boolean;
+}
+
+/** The error body every failing API call answers with. */
+export interface ApiErrorBody {
+  error: {
+    code: string;
+    message: string;
+    /** For validation failures: each offending field (dotted path) and why. */
+    fields?: { field: string; message: string }[];
+  };
+}

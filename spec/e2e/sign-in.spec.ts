@@ -1,0 +1,95 @@
+import type { Page } from 'playwright-core';
+import { launchContext } from './support/browser';
+import { startE2eServer, type E2eServer } from './support/server';
+
+const PASSWORD = 'loftline-demo';
+
+async function signIn(page: Page, baseUrl: string, email: string): Promise<void> {
+  await page.goto(baseUrl + '/');
+  await page.waitForURL(/\/sign-in/);
+  await page.getByLabel(/e-mail/i).fill(email);
+  await page.getByLabel(/password/i).fill(PASSWORD);
+  await page.getByRole('button', { name: /sign in/i }).click();
+  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
+}
+
+describe('signing in (end to end, Chromium)', () => {
+  let server: E2eServer;
+  beforeAll(async () => {
+    server = await startE2eServer();
+  }, 90_000);
+  afterAll(async () => {
+    await server.stop();
+    server.cleanup();
+  });
+
+  it('shows the head coach the three squads', async () => {
+    const { context, close } = await launchContext();
+    try {
+      const page = await context.newPage();
+      await signIn(page, server.baseUrl, 'head.coach@kestrel-vale.test');
+      const squads = page.getByTestId('squad-card');
+      await squads.first().waitFor();
+      expect(await squads.count()).toBe(3);
+      const text = (await squads.allInnerTexts()).join('\n');
+      expect(text).toContain('U14');
+      expect(text).toContain('U16');
+      expect(text).toMatch(/first team/i);
+    } finally {
+      await close();
+    }
+  }, 60_000);
+
+  it('shows the player only themselves', async () => {
+    const { context, close } = await launchContext({ width: 360, height: 740 });
+    try {
+      const page = await context.newPage();
+      await signIn(page, server.baseUrl, 'player@kestrel-vale.test');
+      const own = page.getByTestId('player-card');
+      await own.first().waitFor();
+      expect(await own.count()).toBe(1);
+      expect(await page.getByTestId('squad-card').count()).toBe(0);
+    } finally {
+      await close();
+    }
+  }, 60_000);
+
+  it('shows a readable error for a wrong password and stays on the sign-in page', async () => {
+    const { context, close } = await launchContext();
+    try {
+      const page = await context.newPage();
+      await page.goto(server.baseUrl + '/sign-in');
+      await page.getByLabel(/e-mail/i).fill('head.coach@kestrel-vale.test');
+      await page.getByLabel(/password/i).fill('wrong-password');
+      await page.getByRole('button', { name: /sign in/i }).click();
+      await page.getByText('E-mail or password is wrong').waitFor();
+      expect(new URL(page.url()).pathname).toBe('/sign-in');
+    } finally {
+      await close();
+    }
+  }, 60_000);
+
+  it('serves the fonts and icon font from our own origin', async () => {
+    const { context, close } = await launchContext();
+    try {
+      const page = await context.newPage();
+      const external: string[] = [];
+      page.on('request', (r) => {
+        if (!r.url().startsWith(server.baseUrl) && !r.url().startsWith('data:')) external.push(r.url());
+      });
+      await page.goto(server.baseUrl + '/sign-in');
+      await page.getByLabel(/e-mail/i).waitFor();
+      const fontsOk = await page.evaluate(async () => {
+        await document.fonts.ready;
+        return {
+          text: document.fonts.check('16px "Atkinson Hyperlegible"'),
+          icons: document.fonts.check('24px "Material Symbols Outlined"'),
+        };
+      });
+      expect(fontsOk.text).toBeTrue();
+      expect(external).toEqual([]);
+    } finally {
+      await close();
+    }
+  }, 60_000);
+});

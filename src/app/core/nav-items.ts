@@ -1,0 +1,27 @@
+import { ROLES, type Role } from '../../../shared/roles';
+
+/** One entry of the app's navigation. */
+export interface NavItem {
+  /** Router path the entry opens. */
+  readonly path: string;
+  /** Visible label (also the accessible name). */
+  readonly label: string;
+  /** Material Symbols ligature name. */
+  readonly icon: string;
+  /** Roles that see the entry. The server still checks every call; this only hides dead ends. */
+  readonly roles: readonly Role[];
+}
+
+/**
+ * Every navigation entry, in display order. A feature adds itself with one line here (plus
+ * its route); the shell shows each user only the entries for their role, in the side nav on
+ * wide screens and in the bottom bar on a phone.
+ */
+export const NAV_ITEMS: readonly NavItem[] = [
+  { path: '/home', label: 'Home', icon: 'home', roles: ROLES },
+];
+
+/** The entries a user with this role sees, in order. */
+export function navItemsFor(role: Role | null, items: readonly NavItem[] = NAV_ITEMS): NavItem[] {
+  return role === null ? [] : items.filter((item) => item.roles.includes(role));
+}

@@ -1,0 +1,91 @@
+import { BreakpointObserver } from '@angular/cdk/layout';
+import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
+import { MatButtonModule } from '@angular/material/button';
+import { MatDividerModule } from '@angular/material/divider';
+import { MatIconModule } from '@angular/material/icon';
+import { MatListModule } from '@angular/material/list';
+import { MatMenuModule } from '@angular/material/menu';
+import { MatSidenavModule } from '@angular/material/sidenav';
+import { MatToolbarModule } from '@angular/material/toolbar';
+import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { map } from 'rxjs';
+import { ROLE_LABELS } from '../../../shared/roles';
+import { AuthSession } from '../core/auth-session';
+import { NAV_ITEMS, navItemsFor } from '../core/nav-items';
+import { ProfileStore } from '../core/profile-store';
+import { ThemePreference } from '../core/theme-preference';
+import { LoftlineMark } from '../ui/loftline-mark';
+
+/** From this width on the navigation sits in a side nav; below it, in a bottom bar for thumbs. */
+export const WIDE_LAYOUT_QUERY = '(min-width: 840px)';
+
+/** How many tabs fit the bottom bar of a 360 px phone with 48 px+ targets and readable labels. */
+const BOTTOM_BAR_SLOTS = 4;
+
+/**
+ * The frame around every signed-in page: the ink-navy bar with product, club and user, the
+ * theme toggle and sign-out, and the navigation the user's role allows. On a phone the
+ * navigation moves to a bottom bar within reach of the thumb and the account controls fold
+ * into one menu, so the bar never wraps on a 360 px screen.
+ */
+@Component({
+  selector: 'll-app-shell',
+  imports: [
+    MatButtonModule,
+    MatDividerModule,
+    MatIconModule,
+    MatListModule,
+    MatMenuModule,
+    MatSidenavModule,
+    MatToolbarModule,
+    RouterLink,
+    RouterLinkActive,
+    RouterOutlet,
+    LoftlineMark,
+  ],
+  templateUrl: './app-shell.html',
+  styleUrl: './app-shell.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  host: { '[class.shell--wide]': 'wide()' },
+})
+export class AppShell {
+  private readonly session = inject(AuthSession);
+  private readonly router = inject(Router);
+  private readonly breakpoints = inject(BreakpointObserver);
+
+  protected readonly theme = inject(ThemePreference);
+  protected readonly user = this.session.user;
+  protected readonly roleLabel = computed(() => {
+    const role = this.session.role();
+    return role ? ROLE_LABELS[role] : '';
+  });
+  protected readonly clubName = computed(() => this.session.club()?.name ?? null);
+  protected readonly wide = toSignal(this.breakpoints.observe(WIDE_LAYOUT_QUERY).pipe(map((state) => state.matches)), {
+    initialValue: this.breakpoints.isMatched(WIDE_LAYOUT_QUERY),
+  });
+
+  protected readonly navItems = computed(() => navItemsFor(this.session.role(), NAV_ITEMS));
+  /** Tabs shown in the phone's bottom bar; the rest go into its "More" menu. */
+  protected readonly bottomItems = computed(() => {
+    const items = this.navItems();
+    return items.length <= BOTTOM_BAR_SLOTS ? items : items.slice(0, BOTTOM_BAR_SLOTS - 1);
+  });
+  protected readonly overflowItems = computed(() => {
+    const items = this.navItems();
+    return items.length <= BOTTOM_BAR_SLOTS ? [] : items.slice(BOTTOM_BAR_SLOTS - 1);
+  });
+  protected readonly themeToggleLabel = computed(() =>
+    this.theme.isDark() ? 'Switch to light theme' : 'Switch to dark theme',
+  );
+
+  constructor() {
+    // The club name in the bar comes from GET /api/me; the stored one shows until it answers.
+    inject(ProfileStore).ensureLoaded();
+  }
+
+  protected signOut(): void {
+    this.session.signOut();
+    void this.router.navigateByUrl('/sign-in');
+  }
+}
