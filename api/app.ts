@@ -19,6 +19,7 @@ import { meRouter } from './me/me.router';
 import { playersRouter } from './players/players.router';
 import { attachScope } from './scope/scope.middleware';
 import { squadsRouter } from './squads/squads.router';
+import { syncRouter } from './sync/sync.router';
 
 /** What the app needs from the outside world. */
 export interface AppDeps {
@@ -62,6 +63,7 @@ export function createApp({ db, config, logger }: AppDeps): Express {
   api.use('/me', meRouter(db));
   api.use('/squads', squadsRouter(db));
   api.use('/players', playersRouter(db));
+  api.use('/sync', syncRouter(db));
   api.use(() => {
     throw new NotFound('No such API route');
   });

@@ -1,0 +1,261 @@
+/**
+ * Applies pushed mutations exactly once and serves scoped changes for pull.
+ * The contract is written down in `shared/schemas/sync.ts`.
+ */
+import { and, asc, eq, gt, inArray, sql } from 'drizzle-orm';
+import type * as z from 'zod';
+import {
+  ENTITY_SCHEMAS,
+  mutationSchema,
+  type DrillData,
+  type KickData,
+  type MutationResult,
+  type PullResponse,
+  type PushResponse,
+  type SessionData,
+  type SyncChange,
+  type SyncEntity,
+} from '../../shared/schemas/sync';
+import { nextChangeSeq, type Db } from '../db/client';
+import { appliedMutations, changeCounter, drills, kicks, players, trainingSessions } from '../db/schema';
+import { fieldErrors, Forbidden } from '../errors';
+import type { Scope } from '../scope/scope';
+import {
+  drillColumns,
+  drillToSync,
+  ENTITY_RANK,
+  kickColumns,
+  kickToSync,
+  sessionColumns,
+  sessionToSync,
+} from './sync.rows';
+
+/** Thrown inside one mutation's savepoint to reject it without failing the batch. */
+class Rejection extends Error {
+  constructor(
+    readonly code: string,
+    message: string,
+    readonly fields?: { field: string; message: string }[],
+  ) {
+    super(message);
+  }
+}
+
+type Parsed = z.infer<typeof mutationSchema>;
+
+/** Applies one push in a single transaction, each mutation in its own savepoint. */
+export function push(db: Db, scope: Scope, deviceId: string, raw: unknown[]): PushResponse {
+  const results: MutationResult[] = new Array(raw.length);
+  const parsed: { index: number; m: Parsed }[] = [];
+  raw.forEach((value, index) => {
+    const r = mutationSchema.safeParse(value);
+    if (r.success) parsed.push({ index, m: r.data });
+    else {
+      const id = value && typeof value === 'object' && 'id' in value && typeof value.id === 'string' ? value.id : '';
+      results[index] = { id, status: 'rejected', error: { code: 'invalid', message: 'The mutation is malformed', fields: fieldErrors(r.error) } };
+    }
+  });
+  // Parents before children, whatever order the device sent them in (stable within an entity).
+  parsed.sort((a, b) => ENTITY_RANK[a.m.entity] - ENTITY_RANK[b.m.entity] || a.index - b.index);
+
+  const sqlite = db.$client;
+  const applyOne = sqlite.transaction((m: Parsed) => applyMutation(db, scope, deviceId, m));
+  sqlite.transaction(() => {
+    for (const { index, m } of parsed) {
+      try {
+        results[index] = applyOne(m);
+      } catch (err) {
+        if (!(err instanceof Rejection)) throw err;
+        results[index] = { id: m.id, status: 'rejected', error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) } };
+      }
+    }
+  })();
+  return { results, cursor: currentCursor(db) };
+}
+
+/** The latest change sequence handed out. */
+export function currentCursor(db: Db): number {
+  return db.select({ s: changeCounter.lastSeq }).from(changeCounter).where(eq(changeCounter.id, 1)).get()?.s ?? 0;
+}
+
+function parseData<S extends z.ZodType>(schema: S, data: unknown): z.infer<S> {
+  const r = schema.safeParse(data);
+  if (!r.success) {
+    const fields = fieldErrors(r.error).map((f) => ({ ...f, field: f.field === 'body' ? 'data' : `data.${f.field}` }));
+    throw new Rejection('invalid', fields.map((f) => `${f.field}: ${f.message}`).join('; '), fields);
+  }
+  return r.data;
+}
+
+function forbidden(what: string): Rejection {
+  return new Rejection('forbidden', `You may not change ${what}`);
+}
+
+function sessionFor(db: Db, scope: Scope, sessionId: string): typeof trainingSessions.$inferSelect {
+  const session = db.select().from(trainingSessions).where(eq(trainingSessions.id, sessionId)).get();
+  if (!session) throw new Rejection('unknown_session', 'The training session is not on the server; push the session first', [{ field: 'data.sessionId', message: 'Unknown session' }]);
+  if (session.clubId !== scope.user.clubId || !scope.canWriteSquad(session.squadId)) throw forbidden('this squad’s sessions');
+  return session;
+}
+
+function applyMutation(db: Db, scope: Scope, deviceId: string, m: Parsed): MutationResult {
+  if (db.select({ id: appliedMutations.id }).from(appliedMutations).where(eq(appliedMutations.id, m.id)).get()) {
+    return { id: m.id, status: 'duplicate' };
+  }
+  const now = new Date().toISOString();
+  const entityId = typeof m.data['id'] === 'string' ? m.data['id'] : '';
+  const result =
+    m.entity === 'training_session'
+      ? applySession(db, scope, deviceId, m, now)
+      : m.entity === 'drill'
+        ? applyDrill(db, scope, m, now)
+        : applyKick(db, scope, deviceId, m, now);
+  if (result.status === 'applied') {
+    db.insert(appliedMutations).values({ id: m.id, userId: scope.user.id, deviceId, entity: m.entity, entityId, status: 'applied' }).run();
+  }
+  return result;
+}
+
+interface Versioned {
+  id: string;
+  clubId: string;
+  version: number;
+  deletedAt: string | null;
+}
+
+/** Shared rules for an existing row: club, base version, tombstones. Returns a result to stop, or null to go on. */
+function checkExisting<R extends Versioned>(m: Parsed, existing: R, toSync: (r: R) => MutationResult['current'], scope: Scope): MutationResult | null {
+  if (existing.clubId !== scope.user.clubId) throw forbidden('this record');
+  if (m.op === 'delete' && existing.deletedAt) return { id: m.id, status: 'applied' };
+  if (m.baseVersion === undefined || m.baseVersion !== existing.version) {
+    return { id: m.id, status: 'conflict', current: toSync(existing) };
+  }
+  return null;
+}
+
+function applySession(db: Db, scope: Scope, deviceId: string, m: Parsed, now: string): MutationResult {
+  const existing = db.select().from(trainingSessions).where(eq(trainingSessions.id, String(m.data['id'] ?? ''))).get();
+  if (m.op === 'delete') {
+    const { id } = parseData(ENTITY_SCHEMAS.training_session.pick({ id: true }), m.data);
+    if (!existing) return { id: m.id, status: 'applied' };
+    if (!scope.canWriteSquad(existing.squadId)) throw forbidden('this squad’s sessions');
+    const stop = checkExisting(m, existing, sessionToSync, scope);
+    if (stop) return stop;
+    db.update(trainingSessions).set({ deletedAt: now, updatedAt: now, version: existing.version + 1, changeSeq: nextChangeSeq(db) }).where(eq(trainingSessions.id, id)).run();
+    return { id: m.id, status: 'applied' };
+  }
+  const d: SessionData = parseData(ENTITY_SCHEMAS.training_session, m.data);
+  if (!scope.canWriteSquad(d.squadId)) throw forbidden('this squad’s sessions');
+  if (existing) {
+    if (!scope.canWriteSquad(existing.squadId)) throw forbidden('this squad’s sessions');
+    const stop = checkExisting(m, existing, sessionToSync, scope);
+    if (stop) return stop;
+    db.update(trainingSessions)
+      .set({ ...sessionColumns(d), updatedAt: d.updatedAt ?? now, version: existing.version + 1, changeSeq: nextChangeSeq(db) })
+      .where(eq(trainingSessions.id, d.id))
+      .run();
+  } else {
+    db.insert(trainingSessions)
+      .values({ id: d.id, clubId: scope.user.clubId, ...sessionColumns(d), recordedBy: scope.user.id, deviceId, updatedAt: d.updatedAt ?? now, version: 1, changeSeq: nextChangeSeq(db) })
+      .run();
+  }
+  return { id: m.id, status: 'applied' };
+}
+
+function applyDrill(db: Db, scope: Scope, m: Parsed, now: string): MutationResult {
+  const existing = db.select().from(drills).where(eq(drills.id, String(m.data['id'] ?? ''))).get();
+  if (m.op === 'delete') {
+    const { id } = parseData(ENTITY_SCHEMAS.drill.pick({ id: true }), m.data);
+    if (!existing) return { id: m.id, status: 'applied' };
+    sessionFor(db, scope, existing.sessionId);
+    const stop = checkExisting(m, existing, drillToSync, scope);
+    if (stop) return stop;
+    db.update(drills).set({ deletedAt: now, updatedAt: now, version: existing.version + 1, changeSeq: nextChangeSeq(db) }).where(eq(drills.id, id)).run();
+    return { id: m.id, status: 'applied' };
+  }
+  const d: DrillData = parseData(ENTITY_SCHEMAS.drill, m.data);
+  sessionFor(db, scope, d.sessionId);
+  if (existing) {
+    sessionFor(db, scope, existing.sessionId);
+    const stop = checkExisting(m, existing, drillToSync, scope);
+    if (stop) return stop;
+    db.update(drills).set({ ...drillColumns(d), updatedAt: d.updatedAt ?? now, version: existing.version + 1, changeSeq: nextChangeSeq(db) }).where(eq(drills.id, d.id)).run();
+  } else {
+    db.insert(drills).values({ id: d.id, clubId: scope.user.clubId, ...drillColumns(d), updatedAt: d.updatedAt ?? now, version: 1, changeSeq: nextChangeSeq(db) }).run();
+  }
+  return { id: m.id, status: 'applied' };
+}
+
+function checkKickRefs(db: Db, scope: Scope, d: KickData): void {
+  const session = sessionFor(db, scope, d.sessionId);
+  const player = db.select().from(players).where(eq(players.id, d.playerId)).get();
+  if (!player || player.clubId !== scope.user.clubId || player.deletedAt) {
+    throw new Rejection('invalid', 'data.playerId: no such player in your club', [{ field: 'data.playerId', message: 'Unknown player' }]);
+  }
+  if (player.squadId !== session.squadId) {
+    throw new Rejection('invalid', 'data.playerId: the player is not on this session’s squad', [{ field: 'data.playerId', message: 'Not on the session’s squad' }]);
+  }
+  if (d.drillId) {
+    const drill = db.select().from(drills).where(eq(drills.id, d.drillId)).get();
+    if (!drill || drill.sessionId !== d.sessionId) {
+      throw new Rejection('invalid', 'data.drillId: the drill is not part of this session', [{ field: 'data.drillId', message: 'Not a drill of this session' }]);
+    }
+  }
+}
+
+function applyKick(db: Db, scope: Scope, deviceId: string, m: Parsed, now: string): MutationResult {
+  const existing = db.select().from(kicks).where(eq(kicks.id, String(m.data['id'] ?? ''))).get();
+  if (m.op === 'delete') {
+    const { id } = parseData(ENTITY_SCHEMAS.kick.pick({ id: true }), m.data);
+    if (!existing) return { id: m.id, status: 'applied' };
+    sessionFor(db, scope, existing.sessionId);
+    const stop = checkExisting(m, existing, kickToSync, scope);
+    if (stop) return stop;
+    db.update(kicks).set({ deletedAt: now, updatedAt: now, version: existing.version + 1, changeSeq: nextChangeSeq(db) }).where(eq(kicks.id, id)).run();
+    return { id: m.id, status: 'applied' };
+  }
+  const d: KickData = parseData(ENTITY_SCHEMAS.kick, m.data);
+  checkKickRefs(db, scope, d);
+  if (existing) {
+    sessionFor(db, scope, existing.sessionId);
+    const stop = checkExisting(m, existing, kickToSync, scope);
+    if (stop) return stop;
+    db.update(kicks).set({ ...kickColumns(d), updatedAt: d.updatedAt ?? now, version: existing.version + 1, changeSeq: nextChangeSeq(db) }).where(eq(kicks.id, d.id)).run();
+  } else {
+    db.insert(kicks)
+      .values({ id: d.id, clubId: scope.user.clubId, ...kickColumns(d), recordedBy: scope.user.id, deviceId, updatedAt: d.updatedAt ?? now, version: 1, changeSeq: nextChangeSeq(db) })
+      .run();
+  }
+  return { id: m.id, status: 'applied' };
+}
+
+/** Changes after `since` that the caller may read, oldest first, at most `limit`. */
+export function pull(db: Db, scope: Scope, since: number, limit: number): PullResponse {
+  if (scope.user.role === 'guardian') throw new Forbidden('Guardians see their child’s summary, not raw training data');
+  const take = limit + 1;
+  const club = scope.user.clubId;
+  let sessionRows: (typeof trainingSessions.$inferSelect)[];
+  let drillRows: (typeof drills.$inferSelect)[];
+  let kickRows: (typeof kicks.$inferSelect)[];
+  if (scope.ownPlayerIds) {
+    const own = [...scope.ownPlayerIds];
+    const ownSessions = db.selectDistinct({ id: kicks.sessionId }).from(kicks).where(inArray(kicks.playerId, own));
+    const ownDrills = db.selectDistinct({ id: sql<string>`${kicks.drillId}` }).from(kicks).where(inArray(kicks.playerId, own));
+    sessionRows = db.select().from(trainingSessions).where(and(eq(trainingSessions.clubId, club), gt(trainingSessions.changeSeq, since), inArray(trainingSessions.id, ownSessions))).orderBy(asc(trainingSessions.changeSeq)).limit(take).all();
+    drillRows = db.select().from(drills).where(and(eq(drills.clubId, club), gt(drills.changeSeq, since), inArray(drills.id, ownDrills))).orderBy(asc(drills.changeSeq)).limit(take).all();
+    kickRows = db.select().from(kicks).where(and(eq(kicks.clubId, club), gt(kicks.changeSeq, since), inArray(kicks.playerId, own))).orderBy(asc(kicks.changeSeq)).limit(take).all();
+  } else {
+    const squadIds = [...scope.readableSquadIds];
+    const readableSessions = db.select({ id: trainingSessions.id }).from(trainingSessions).where(and(eq(trainingSessions.clubId, club), inArray(trainingSessions.squadId, squadIds)));
+    sessionRows = db.select().from(trainingSessions).where(and(eq(trainingSessions.clubId, club), gt(trainingSessions.changeSeq, since), inArray(trainingSessions.squadId, squadIds))).orderBy(asc(trainingSessions.changeSeq)).limit(take).all();
+    drillRows = db.select().from(drills).where(and(eq(drills.clubId, club), gt(drills.changeSeq, since), inArray(drills.sessionId, readableSessions))).orderBy(asc(drills.changeSeq)).limit(take).all();
+    kickRows = db.select().from(kicks).where(and(eq(kicks.clubId, club), gt(kicks.changeSeq, since), inArray(kicks.sessionId, readableSessions))).orderBy(asc(kicks.changeSeq)).limit(take).all();
+  }
+  const all: SyncChange[] = [
+    ...sessionRows.map((r) => ({ entity: 'training_session' as SyncEntity, changeSeq: r.changeSeq, data: sessionToSync(r) })),
+    ...drillRows.map((r) => ({ entity: 'drill' as SyncEntity, changeSeq: r.changeSeq, data: drillToSync(r) })),
+    ...kickRows.map((r) => ({ entity: 'kick' as SyncEntity, changeSeq: r.changeSeq, data: kickToSync(r) })),
+  ].sort((a, b) => a.changeSeq - b.changeSeq);
+  const changes = all.slice(0, limit);
+  return { changes, cursor: changes.at(-1)?.changeSeq ?? since, hasMore: all.length > limit };
+}
