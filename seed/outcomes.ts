@@ -218,7 +218,13 @@ function speedForCarry(carryM: number, angleDeg: number): number {
  * until the speed is plausible. Spin is the total of the logged spin steps' default rates
  * with device noise. Short chips honestly come out slower (about 10–16 m/s).
  */
-export function measureLaunch(prng: Prng, technique: Technique, carryM: number, backspinStep: number, sidespinStep: number): LaunchMeasurement {
+export function measureLaunch(
+  prng: Prng,
+  technique: Technique,
+  carryM: number,
+  backspinStep: number,
+  sidespinStep: number,
+): LaunchMeasurement {
   let angleDeg = DEFAULT_ELEVATION_DEG[technique] + Math.max(-4, Math.min(4, prng.normal(0, 2)));
   while (angleDeg < 45 && speedForCarry(carryM, angleDeg) > MAX_PLAUSIBLE_SPEED_MS) angleDeg += 1;
   const speedMs = speedForCarry(carryM, angleDeg) * (1 + Math.max(-0.05, Math.min(0.05, prng.normal(0, 0.025))));

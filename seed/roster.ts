@@ -88,7 +88,7 @@ export const SQUADS: readonly SquadSpec[] = [
   {
     key: 'first',
     name: 'First team',
-    ageGroup: 'Senior',
+    ageGroup: 'First team',
     ballSize: 5,
     ageRangeYears: [18.3, 30.7],
     sessionSlots: [
@@ -190,10 +190,29 @@ export const STAFF: readonly StaffSpec[] = [
     role: 'assistant_coach',
     squads: ['u14', 'u16'],
   },
-  { key: 'first_team_assistant', email: demoEmail('Bashir Kallow'), displayName: 'Bashir Kallow', role: 'assistant_coach', squads: ['first'] },
-  { key: 'kicking_coach', email: demoEmail('Ingrid Solheim-Hay'), displayName: 'Ingrid Solheim-Hay', role: 'assistant_coach', squads: ['u16', 'first'] },
+  {
+    key: 'first_team_assistant',
+    email: demoEmail('Bashir Kallow'),
+    displayName: 'Bashir Kallow',
+    role: 'assistant_coach',
+    squads: ['first'],
+  },
+  {
+    key: 'kicking_coach',
+    email: demoEmail('Ingrid Solheim-Hay'),
+    displayName: 'Ingrid Solheim-Hay',
+    role: 'assistant_coach',
+    squads: ['u16', 'first'],
+  },
   // A former coach whose account an administrator switched off: sign-in must refuse it.
-  { key: 'former_assistant', email: demoEmail('Peter Langridge'), displayName: 'Peter Langridge', role: 'assistant_coach', squads: [], disabled: true },
+  {
+    key: 'former_assistant',
+    email: demoEmail('Peter Langridge'),
+    displayName: 'Peter Langridge',
+    role: 'assistant_coach',
+    squads: [],
+    disabled: true,
+  },
 ];
 
 /** Who records most sessions of each squad on their phone (staff keys with relative weights). */

@@ -8,7 +8,18 @@
 import bcrypt from 'bcryptjs';
 import { sql } from 'drizzle-orm';
 import { nextChangeSeq, type Db } from '../api/db/client';
-import { clubs, drills, guardianLinks, kicks, players, squads, squadStaff, trainingGrounds, trainingSessions, users } from '../api/db/schema';
+import {
+  clubs,
+  drills,
+  guardianLinks,
+  kicks,
+  players,
+  squads,
+  squadStaff,
+  trainingGrounds,
+  trainingSessions,
+  users,
+} from '../api/db/schema';
 import type { Role } from '../shared/roles';
 import { birthDateForAge, DAY_MS, demoPeriod } from './calendar';
 import { drawPlayerSkill } from './outcomes';
@@ -96,7 +107,10 @@ export function hashDemoPassword(cost = 12): string {
 
 /** Whether the database has no club yet — the only state the scenario loads into. */
 export function isDatabaseEmpty(db: Db): boolean {
-  const row = db.select({ n: sql<number>`count(*)` }).from(clubs).get();
+  const row = db
+    .select({ n: sql<number>`count(*)` })
+    .from(clubs)
+    .get();
   return (row?.n ?? 0) === 0;
 }
 
@@ -128,14 +142,30 @@ export function seedDemo(db: Db, options: SeedOptions = {}): SeedSummary {
     if (!isDatabaseEmpty(db)) throw new Error('The database already has data; the demo scenario loads into an empty database only.');
 
     db.insert(clubs)
-      .values({ id: DEMO_CLUB_ID, name: DEMO_CLUB_NAME, timezone: 'Europe/London', repLimitPerSession: REP_LIMIT_PER_SESSION, spinStepsJson: null, ...stamps })
+      .values({
+        id: DEMO_CLUB_ID,
+        name: DEMO_CLUB_NAME,
+        timezone: 'Europe/London',
+        repLimitPerSession: REP_LIMIT_PER_SESSION,
+        spinStepsJson: null,
+        ...stamps,
+      })
       .run();
     db.insert(trainingGrounds)
       .values({ id: DEMO_GROUND_ID, clubId: DEMO_CLUB_ID, ...GROUND, ...stamps })
       .run();
     db.insert(squads)
       .values(
-        SQUADS.map((s) => ({ id: DEMO_SQUAD_IDS[s.key], clubId: DEMO_CLUB_ID, name: s.name, ageGroup: s.ageGroup, ballSize: s.ballSize, groundId: DEMO_GROUND_ID, ...stamps, deletedAt: null })),
+        SQUADS.map((s) => ({
+          id: DEMO_SQUAD_IDS[s.key],
+          clubId: DEMO_CLUB_ID,
+          name: s.name,
+          ageGroup: s.ageGroup,
+          ballSize: s.ballSize,
+          groundId: DEMO_GROUND_ID,
+          ...stamps,
+          deletedAt: null,
+        })),
       )
       .run();
 
@@ -148,7 +178,9 @@ export function seedDemo(db: Db, options: SeedOptions = {}): SeedSummary {
     for (const gd of GUARDIANS) account(gd.email, gd.displayName, 'guardian');
     for (const chunk of chunked(userRows, 200)) db.insert(users).values(chunk).run();
 
-    const staffRows = STAFF.flatMap((s) => s.squads.map((sq) => ({ squadId: DEMO_SQUAD_IDS[sq], userId: demoUserId(s.email), createdAt: setupAt })));
+    const staffRows = STAFF.flatMap((s) =>
+      s.squads.map((sq) => ({ squadId: DEMO_SQUAD_IDS[sq], userId: demoUserId(s.email), createdAt: setupAt })),
+    );
     db.insert(squadStaff).values(staffRows).run();
 
     // Players: shirt numbers, a quarter left-footed, ages fitting the squad at the load date.
@@ -157,7 +189,9 @@ export function seedDemo(db: Db, options: SeedOptions = {}): SeedSummary {
     for (const squad of SQUADS) {
       const prng = Prng.fromLabel(`squad-roster:${squad.key}`);
       const members = PLAYERS.filter((pl) => pl.squad === squad.key);
-      const shirts = prng.shuffle([1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12, 14, 15, 16, 17, 18, 19, 20, 21, 22, 23, 24, 26]).slice(0, members.length);
+      const shirts = prng
+        .shuffle([1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12, 14, 15, 16, 17, 18, 19, 20, 21, 22, 23, 24, 26])
+        .slice(0, members.length);
       const leftFooted = new Set(prng.shuffle(members.map((_, i) => i)).slice(0, 4));
       const list: SessionPlayer[] = [];
       members.forEach((pl, i) => {

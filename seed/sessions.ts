@@ -259,7 +259,8 @@ export function generateSession(input: SessionInput): GeneratedSession {
       let outcome: Outcome = classifyLanding(seen, targetDistanceM, targetRadiusM);
       if (setPiece) outcome = setPieceOutcome(prng, technique, outcome) ?? outcome;
       const logLanding = outcome !== 'blocked' && outcome !== 'over' && prng.chance(0.35);
-      const measured = squad.key === 'first' && prng.chance(0.1) ? measureLaunch(prng, technique, landing.carryM, backspinStep, sidespinStep) : null;
+      const measured =
+        squad.key === 'first' && prng.chance(0.1) ? measureLaunch(prng, technique, landing.carryM, backspinStep, sidespinStep) : null;
       kickRows.push({
         id: prng.uuid(),
         clubId: input.clubId,
