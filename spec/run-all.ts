@@ -71,6 +71,8 @@ async function runJasmine(config: string, label: string): Promise<Counts> {
 
 /** Reads Karma's progress output: the last `Executed N of M (K FAILED) (skipped S)` line. */
 export function parseKarma(output: string): Counts | null {
+  const summary = [...output.matchAll(/^Karma: (\d+) passed, (\d+) failed(?:, (\d+) skipped)?/gm)].at(-1);
+  if (summary) return { passed: Number(summary[1]), failed: Number(summary[2]), skipped: Number(summary[3] ?? 0) };
   const lines = [...output.matchAll(/Executed (\d+) of (\d+)(?: \((\d+) FAILED\))?(?: \(skipped (\d+)\))?/g)];
   const last = lines.at(-1);
   if (!last) return null;

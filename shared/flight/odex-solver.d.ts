@@ -43,6 +43,8 @@ export declare class Solver {
   maxStepSize: number;
   maxExtrapolationColumns: number;
   stepSizeSequence: number;
+  stabilityCheckCount: number;
+  stabilityCheckTableLines: number;
   denseOutput: boolean;
   denseOutputErrorEstimator: boolean;
   denseComponents: number[] | undefined;

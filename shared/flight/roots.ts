@@ -9,8 +9,6 @@
  * absolute tolerance `tol` in the argument. Returns NaN only if the bracket is invalid, which callers
  * check before calling.
  */
-let __calls = 0;
-export function brentCalls(): number { return __calls; }
 export function brentRoot(
   f: (x: number) => number,
   a: number,
@@ -76,7 +74,6 @@ export function brentRoot(
     fa = fb;
     b += Math.abs(d) > tol1 ? d : xm > 0 ? tol1 : -tol1;
     fb = f(b);
-    __calls++;
   }
   return b;
 }

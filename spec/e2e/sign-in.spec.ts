@@ -7,8 +7,8 @@ const PASSWORD = 'loftline-demo';
 async function signIn(page: Page, baseUrl: string, email: string): Promise<void> {
   await page.goto(baseUrl + '/');
   await page.waitForURL(/\/sign-in/);
-  await page.getByLabel(/e-mail/i).fill(email);
-  await page.getByLabel(/password/i).fill(PASSWORD);
+  await page.getByLabel('E-mail', { exact: true }).fill(email);
+  await page.getByLabel('Password', { exact: true }).fill(PASSWORD);
   await page.getByRole('button', { name: /sign in/i }).click();
   await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
 }
@@ -28,7 +28,7 @@ describe('signing in (end to end, Chromium)', () => {
     try {
       const page = await context.newPage();
       await signIn(page, server.baseUrl, 'head.coach@kestrel-vale.test');
-      const squads = page.getByTestId('squad-card');
+      const squads = page.getByRole('region', { name: 'Your squads' }).getByRole('listitem');
       await squads.first().waitFor();
       expect(await squads.count()).toBe(3);
       const text = (await squads.allInnerTexts()).join('\n');
@@ -45,10 +45,11 @@ describe('signing in (end to end, Chromium)', () => {
     try {
       const page = await context.newPage();
       await signIn(page, server.baseUrl, 'player@kestrel-vale.test');
-      const own = page.getByTestId('player-card');
+      const own = page.getByRole('region', { name: 'Your player entry' }).getByRole('listitem');
       await own.first().waitFor();
       expect(await own.count()).toBe(1);
-      expect(await page.getByTestId('squad-card').count()).toBe(0);
+      expect(await page.getByRole('region', { name: 'Your squads' }).count()).toBe(0);
+      expect(await own.first().innerText()).toContain('U16');
     } finally {
       await close();
     }
@@ -59,8 +60,8 @@ describe('signing in (end to end, Chromium)', () => {
     try {
       const page = await context.newPage();
       await page.goto(server.baseUrl + '/sign-in');
-      await page.getByLabel(/e-mail/i).fill('head.coach@kestrel-vale.test');
-      await page.getByLabel(/password/i).fill('wrong-password');
+      await page.getByLabel('E-mail', { exact: true }).fill('head.coach@kestrel-vale.test');
+      await page.getByLabel('Password', { exact: true }).fill('wrong-password');
       await page.getByRole('button', { name: /sign in/i }).click();
       await page.getByText('E-mail or password is wrong').waitFor();
       expect(new URL(page.url()).pathname).toBe('/sign-in');
@@ -78,7 +79,7 @@ describe('signing in (end to end, Chromium)', () => {
         if (!r.url().startsWith(server.baseUrl) && !r.url().startsWith('data:')) external.push(r.url());
       });
       await page.goto(server.baseUrl + '/sign-in');
-      await page.getByLabel(/e-mail/i).waitFor();
+      await page.getByLabel('E-mail', { exact: true }).waitFor();
       const fontsOk = await page.evaluate(async () => {
         await document.fonts.ready;
         return {

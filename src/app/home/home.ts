@@ -37,15 +37,16 @@ export class Home {
 
   protected readonly profile = inject(ProfileStore);
   protected readonly role = this.session.role;
-  protected readonly roleLabel = computed(() => {
+  private readonly clubName = computed(() => this.profile.me()?.club.name ?? this.session.club()?.name ?? null);
+  /** Role and club under the greeting, e.g. "Head coach · Harbour Academy". */
+  protected readonly subtitle = computed(() => {
     const role = this.role();
-    return role ? ROLE_LABELS[role] : '';
+    return [role ? ROLE_LABELS[role] : null, this.clubName()].filter((part) => part !== null).join(' · ');
   });
   /** The name to greet: the server's current one once known, the stored one before. */
   protected readonly displayName = computed(
     () => this.profile.me()?.user.displayName ?? this.session.user()?.displayName ?? '',
   );
-  protected readonly clubName = computed(() => this.profile.me()?.club.name ?? this.session.club()?.name ?? null);
 
   protected readonly list = toSignal(
     this.reloadList.pipe(

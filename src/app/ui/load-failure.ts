@@ -11,7 +11,7 @@ import type { ApiProblem } from '../core/api-error';
   selector: 'll-load-failure',
   imports: [MatButtonModule, MatIconModule],
   template: `
-    <mat-icon aria-hidden="true">{{ problem().unreachable ? 'cloud_off' : 'error' }}</mat-icon>
+    <mat-icon aria-hidden="true">{{ problem().unreachable ? 'wifi_off' : 'error' }}</mat-icon>
     <div class="load-failure__body">
       <p class="load-failure__what">{{ what() }}</p>
       <p class="load-failure__why">{{ problem().message }}</p>
