@@ -93,7 +93,7 @@ function serveClient(app: Express, clientDir: string): void {
       },
     }),
   );
-  app.get('/*splat', (req, res, next) => {
+  app.get('/{*splat}', (req, res, next) => {
     if (!req.accepts('html') || !existsSync(index)) return next();
     res.setHeader('Cache-Control', 'no-cache');
     res.sendFile(index);
