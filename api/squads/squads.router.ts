@@ -1,14 +1,27 @@
-/** `/api/squads`: the caller's squads. */
+/** `/api/squads`: the caller's squads and each squad's week. */
 import { Router } from 'express';
+import * as z from 'zod';
+import { requireRole } from '../auth/passport';
 import type { Db } from '../db/client';
+import { parseOrThrow } from '../errors';
 import { scopeOf } from '../scope/scope.middleware';
 import { listSquads } from './squads.service';
+import { squadWeek } from './week.service';
+
+const weekQuerySchema = z.object({
+  start: z.iso.date({ error: 'start must be a date (YYYY-MM-DD)' }),
+});
 
 /** Builds the squads router (mounted behind authentication and scope). */
 export function squadsRouter(db: Db): Router {
   const router = Router();
   router.get('/', (req, res) => {
     res.json({ squads: listSquads(db, scopeOf(req)) });
+  });
+  router.get('/:id/week', requireRole('admin', 'head_coach', 'assistant_coach'), (req, res) => {
+    const id = parseOrThrow(z.uuid({ error: 'id must be a UUID' }), req.params.id, 'Squad id');
+    const { start } = parseOrThrow(weekQuerySchema, req.query, 'Query');
+    res.json(squadWeek(db, scopeOf(req), id, start));
   });
   return router;
 }
