@@ -19,7 +19,7 @@ export function squadsRouter(db: Db): Router {
     res.json({ squads: listSquads(db, scopeOf(req)) });
   });
   router.get('/:id/week', requireRole('admin', 'head_coach', 'assistant_coach'), (req, res) => {
-    const id = parseOrThrow(z.uuid({ error: 'id must be a UUID' }), req.params.id, 'Squad id');
+    const id = parseOrThrow(z.uuid({ error: 'id must be a UUID' }), req.params['id'], 'Squad id');
     const { start } = parseOrThrow(weekQuerySchema, req.query, 'Query');
     res.json(squadWeek(db, scopeOf(req), id, start));
   });

@@ -1,5 +1,5 @@
 /**
- * Drag and lift coefficients of a football (DESIGN §6). Published values disagree, so the model is a
+ * Drag and lift coefficients of a football. Published values disagree, so the model is a
  * setting; these are the defaults with their sources.
  */
 

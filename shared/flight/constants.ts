@@ -1,6 +1,6 @@
 /**
- * Physical constants, ball sizes, Laws-of-the-Game distances and the club-tunable defaults of
- * DESIGN §6. Every value carries its source beside it so a reviewer can check it.
+ * Physical constants, ball sizes, Laws-of-the-Game distances and the club-tunable defaults of the
+ * spin and technique scales. Every value carries its source beside it so a reviewer can check it.
  */
 
 import type { BackspinStep, SidespinStep, Technique } from './types';
@@ -62,7 +62,7 @@ export const GOAL_HEIGHT_M = 2.44;
 
 /**
  * Backspin step → rev/s (+ = backspin, − = topspin). Pitchside logs a seven-step estimate; the model
- * needs a rate. Defaults of DESIGN §6, consistent with measured free kicks of 8–17 rev/s
+ * needs a rate. Product defaults (common practice), consistent with measured free kicks of 8–17 rev/s
  * (Barber & Carré 2010, Sports Engineering 13:47). Clubs may tune these.
  */
 export const SPIN_STEP_RPS: Readonly<Record<BackspinStep, number>> = {
@@ -75,7 +75,7 @@ export const SPIN_STEP_RPS: Readonly<Record<BackspinStep, number>> = {
   3: 10,
 };
 
-/** Sidespin step → rev/s (+ = curls left). Five-step Pitchside scale; DESIGN §6 defaults. */
+/** Sidespin step → rev/s (+ = curls left). Five-step Pitchside scale; product defaults (common practice), clubs may tune. */
 export const SIDESPIN_STEP_RPS: Readonly<Record<SidespinStep, number>> = {
   [-2]: -8,
   [-1]: -4,
@@ -101,7 +101,7 @@ export const TECHNIQUES: readonly Technique[] = ['driven', 'lofted', 'chipped', 
 /**
  * Spin-decay time constant τ in ω = ω₀ e^(−t/τ), seconds. An estimate: the golf-ball spin-down law of
  * Smits & Smith 1994 as used by Penner 2001 (American Journal of Physics 69:563), scaled to a
- * football; DESIGN §6 puts it of the order of 20–25 s.
+ * football, which puts it of the order of 20–25 s.
  */
 export const DEFAULT_SPIN_DECAY_TAU_S = 22;
 

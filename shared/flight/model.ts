@@ -1,5 +1,5 @@
 /**
- * The equations of motion of DESIGN §6, reduced to precomputed constants and one allocation-free
+ * The equations of motion of a spinning ball in wind, reduced to precomputed constants and one allocation-free
  * right-hand side:
  *
  *   dv/dt = −g ẑ − k C_D(Re, S) |u| u + k C_L(S) |u|² (ω̂ × û),   k = ρA/(2m),   u = v − w.
@@ -129,7 +129,7 @@ export function validateLaunch(input: Pick<KickInput, 'speed' | 'elevationDeg' |
 
 /**
  * Complete a model from resolved conditions and a validated launch. The spin axis is tied to the
- * launch heading: backspin about −(left of the heading), sidespin about +z (DESIGN §6 axes), so a kick
+ * launch heading: backspin about −(left of the heading), sidespin about +z (the axes of types.ts), so a kick
  * rotated in azimuth in still air is the same kick rotated.
  */
 export function buildModel(conditions: ReturnType<typeof resolveConditions>, launch: LaunchSpec): FlightModel {

@@ -1,5 +1,5 @@
 /**
- * Public types of the flight model. Axes (DESIGN §6): x forward along the kicker's aim, y to the
+ * Public types of the flight model. Axes: x forward along the kicker's aim, y to the
  * kicker's left, z up; origin at the ball on the ground. z is the height of the ball's centre above
  * its height at rest, so z = 0 is ground contact, the ball's underside is at z and its top at z + 2r.
  */
