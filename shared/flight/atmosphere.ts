@@ -13,6 +13,7 @@ const ISA_P0_PA = 101325; // ISO 2533
 const ISA_T0_K = 288.15; // ISO 2533
 const ISA_LAPSE_K_PER_M = -0.0065; // ISO 2533, troposphere
 const ISA_R_J_PER_KG_K = 287.05287; // ISO 2533 specific gas constant of dry air
+const ISA_EARTH_RADIUS_M = 6356766; // ISO 2533, for geopotential altitude
 const ISA_PRESSURE_EXPONENT = -STANDARD_GRAVITY_MS2 / (ISA_R_J_PER_KG_K * ISA_LAPSE_K_PER_M);
 
 // Sutherland's law in the ISO 2533 form μ = β T^1.5 / (T + S).
@@ -40,7 +41,7 @@ const Z_C1 = -2.376e-6;
 const Z_D = 1.83e-11;
 const Z_E = -0.765e-8;
 
-/** ISA state at a geopotential altitude (troposphere). */
+/** ISA state at an altitude (troposphere). */
 export interface IsaState {
   temperatureK: number;
   pressurePa: number;
@@ -48,12 +49,14 @@ export interface IsaState {
 }
 
 /**
- * ISO 2533 standard atmosphere at `altitudeM` (geopotential; the difference from geometric height is
- * under 1 m below 3 km). Training grounds store altitude, not pressure, so this is the usual route.
+ * ISO 2533 standard atmosphere at a geometric altitude `altitudeM` above sea level (troposphere).
+ * Training grounds store altitude, not pressure, so this is the usual route to air density. The
+ * standard's formulas are in geopotential altitude H = r₀z/(r₀ + z), r₀ = 6 356 766 m (ISO 2533).
  */
 export function isaAtmosphere(altitudeM: number): IsaState {
   requireInRange('air.altitudeM', altitudeM, LIMITS.altitudeM[0], LIMITS.altitudeM[1], 'm');
-  const temperatureK = ISA_T0_K + ISA_LAPSE_K_PER_M * altitudeM;
+  const geopotentialM = (ISA_EARTH_RADIUS_M * altitudeM) / (ISA_EARTH_RADIUS_M + altitudeM);
+  const temperatureK = ISA_T0_K + ISA_LAPSE_K_PER_M * geopotentialM;
   const pressurePa = ISA_P0_PA * Math.pow(temperatureK / ISA_T0_K, ISA_PRESSURE_EXPONENT);
   return { temperatureK, pressurePa, densityKgM3: pressurePa / (ISA_R_J_PER_KG_K * temperatureK) };
 }
@@ -106,7 +109,8 @@ export function resolveAir(air: AirSpec | undefined): AirState {
   const temperatureK =
     spec.temperatureC === undefined
       ? isa.temperatureK
-      : requireInRange('air.temperatureC', spec.temperatureC, LIMITS.temperatureC[0], LIMITS.temperatureC[1], '°C') + 273.15;
+      : requireInRange('air.temperatureC', spec.temperatureC, LIMITS.temperatureC[0], LIMITS.temperatureC[1], '°C') +
+        273.15;
   const pressurePa =
     spec.pressureHpa === undefined
       ? isa.pressurePa
@@ -117,7 +121,13 @@ export function resolveAir(air: AirSpec | undefined): AirState {
       : requireInRange('air.relativeHumidityPct', spec.relativeHumidityPct, 0, 100, '%');
   let densityKgM3: number;
   if (spec.densityKgM3 !== undefined) {
-    densityKgM3 = requireInRange('air.densityKgM3', spec.densityKgM3, LIMITS.densityKgM3[0], LIMITS.densityKgM3[1], 'kg/m³');
+    densityKgM3 = requireInRange(
+      'air.densityKgM3',
+      spec.densityKgM3,
+      LIMITS.densityKgM3[0],
+      LIMITS.densityKgM3[1],
+      'kg/m³',
+    );
   } else if (spec.temperatureC === undefined && spec.pressureHpa === undefined && humidity === undefined) {
     densityKgM3 = isa.densityKgM3;
   } else {

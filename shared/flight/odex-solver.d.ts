@@ -14,13 +14,7 @@ export type OdexDense = (component: number, x: number) => number;
  * Observer called after each accepted step (and once at the start, with `nr === 1` and no dense
  * interpolator). Returning `false` halts the integration.
  */
-export type OdexObserver = (
-  nr: number,
-  xOld: number,
-  x: number,
-  y: number[],
-  dense?: OdexDense,
-) => boolean | void;
+export type OdexObserver = (nr: number, xOld: number, x: number, y: number[], dense?: OdexDense) => boolean | void;
 
 /** What `Solver.solve` returns: final state, how it ended and its work counters. */
 export interface OdexResult {

@@ -1,0 +1,69 @@
+/**
+ * Loftline flight model: plain TypeScript shared by the browser (in a Web Worker) and the server, so an
+ * envelope or set-piece check computed in either place gives the same numbers.
+ */
+
+export {
+  airDensity,
+  isaAtmosphere,
+  moistAirDensityCipm2007,
+  resolveAir,
+  saturationVapourPressurePa,
+  sutherlandViscosityPaS,
+} from './atmosphere';
+export type { AirState, IsaState } from './atmosphere';
+export {
+  goffCarreCd,
+  goffCarreNoSpinCd,
+  goffCarreSpinCd,
+  GOFF_CARRE_RE_CENTRE,
+  GOFF_CARRE_RE_WIDTH,
+  powerLiftCl,
+  saturatingLiftCl,
+} from './aero';
+export {
+  BALL_SIZES,
+  DEFAULT_ELEVATION_DEG,
+  DEFAULT_SPIN_DECAY_TAU_S,
+  FLIGHT_TIME_CAP_S,
+  GOAL_HEIGHT_M,
+  GOAL_WIDTH_M,
+  PATH_SAMPLE_INTERVAL_S,
+  SIDESPIN_STEP_RPS,
+  SPIN_STEP_RPS,
+  STANDARD_GRAVITY_MS2,
+  TECHNIQUES,
+  WALL_DISTANCE_M,
+} from './constants';
+export type { BallSize } from './constants';
+export { hitProbability, reachEnvelope, reliableReachM, RELIABLE_REACH_PROBABILITY } from './envelope';
+export type { EnvelopeCloud, EnvelopeOptions, EnvelopeTarget, LandingEllipse, ReachEnvelope } from './envelope';
+export type { DistributionSummary } from './stats';
+export { DEFAULT_SOLVER_SETTINGS, TIGHT_SOLVER_SETTINGS } from './integrate';
+export type { SolverSettings } from './integrate';
+export { INVERSE_MAX_SPEED_MS, INVERSE_MIN_SPEED_MS, solveLaunchSpeed } from './inverse';
+export type { LaunchSpeedQuery } from './inverse';
+export { fitProfile } from './profile';
+export { DEFAULT_PRIORS } from './profile-types';
+export type { KickProfile, LoggedKick, ProfileObservationCounts, ProfilePrior } from './profile-types';
+export { DEFAULT_WALL_HEIGHT_M, setPieceCheck } from './set-piece';
+export type { SetPieceInput, SetPieceResult, SetPieceShares } from './set-piece';
+export { simulateKick } from './simulate';
+export type {
+  AeroSpec,
+  AirSpec,
+  BackspinStep,
+  BallSpec,
+  DragModel,
+  Flight,
+  FlightConditions,
+  KickInput,
+  KickOutcome,
+  LiftModel,
+  PathPoint,
+  PlaneCrossing,
+  SidespinStep,
+  Technique,
+  WindSpec,
+} from './types';
+export { LIMITS } from './validate';

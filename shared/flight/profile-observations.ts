@@ -1,0 +1,187 @@
+/**
+ * Turning coarse Pitchside logs into censored observations of launch speed and aim, through the
+ * forward model and its inverse. Convention for outcomes (how Pitchside asks coaches to log):
+ * `short`/`long` describe carry and take precedence; `left`/`right` mean the carry was within the target
+ * radius band but the ball missed sideways; `on_target` means both were within the radius; `over` means
+ * the ball was still in the air at the target line (carry > target distance); `blocked` says nothing.
+ */
+
+import { DEFAULT_ELEVATION_DEG, SIDESPIN_STEP_RPS, SPIN_STEP_RPS, TECHNIQUES } from './constants';
+import { DEFAULT_SOLVER_SETTINGS, integrateFlight } from './integrate';
+import { INVERSE_MAX_SPEED_MS, INVERSE_MIN_SPEED_MS, solveLaunchSpeed } from './inverse';
+import { buildModel, resolveConditions, validateLaunch } from './model';
+import type { LoggedKick } from './profile-types';
+import type { BackspinStep, FlightConditions, KickOutcome, SidespinStep, Technique } from './types';
+import { requireInHalfOpen, requireInRange, requireInteger, requireOneOf } from './validate';
+
+const OUTCOMES: readonly KickOutcome[] = ['on_target', 'short', 'long', 'left', 'right', 'blocked', 'over'];
+const DEG = Math.PI / 180;
+
+/** A censored observation: lo = hi is a point; infinite ends are one-sided bounds. */
+export interface Censored {
+  lo: number;
+  hi: number;
+}
+
+/** One repetition after validation, with the launch the model will use for it. */
+export interface PreparedKick {
+  index: number;
+  technique: Technique;
+  outcome: KickOutcome;
+  targetDistanceM: number;
+  targetRadiusM: number;
+  elevationDeg: number;
+  backspinRps: number;
+  sidespinRps: number;
+  lateralM: number | null;
+  carryM: number | null;
+  measuredSpeedMs: number | null;
+  conditions: FlightConditions;
+}
+
+function optional(
+  field: string,
+  value: number | null | undefined,
+  check: (f: string, v: number) => number,
+): number | null {
+  return value === null || value === undefined ? null : check(field, value);
+}
+
+/** Validate one logged kick (RangeError naming `kicks[i].field`) and resolve its launch angle and spin. */
+export function prepareKick(kick: LoggedKick, index: number): PreparedKick {
+  const at = (f: string): string => `kicks[${index}].${f}`;
+  if (kick === null || typeof kick !== 'object') throw new RangeError(`kicks[${index}] must be an object`);
+  const technique = requireOneOf(at('technique'), kick.technique, TECHNIQUES);
+  const outcome = requireOneOf(at('outcome'), kick.outcome, OUTCOMES);
+  const targetDistanceM = requireInHalfOpen(at('targetDistanceM'), kick.targetDistanceM, 0, 150, 'm');
+  const targetRadiusM = requireInHalfOpen(at('targetRadiusM'), kick.targetRadiusM, 0, 30, 'm');
+  const backStep = requireInteger(at('backspinStep'), kick.backspinStep, -3, 3) as BackspinStep;
+  const sideStep = requireInteger(at('sidespinStep'), kick.sidespinStep, -2, 2) as SidespinStep;
+  const carryM = optional(at('carryM'), kick.carryM, (f, v) => requireInHalfOpen(f, v, 0, 150, 'm'));
+  const lateralM = optional(at('lateralM'), kick.lateralM, (f, v) => requireInRange(f, v, -60, 60, 'm'));
+  const measuredSpeedMs = optional(at('measuredSpeedMs'), kick.measuredSpeedMs, (f, v) =>
+    requireInHalfOpen(f, v, 0, 60, 'm/s'),
+  );
+  const angle = optional(at('launchAngleDeg'), kick.launchAngleDeg, (f, v) => requireInHalfOpen(f, v, 0, 90, '°'));
+  const spin = optional(at('measuredSpinRps'), kick.measuredSpinRps, (f, v) => requireInRange(f, v, 0, 30, 'rev/s'));
+  let backspinRps = SPIN_STEP_RPS[backStep];
+  let sidespinRps = SIDESPIN_STEP_RPS[sideStep];
+  if (spin !== null) {
+    // A device measures the total rate; keep the logged direction (backspin if none was logged).
+    const logged = Math.hypot(backspinRps, sidespinRps);
+    if (logged > 0) {
+      backspinRps *= spin / logged;
+      sidespinRps *= spin / logged;
+    } else {
+      backspinRps = spin;
+    }
+  }
+  return {
+    index,
+    technique,
+    outcome,
+    targetDistanceM,
+    targetRadiusM,
+    elevationDeg: angle ?? DEFAULT_ELEVATION_DEG[technique],
+    backspinRps,
+    sidespinRps,
+    lateralM,
+    carryM,
+    measuredSpeedMs,
+    conditions: kick.conditions ?? {},
+  };
+}
+
+/** Memoised carry → speed for repeated targets (a drill logs the same bounds again and again). */
+export class SpeedBounds {
+  private readonly cache = new Map<string, number>();
+
+  /** Speed giving `carryM` for this kick's launch, clamped to the inverse's range when out of reach. */
+  speedFor(kick: PreparedKick, carryM: number): number {
+    if (carryM <= 0) return Number.NEGATIVE_INFINITY;
+    const key = JSON.stringify([carryM, kick.elevationDeg, kick.backspinRps, kick.sidespinRps, kick.conditions]);
+    const hit = this.cache.get(key);
+    if (hit !== undefined) return hit;
+    const query = {
+      ...kick.conditions,
+      carryM,
+      elevationDeg: kick.elevationDeg,
+      backspinRps: kick.backspinRps,
+      sidespinRps: kick.sidespinRps,
+    };
+    let speed = solveLaunchSpeed(query);
+    if (speed === null) {
+      const farthest = referenceFlight(kick, INVERSE_MAX_SPEED_MS).carryM;
+      speed = carryM > farthest ? INVERSE_MAX_SPEED_MS : INVERSE_MIN_SPEED_MS;
+    }
+    this.cache.set(key, speed);
+    return speed;
+  }
+}
+
+/** The kick's own flight at `speedMs` straight along the aim (azimuth 0). */
+export function referenceFlight(
+  kick: PreparedKick,
+  speedMs: number,
+): { carryM: number; landingX: number; landingY: number } {
+  const model = buildModel(
+    resolveConditions(kick.conditions),
+    validateLaunch({
+      speed: speedMs,
+      elevationDeg: kick.elevationDeg,
+      backspinRps: kick.backspinRps,
+      sidespinRps: kick.sidespinRps,
+    }),
+  );
+  const f = integrateFlight(model, { settings: DEFAULT_SOLVER_SETTINGS });
+  return { carryM: f.carryM, landingX: f.landing.x, landingY: f.landing.y };
+}
+
+/** The speed observation a repetition gives, or null when it says nothing about speed. */
+export function speedObservation(kick: PreparedKick, bounds: SpeedBounds): Censored | null {
+  if (kick.measuredSpeedMs !== null) return { lo: kick.measuredSpeedMs, hi: kick.measuredSpeedMs };
+  if (kick.carryM !== null) {
+    const v = bounds.speedFor(kick, kick.carryM);
+    return { lo: v, hi: v };
+  }
+  const d = kick.targetDistanceM;
+  const r = kick.targetRadiusM;
+  switch (kick.outcome) {
+    case 'on_target':
+    case 'left':
+    case 'right':
+      return { lo: bounds.speedFor(kick, d - r), hi: bounds.speedFor(kick, d + r) };
+    case 'short':
+      return d - r > 0 ? { lo: Number.NEGATIVE_INFINITY, hi: bounds.speedFor(kick, d - r) } : null;
+    case 'long':
+      return { lo: bounds.speedFor(kick, d + r), hi: Number.POSITIVE_INFINITY };
+    case 'over':
+      return { lo: bounds.speedFor(kick, d), hi: Number.POSITIVE_INFINITY };
+    case 'blocked':
+      return null;
+  }
+}
+
+/**
+ * The aim (launch azimuth, degrees) observation a repetition gives, or null. Lateral offsets map to
+ * azimuth through the kick's own reference flight: in still air a kick turned by an azimuth a lands at
+ * its reference landing point turned by a, so lateral = ρ sin(a + φ₀). With wind this is an approximation.
+ */
+export function aimObservation(kick: PreparedKick, speedMs: number): Censored | null {
+  const r = kick.targetRadiusM;
+  let lateral: Censored | null = null;
+  if (kick.lateralM !== null) lateral = { lo: kick.lateralM, hi: kick.lateralM };
+  else if (kick.outcome === 'on_target') lateral = { lo: -r, hi: r };
+  else if (kick.outcome === 'left') lateral = { lo: r, hi: Number.POSITIVE_INFINITY };
+  else if (kick.outcome === 'right') lateral = { lo: Number.NEGATIVE_INFINITY, hi: -r };
+  if (lateral === null) return null;
+  const ref = referenceFlight(kick, speedMs);
+  const rho = Math.hypot(ref.landingX, ref.landingY);
+  if (!(rho > 0.5)) return null;
+  const phi0 = Math.atan2(ref.landingY, ref.landingX);
+  const toAzimuth = (lat: number): number => {
+    if (lat === Number.POSITIVE_INFINITY || lat === Number.NEGATIVE_INFINITY) return lat;
+    return (Math.asin(Math.max(-1, Math.min(1, lat / rho))) - phi0) / DEG;
+  };
+  return { lo: toAzimuth(lateral.lo), hi: toAzimuth(lateral.hi) };
+}

@@ -1,0 +1,96 @@
+/**
+ * Types of the profile fit: what a logged repetition carries, the prior a fit shrinks toward, and the
+ * fitted profile. The profile is a plain JSON object because it crosses the worker boundary and is
+ * cached on the server.
+ */
+
+import type { BackspinStep, FlightConditions, KickOutcome, SidespinStep, Technique } from './types';
+
+/** One logged repetition, as stored in `kicks` (optional device fields may be null). */
+export interface LoggedKick {
+  technique: Technique;
+  outcome: KickOutcome;
+  targetDistanceM: number;
+  targetRadiusM: number;
+  backspinStep: BackspinStep;
+  sidespinStep: SidespinStep;
+  /** Landed carry, m, when someone paced or measured it. */
+  carryM?: number | null;
+  /** Landed lateral offset from the aim line, m, + = left. */
+  lateralM?: number | null;
+  measuredSpeedMs?: number | null;
+  launchAngleDeg?: number | null;
+  /** Measured total spin, rev/s. */
+  measuredSpinRps?: number | null;
+  /** The session's conditions; `{}` or absent = defaults (still air, ISA sea level, size 5). */
+  conditions?: FlightConditions;
+}
+
+/** What the fit shrinks toward when there are few repetitions (a squad/technique average). */
+export interface ProfilePrior {
+  meanSpeedMs: number;
+  sdSpeedMs: number;
+  meanAzimuthDeg: number;
+  sdAzimuthDeg: number;
+  /** How many repetitions the prior is worth. */
+  weightReps: number;
+}
+
+/** How each repetition entered the fit. */
+export interface ProfileObservationCounts {
+  /** Speeds known exactly (measured speed, or a logged carry through the inverse). */
+  speedPoints: number;
+  /** Speeds known to lie in an interval (on_target, left, right). */
+  speedIntervals: number;
+  /** Speeds with a one-sided bound (short, long, over). */
+  speedBounds: number;
+  aimPoints: number;
+  aimIntervals: number;
+  aimBounds: number;
+}
+
+/** A player's fitted launch distribution for one technique. JSON-serialisable. */
+export interface KickProfile {
+  technique: Technique;
+  /** Repetitions that informed the fit. */
+  repetitions: number;
+  /** Repetitions that carried no usable information (e.g. blocked). */
+  ignoredRepetitions: number;
+  meanSpeedMs: number;
+  sdSpeedMs: number;
+  /** Standard error of `meanSpeedMs` (from the curvature of the log-posterior). */
+  meanSpeedSeMs: number;
+  /** Standard error of `sdSpeedMs`. */
+  sdSpeedSeMs: number;
+  /** Mean launch azimuth relative to the aim, degrees, + = left. */
+  meanAzimuthDeg: number;
+  sdAzimuthDeg: number;
+  meanAzimuthSeDeg: number;
+  /** Mean launch elevation the fit assumed (measured angles, else the technique default), degrees. */
+  elevationDeg: number;
+  /**
+   * Spread of the launch elevations the fit saw, degrees. Each repetition is inverted with its own
+   * launch, so the speed and aim spreads are conditional on it; envelopes add this spread back. When
+   * every repetition used the same assumed angle it is 0, and that variation lives in the speed spread.
+   */
+  sdElevationDeg: number;
+  backspinRps: number;
+  sidespinRps: number;
+  /** Spread of the per-repetition backspin rates (logged steps or measured), rev/s; see sdElevationDeg. */
+  sdBackspinRps: number;
+  sdSidespinRps: number;
+  observations: ProfileObservationCounts;
+  /** The prior the fit used. */
+  prior: ProfilePrior;
+}
+
+/**
+ * Default priors by technique (common practice, no source): 20–30 m/s is typical for
+ * free kicks and long passes; chips are struck softer. Azimuth spread 3°, worth three repetitions.
+ */
+export const DEFAULT_PRIORS: Readonly<Record<Technique, ProfilePrior>> = {
+  driven: { meanSpeedMs: 25, sdSpeedMs: 2.5, meanAzimuthDeg: 0, sdAzimuthDeg: 3, weightReps: 3 },
+  lofted: { meanSpeedMs: 23, sdSpeedMs: 2.5, meanAzimuthDeg: 0, sdAzimuthDeg: 3, weightReps: 3 },
+  chipped: { meanSpeedMs: 17, sdSpeedMs: 2, meanAzimuthDeg: 0, sdAzimuthDeg: 3, weightReps: 3 },
+  curled: { meanSpeedMs: 23, sdSpeedMs: 2.5, meanAzimuthDeg: 0, sdAzimuthDeg: 3, weightReps: 3 },
+};
