@@ -9,6 +9,7 @@ import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { pinoHttp } from 'pino-http';
 import type { Logger } from 'pino';
+import { ProfileCache } from './analysis/profile-cache';
 import { AuthService } from './auth/auth.service';
 import { authRouter } from './auth/auth.router';
 import { createAuthMiddleware } from './auth/passport';
@@ -26,13 +27,15 @@ export interface AppDeps {
   db: Db;
   config: AppConfig;
   logger: Logger;
+  /** Launch-profile cache; created here when not given (the server passes one it starts). */
+  profiles?: ProfileCache;
 }
 
 /** JSON bodies above this are refused (a 500-kick sync batch is far below it). */
 export const JSON_BODY_LIMIT = '1mb';
 
 /** Creates the Express application. */
-export function createApp({ db, config, logger }: AppDeps): Express {
+export function createApp({ db, config, logger, profiles = new ProfileCache(db) }: AppDeps): Express {
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
@@ -61,8 +64,8 @@ export function createApp({ db, config, logger }: AppDeps): Express {
   const requireAuth = createAuthMiddleware(db, config);
   api.use(requireAuth, attachScope(db));
   api.use('/me', meRouter(db));
-  api.use('/squads', squadsRouter(db));
-  api.use('/players', playersRouter(db));
+  api.use('/squads', squadsRouter(db, profiles));
+  api.use('/players', playersRouter(db, profiles));
   api.use('/sync', syncRouter(db));
   api.use(() => {
     throw new NotFound('No such API route');

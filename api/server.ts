@@ -5,6 +5,8 @@
 import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { isDatabaseEmpty, seedDemo } from '../seed/scenario';
+import { backfillStillAirCarry } from './analysis/still-air';
+import { ProfileCache } from './analysis/profile-cache';
 import { createApp } from './app';
 import type { AppConfig } from './config';
 import { openDatabase, type Db } from './db/client';
@@ -33,6 +35,10 @@ export async function startServer(config: AppConfig, options: StartOptions = {})
     const summary = seedDemo(db);
     logger.info({ summary }, 'loaded the demo scenario into the empty database');
   }
+  const normalised = backfillStillAirCarry(db);
+  if (normalised) logger.info({ kicks: normalised }, 'normalised logged carries to still air');
+  const profiles = new ProfileCache(db);
+  profiles.start();
   let smtp: FakeSmtp | null = null;
   if (config.env !== 'production') {
     try {
@@ -42,7 +48,7 @@ export async function startServer(config: AppConfig, options: StartOptions = {})
       logger.warn({ err }, 'fake SMTP server could not start; mail will queue until it can be sent');
     }
   }
-  const app = createApp({ db, config, logger });
+  const app = createApp({ db, config, logger, profiles });
   const server: Server = await new Promise((resolveServer, reject) => {
     const s = app.listen(config.port, () => resolveServer(s));
     s.once('error', reject);
@@ -54,6 +60,7 @@ export async function startServer(config: AppConfig, options: StartOptions = {})
     db,
     smtp,
     close: async () => {
+      profiles.stop();
       await new Promise<void>((done) => server.close(() => done()));
       await smtp?.close();
       db.$client.close();

@@ -225,6 +225,9 @@ export const kicks = sqliteTable(
     targetRadiusM: real('target_radius_m').notNull(),
     outcome: text('outcome', { enum: ['on_target', 'short', 'long', 'left', 'right', 'blocked', 'over'] }).notNull(),
     carryM: real('carry_m'),
+    /** `carry_m` normalised through the flight model to still air at ISA sea level, 15 °C (server-computed). */
+    stillAirCarryM: real('still_air_carry_m'),
+    /** Landing offset from the aim line, metres, + = the kicker's left (DESIGN §6 y axis). */
     lateralM: real('lateral_m'),
     measuredSpeedMs: real('measured_speed_ms'),
     launchAngleDeg: real('launch_angle_deg'),
@@ -242,7 +245,30 @@ export const kicks = sqliteTable(
     index('kicks_player_recorded_idx').on(t.playerId, t.recordedAt),
     index('kicks_session_idx').on(t.sessionId),
     index('kicks_club_seq_idx').on(t.clubId, t.changeSeq),
+    index('kicks_player_technique_seq_idx').on(t.playerId, t.technique, t.changeSeq),
   ],
+);
+
+/**
+ * Cached launch profile per player and technique (fitProfile + a standard-conditions envelope),
+ * recomputed when the player's kicks of that technique change (`kicks_seq` falls behind).
+ */
+export const playerProfiles = sqliteTable(
+  'player_profiles',
+  {
+    playerId: text('player_id').notNull().references(() => players.id),
+    technique: text('technique', { enum: ['driven', 'lofted', 'chipped', 'curled'] }).notNull(),
+    /** Highest kick change_seq the cached profile saw. */
+    kicksSeq: integer('kicks_seq').notNull(),
+    repetitions: integer('repetitions').notNull(),
+    profileJson: text('profile_json'),
+    /** Landing cloud at standard conditions (JSON `{ xM, yM }`), for hit probabilities and calibration. */
+    cloudJson: text('cloud_json'),
+    reliableReachM: real('reliable_reach_m'),
+    reachRadiusM: real('reach_radius_m').notNull(),
+    computedAt: text('computed_at').notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.playerId, t.technique] })],
 );
 
 /** Sync idempotency: each mutation id is applied at most once; replays are acknowledged. */

@@ -1,29 +1,45 @@
-/** `/api/players`: the players the caller may see. */
+/** `/api/players`: the players the caller may see, and each one's progress, kicks and profile. */
 import { Router } from 'express';
 import * as z from 'zod';
+import type { ProfileCache } from '../analysis/profile-cache';
 import type { Db } from '../db/client';
 import { parseOrThrow } from '../errors';
 import { scopeOf } from '../scope/scope.middleware';
-import { listPlayersQuerySchema, progressQuerySchema } from './players.schemas';
+import { playerKicks } from './kicks.service';
+import { kicksQuerySchema, listPlayersQuerySchema, profileQuerySchema, progressQuerySchema } from './players.schemas';
 import { getPlayer, listPlayers } from './players.service';
 import { playerProgress } from './progress.service';
 
+const idSchema = z.uuid({ error: 'id must be a UUID' });
+
 /** Builds the players router (mounted behind authentication and scope). */
-export function playersRouter(db: Db): Router {
+export function playersRouter(db: Db, profiles: ProfileCache): Router {
   const router = Router();
   router.get('/', (req, res) => {
     const { squadId } = parseOrThrow(listPlayersQuerySchema, req.query, 'Query');
     res.json({ players: listPlayers(db, scopeOf(req), squadId) });
   });
   router.get('/:id', (req, res) => {
-    const id = parseOrThrow(z.uuid({ error: 'id must be a UUID' }), req.params.id, 'Player id');
+    const id = parseOrThrow(idSchema, req.params.id, 'Player id');
     res.json({ player: getPlayer(db, scopeOf(req), id) });
   });
   router.get('/:id/progress', (req, res) => {
-    const id = parseOrThrow(z.uuid({ error: 'id must be a UUID' }), req.params.id, 'Player id');
+    const id = parseOrThrow(idSchema, req.params.id, 'Player id');
     const filter = parseOrThrow(progressQuerySchema, req.query, 'Query');
     const player = getPlayer(db, scopeOf(req), id);
-    res.json({ playerId: player.id, weeks: playerProgress(db, player.id, filter) });
+    res.json({ playerId: player.id, carryBasis: filter.carry, weeks: playerProgress(db, player.id, filter) });
+  });
+  router.get('/:id/kicks', (req, res) => {
+    const id = parseOrThrow(idSchema, req.params.id, 'Player id');
+    const q = parseOrThrow(kicksQuerySchema, req.query, 'Query');
+    const player = getPlayer(db, scopeOf(req), id);
+    res.json({ playerId: player.id, ...playerKicks(db, player.id, q.technique, q.limit) });
+  });
+  router.get('/:id/profile', (req, res) => {
+    const id = parseOrThrow(idSchema, req.params.id, 'Player id');
+    const { technique } = parseOrThrow(profileQuerySchema, req.query, 'Query');
+    const player = getPlayer(db, scopeOf(req), id);
+    res.json(profiles.get(player.id, technique));
   });
   return router;
 }

@@ -3,35 +3,18 @@
  * repetitions, hit rate, outcome shares and the median and spread of logged carry. Only
  * aggregates leave the database; the kicks_player_recorded index serves the range scan.
  */
+import type { CarryBasis, ProgressWeek } from '../../shared/schemas/analysis';
 import type { Outcome, Technique } from '../../shared/schemas/sync';
 import { OUTCOMES } from '../../shared/schemas/sync';
 import type { Db } from '../db/client';
-
-/** One week × technique row of a player's progress. */
-export interface ProgressWeek {
-  /** Monday of the ISO week, YYYY-MM-DD. */
-  weekStart: string;
-  technique: Technique;
-  reps: number;
-  /** Share of repetitions logged `on_target` (0..1). */
-  hitRate: number;
-  /** Share of each outcome (0..1), every outcome present. */
-  outcomeShare: Record<Outcome, number>;
-  /** How many repetitions had a logged carry. */
-  carryCount: number;
-  medianCarryM: number | null;
-  /** Interquartile range of logged carry (nearest-rank quartiles), metres. */
-  carryP25M: number | null;
-  carryP75M: number | null;
-  /** Population standard deviation of logged carry, metres. */
-  carrySdM: number | null;
-}
 
 /** Filters for a progress query. */
 export interface ProgressFilter {
   from?: string;
   to?: string;
   technique?: Technique;
+  /** Logged carry (default) or carry normalised to still air. */
+  carry?: CarryBasis;
 }
 
 interface AggregateRow {
@@ -66,11 +49,12 @@ export function playerProgress(db: Db, playerId: string, filter: ProgressFilter)
     toExclusive: filter.to ? nextDay(filter.to) : null,
     technique: filter.technique ?? null,
   };
+  const carry = filter.carry === 'still-air' ? 'k.still_air_carry_m' : 'k.carry_m';
   const outcomeCounts = OUTCOMES.map((o) => `SUM(k.outcome = '${o}') AS n_${o}`).join(', ');
   const aggregates = db.$client
     .prepare(
       `SELECT ${WEEK} AS week, k.technique AS technique, COUNT(*) AS reps, ${outcomeCounts},
-              COUNT(k.carry_m) AS carry_n, AVG(k.carry_m) AS carry_mean, AVG(k.carry_m * k.carry_m) AS carry_sq
+              COUNT(${carry}) AS carry_n, AVG(${carry}) AS carry_mean, AVG(${carry} * ${carry}) AS carry_sq
          FROM kicks k WHERE ${where.join(' AND ')}
         GROUP BY week, technique ORDER BY week, technique`,
     )
@@ -79,10 +63,10 @@ export function playerProgress(db: Db, playerId: string, filter: ProgressFilter)
   const quantiles = db.$client
     .prepare(
       `WITH ranked AS (
-         SELECT ${WEEK} AS week, k.technique AS technique, k.carry_m AS carry,
-                ROW_NUMBER() OVER (PARTITION BY ${WEEK}, k.technique ORDER BY k.carry_m) AS i,
+         SELECT ${WEEK} AS week, k.technique AS technique, ${carry} AS carry,
+                ROW_NUMBER() OVER (PARTITION BY ${WEEK}, k.technique ORDER BY ${carry}) AS i,
                 COUNT(*) OVER (PARTITION BY ${WEEK}, k.technique) AS n
-           FROM kicks k WHERE ${where.join(' AND ')} AND k.carry_m IS NOT NULL)
+           FROM kicks k WHERE ${where.join(' AND ')} AND ${carry} IS NOT NULL)
        SELECT week, technique,
               MAX(CASE WHEN i = MAX(1, CAST(ceil(0.25 * n) AS INTEGER)) THEN carry END) AS p25,
               MAX(CASE WHEN n % 2 = 1 AND i = (n + 1) / 2 THEN carry END) AS p50_odd,

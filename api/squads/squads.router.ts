@@ -2,7 +2,10 @@
 import { Router } from 'express';
 import * as z from 'zod';
 import { requireRole } from '../auth/passport';
+import type { ProfileCache } from '../analysis/profile-cache';
 import type { Db } from '../db/client';
+import { profileQuerySchema } from '../players/players.schemas';
+import { squadProfiles } from './profiles.service';
 import { parseOrThrow } from '../errors';
 import { scopeOf } from '../scope/scope.middleware';
 import { listSquads } from './squads.service';
@@ -10,18 +13,24 @@ import { squadWeek } from './week.service';
 
 const weekQuerySchema = z.object({
   start: z.iso.date({ error: 'start must be a date (YYYY-MM-DD)' }),
+  carry: z.enum(['logged', 'still-air'], { error: 'carry must be logged or still-air' }).default('logged'),
 });
 
 /** Builds the squads router (mounted behind authentication and scope). */
-export function squadsRouter(db: Db): Router {
+export function squadsRouter(db: Db, profiles: ProfileCache): Router {
   const router = Router();
   router.get('/', (req, res) => {
     res.json({ squads: listSquads(db, scopeOf(req)) });
   });
   router.get('/:id/week', requireRole('admin', 'head_coach', 'assistant_coach'), (req, res) => {
     const id = parseOrThrow(z.uuid({ error: 'id must be a UUID' }), req.params['id'], 'Squad id');
-    const { start } = parseOrThrow(weekQuerySchema, req.query, 'Query');
-    res.json(squadWeek(db, scopeOf(req), id, start));
+    const { start, carry } = parseOrThrow(weekQuerySchema, req.query, 'Query');
+    res.json(squadWeek(db, profiles, scopeOf(req), id, start, carry));
+  });
+  router.get('/:id/profiles', requireRole('admin', 'head_coach', 'assistant_coach'), (req, res) => {
+    const id = parseOrThrow(z.uuid({ error: 'id must be a UUID' }), req.params['id'], 'Squad id');
+    const { technique } = parseOrThrow(profileQuerySchema, req.query, 'Query');
+    res.json(squadProfiles(db, profiles, scopeOf(req), id, technique));
   });
   return router;
 }

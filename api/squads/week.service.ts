@@ -4,7 +4,10 @@
  * squad in the two weeks (training_sessions_squad_started_idx, then kicks_session_idx).
  */
 import { and, eq, isNull } from 'drizzle-orm';
+import { hitProbability } from '../../shared/flight/index';
+import type { CalibrationPoint, CarryBasis, SquadWeek, SquadWeekPlayer, ZoneHitRate } from '../../shared/schemas/analysis';
 import type { Technique } from '../../shared/schemas/sync';
+import type { ProfileCache } from '../analysis/profile-cache';
 import type { Db } from '../db/client';
 import { clubs, squads } from '../db/schema';
 import { NotFound } from '../errors';
@@ -12,33 +15,8 @@ import type { Scope } from '../scope/scope';
 
 /** Fewest repetitions of a technique in a week before it can be called a player's best. */
 export const MIN_REPS_FOR_BEST = 5;
-
-/** One player's line in the Squad week table. */
-export interface SquadWeekPlayer {
-  playerId: string;
-  displayName: string;
-  shirtNumber: number | null;
-  reps: number;
-  hitRate: number | null;
-  previousReps: number;
-  previousHitRate: number | null;
-  /** This week's hit rate minus last week's (null when either week has no repetitions). */
-  hitRateChange: number | null;
-  /** Technique with the best hit rate this week among those with ≥ MIN_REPS_FOR_BEST repetitions. */
-  bestTechnique: Technique | null;
-  byTechnique: { technique: Technique; reps: number; hitRate: number }[];
-  /** Sessions this week in which the player passed the club's repetition limit. */
-  loadFlags: { sessionId: string; startedAt: string; reps: number; limit: number }[];
-}
-
-/** The Squad week answer. */
-export interface SquadWeek {
-  squadId: string;
-  weekStart: string;
-  previousWeekStart: string;
-  repLimitPerSession: number;
-  players: SquadWeekPlayer[];
-}
+/** Width of the target-distance bands of the zone hit-rate chart, metres. */
+export const ZONE_BAND_M = 5;
 
 /** Monday (UTC) of the ISO week containing `date` (YYYY-MM-DD). */
 export function isoWeekStart(date: string): string {
@@ -64,7 +42,7 @@ interface TechRow {
 }
 
 /** The week of one squad the caller may read (404 otherwise). */
-export function squadWeek(db: Db, scope: Scope, squadId: string, start: string): SquadWeek {
+export function squadWeek(db: Db, profiles: ProfileCache, scope: Scope, squadId: string, start: string, carryBasis: CarryBasis = 'logged'): SquadWeek {
   if (!scope.canReadSquad(squadId)) throw new NotFound('No such squad among yours');
   const squad = db.select().from(squads).where(and(eq(squads.id, squadId), eq(squads.clubId, scope.user.clubId), isNull(squads.deletedAt))).get();
   if (!squad) throw new NotFound('No such squad among yours');
@@ -99,6 +77,33 @@ export function squadWeek(db: Db, scope: Scope, squadId: string, start: string):
     )
     .all(params) as { player_id: string; session_id: string; started_at: string; reps: number }[];
 
+  const carry = carryBasis === 'still-air' ? 'k.still_air_carry_m' : 'k.carry_m';
+  const thisWeek = `FROM training_sessions s JOIN kicks k ON k.session_id = s.id
+        WHERE s.squad_id = @squadId AND s.deleted_at IS NULL AND s.started_at >= @weekStart AND s.started_at < @weekEnd
+          AND k.deleted_at IS NULL AND k.recorded_at >= @weekStart AND k.recorded_at < @weekEnd`;
+  const medians = sqlite
+    .prepare(
+      `WITH ranked AS (SELECT k.player_id, k.technique, ${carry} AS carry,
+              ROW_NUMBER() OVER (PARTITION BY k.player_id, k.technique ORDER BY ${carry}) AS i,
+              COUNT(*) OVER (PARTITION BY k.player_id, k.technique) AS n
+         ${thisWeek} AND ${carry} IS NOT NULL)
+       SELECT player_id, technique, AVG(carry) AS median FROM ranked
+        WHERE i = (n + 1) / 2 OR (n % 2 = 0 AND i = n / 2 + 1) GROUP BY player_id, technique`,
+    )
+    .all(params) as { player_id: string; technique: Technique; median: number }[];
+  const targets = sqlite
+    .prepare(
+      `SELECT k.player_id, k.technique, k.target_distance_m AS d, k.target_radius_m AS r, COUNT(*) AS n, SUM(k.outcome = 'on_target') AS hits
+         ${thisWeek} GROUP BY k.player_id, k.technique, k.target_distance_m, k.target_radius_m`,
+    )
+    .all(params) as { player_id: string; technique: Technique; d: number; r: number; n: number; hits: number }[];
+  const zones = sqlite
+    .prepare(
+      `SELECT k.technique, CAST(k.target_distance_m / ${ZONE_BAND_M} AS INTEGER) AS band, COUNT(*) AS reps, AVG(k.outcome = 'on_target') AS hit_rate
+         ${thisWeek} GROUP BY k.technique, band ORDER BY k.technique, band`,
+    )
+    .all(params) as { technique: Technique; band: number; reps: number; hit_rate: number }[];
+
   const players = roster.map((p): SquadWeekPlayer => {
     const rows = techRows.filter((r) => r.player_id === p.id);
     const sum = (f: (r: TechRow) => number) => rows.reduce((a, r) => a + f(r), 0);
@@ -106,7 +111,18 @@ export function squadWeek(db: Db, scope: Scope, squadId: string, start: string):
     const previousReps = sum((r) => r.prev_reps);
     const hitRate = reps ? sum((r) => r.this_hits) / reps : null;
     const previousHitRate = previousReps ? sum((r) => r.prev_hits) / previousReps : null;
-    const byTechnique = rows.filter((r) => r.this_reps > 0).map((r) => ({ technique: r.technique, reps: r.this_reps, hitRate: r.this_hits / r.this_reps }));
+    const byTechnique = rows
+      .filter((r) => r.this_reps > 0)
+      .map((r) => ({
+        technique: r.technique,
+        reps: r.this_reps,
+        hitRate: r.this_hits / r.this_reps,
+        medianCarryM: medians.find((m) => m.player_id === p.id && m.technique === r.technique)?.median ?? null,
+      }));
+    const reach = rows.map((r) => {
+      const entry = profiles.peek(p.id, r.technique);
+      return { technique: r.technique, reliableReachM: entry.reliableReachM, reachRadiusM: entry.reachRadiusM, repetitions: entry.repetitions, pending: entry.pending };
+    });
     const eligible = byTechnique.filter((r) => r.reps >= MIN_REPS_FOR_BEST).sort((a, b) => b.hitRate - a.hitRate || b.reps - a.reps);
     return {
       playerId: p.id,
@@ -119,8 +135,40 @@ export function squadWeek(db: Db, scope: Scope, squadId: string, start: string):
       hitRateChange: hitRate !== null && previousHitRate !== null ? hitRate - previousHitRate : null,
       bestTechnique: eligible[0]?.technique ?? null,
       byTechnique,
+      reach,
+      calibration: calibrationOf(profiles, p.id, targets.filter((t) => t.player_id === p.id)),
       loadFlags: loadRows.filter((r) => r.player_id === p.id).map((r) => ({ sessionId: r.session_id, startedAt: r.started_at, reps: r.reps, limit })),
     };
   });
-  return { squadId, weekStart, previousWeekStart: prevStart, repLimitPerSession: limit, players };
+  const zoneRows: ZoneHitRate[] = zones.map((z) => ({
+    technique: z.technique,
+    bandStartM: z.band * ZONE_BAND_M,
+    bandEndM: (z.band + 1) * ZONE_BAND_M,
+    reps: z.reps,
+    hitRate: z.hit_rate,
+  }));
+  return { squadId, squadName: squad.name, weekStart, previousWeekStart: prevStart, carryBasis, repLimitPerSession: limit, players, zones: zoneRows };
+}
+
+/**
+ * Predicted hit rate (mean over the week's repetitions of the envelope's hit probability for
+ * each repetition's target, at standard conditions) against the observed share on target.
+ */
+function calibrationOf(
+  profiles: ProfileCache,
+  playerId: string,
+  targets: { technique: Technique; d: number; r: number; n: number; hits: number }[],
+): CalibrationPoint[] {
+  const byTechnique = new Map<Technique, typeof targets>();
+  for (const t of targets) byTechnique.set(t.technique, [...(byTechnique.get(t.technique) ?? []), t]);
+  const points: CalibrationPoint[] = [];
+  for (const [technique, list] of byTechnique) {
+    const cached = profiles.cloud(playerId, technique);
+    if (!cached || cached.cloud.xM.length === 0) continue;
+    const reps = list.reduce((a, t) => a + t.n, 0);
+    const predicted = list.reduce((a, t) => a + t.n * hitProbability(cached, t.d, t.r), 0) / reps;
+    const observed = list.reduce((a, t) => a + t.hits, 0) / reps;
+    points.push({ technique, reps, predictedHitRate: predicted, observedHitRate: observed });
+  }
+  return points;
 }

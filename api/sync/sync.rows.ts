@@ -69,6 +69,7 @@ export function kickToSync(r: KickRow): SyncRow {
     targetRadiusM: r.targetRadiusM,
     outcome: r.outcome,
     carryM: r.carryM,
+    stillAirCarryM: r.stillAirCarryM,
     lateralM: r.lateralM,
     measuredSpeedMs: r.measuredSpeedMs,
     launchAngleDeg: r.launchAngleDeg,

@@ -16,6 +16,7 @@ import {
   type SyncChange,
   type SyncEntity,
 } from '../../shared/schemas/sync';
+import { refreshSessionStillAirCarry, refreshStillAirCarry } from '../analysis/still-air';
 import { nextChangeSeq, type Db } from '../db/client';
 import { appliedMutations, changeCounter, drills, kicks, players, trainingSessions } from '../db/schema';
 import { fieldErrors, Forbidden } from '../errors';
@@ -154,6 +155,7 @@ function applySession(db: Db, scope: Scope, deviceId: string, m: Parsed, now: st
       .set({ ...sessionColumns(d), updatedAt: d.updatedAt ?? now, version: existing.version + 1, changeSeq: nextChangeSeq(db) })
       .where(eq(trainingSessions.id, d.id))
       .run();
+    refreshSessionStillAirCarry(db, d.id);
   } else {
     db.insert(trainingSessions)
       .values({ id: d.id, clubId: scope.user.clubId, ...sessionColumns(d), recordedBy: scope.user.id, deviceId, updatedAt: d.updatedAt ?? now, version: 1, changeSeq: nextChangeSeq(db) })
@@ -226,6 +228,7 @@ function applyKick(db: Db, scope: Scope, deviceId: string, m: Parsed, now: strin
       .values({ id: d.id, clubId: scope.user.clubId, ...kickColumns(d), recordedBy: scope.user.id, deviceId, updatedAt: d.updatedAt ?? now, version: 1, changeSeq: nextChangeSeq(db) })
       .run();
   }
+  refreshStillAirCarry(db, [d.id]);
   return { id: m.id, status: 'applied' };
 }
 

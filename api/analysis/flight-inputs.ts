@@ -1,0 +1,107 @@
+/**
+ * Turns stored kicks and their sessions into flight-model inputs, and normalises a logged
+ * carry to still air at ISA sea level, 15 °C — so a windy week does not look like a bad week.
+ */
+import {
+  BALL_SIZES,
+  DEFAULT_ELEVATION_DEG,
+  SIDESPIN_STEP_RPS,
+  SPIN_STEP_RPS,
+  simulateKick,
+  solveLaunchSpeed,
+  type BackspinStep,
+  type FlightConditions,
+  type LoggedKick,
+  type SidespinStep,
+  type Technique,
+} from '../../shared/flight/index';
+import type { Outcome } from '../../shared/schemas/sync';
+
+/** The session fields the flight model needs. */
+export interface SessionConditions {
+  temperatureC: number | null;
+  altitudeM: number | null;
+  relativeHumidityPct: number | null;
+  pressureHpa: number | null;
+  windSpeedMs: number | null;
+  windFromDeg: number | null;
+  ballSize: number;
+}
+
+/** The kick fields the flight model needs. */
+export interface StoredKick {
+  technique: Technique;
+  outcome: Outcome;
+  targetDistanceM: number;
+  targetRadiusM: number;
+  backspinStep: number;
+  sidespinStep: number;
+  carryM: number | null;
+  lateralM: number | null;
+  measuredSpeedMs: number | null;
+  launchAngleDeg: number | null;
+  measuredSpinRps: number | null;
+}
+
+/** Mass and radius of a ball size (3, 4, 5; anything else is treated as 5). */
+export function ballOf(size: number): { massKg: number; radiusM: number } {
+  const b = BALL_SIZES[size === 3 || size === 4 ? size : 5];
+  return { massKg: b.massKg, radiusM: b.radiusM };
+}
+
+/** Flight conditions of a session (missing values fall back to the model's defaults). */
+export function conditionsOf(s: SessionConditions): FlightConditions {
+  const air: NonNullable<FlightConditions['air']> = {};
+  if (s.temperatureC !== null) air.temperatureC = s.temperatureC;
+  if (s.altitudeM !== null) air.altitudeM = s.altitudeM;
+  if (s.relativeHumidityPct !== null) air.relativeHumidityPct = s.relativeHumidityPct;
+  if (s.pressureHpa !== null) air.pressureHpa = s.pressureHpa;
+  const conditions: FlightConditions = { ball: ballOf(s.ballSize), air };
+  if (s.windSpeedMs && s.windSpeedMs > 0) conditions.wind = { speedMs: s.windSpeedMs, fromDeg: s.windFromDeg ?? 0 };
+  return conditions;
+}
+
+/** Standard conditions for normalised carry: ISA sea level, 15 °C, still air, the same ball. */
+export function standardConditions(ballSize: number): FlightConditions {
+  return { ball: ballOf(ballSize), air: { altitudeM: 0, temperatureC: 15 } };
+}
+
+/** A stored kick as the profile fit reads it. */
+export function loggedKickOf(k: StoredKick, s: SessionConditions): LoggedKick {
+  return {
+    technique: k.technique,
+    outcome: k.outcome,
+    targetDistanceM: k.targetDistanceM,
+    targetRadiusM: k.targetRadiusM,
+    backspinStep: k.backspinStep as BackspinStep,
+    sidespinStep: k.sidespinStep as SidespinStep,
+    carryM: k.carryM,
+    lateralM: k.lateralM,
+    measuredSpeedMs: k.measuredSpeedMs,
+    launchAngleDeg: k.launchAngleDeg,
+    measuredSpinRps: k.measuredSpinRps,
+    conditions: conditionsOf(s),
+  };
+}
+
+/**
+ * The carry this kick would have had in standard conditions: the launch speed that explains
+ * the logged carry under the session's conditions, flown again in still ISA air. Null when
+ * there is no carry or the model cannot explain it.
+ */
+export function stillAirCarryM(k: StoredKick, s: SessionConditions): number | null {
+  if (k.carryM === null || k.carryM <= 0) return null;
+  const elevationDeg = k.launchAngleDeg ?? DEFAULT_ELEVATION_DEG[k.technique];
+  if (elevationDeg <= 0) return null;
+  const backspinRps = SPIN_STEP_RPS[k.backspinStep as BackspinStep] ?? 0;
+  const sidespinRps = SIDESPIN_STEP_RPS[k.sidespinStep as SidespinStep] ?? 0;
+  try {
+    const speed = solveLaunchSpeed({ carryM: k.carryM, elevationDeg, backspinRps, sidespinRps, ...conditionsOf(s) });
+    if (speed === null) return null;
+    const flight = simulateKick({ speed, elevationDeg, backspinRps, sidespinRps, ...standardConditions(s.ballSize) });
+    return flight.landed ? Math.round(flight.carryM * 100) / 100 : null;
+  } catch (err) {
+    if (err instanceof RangeError) return null;
+    throw err;
+  }
+}

@@ -1,0 +1,193 @@
+/**
+ * Launch profiles per player and technique, fitted with the shared flight model and cached in
+ * `player_profiles` until new kicks arrive. Single requests compute on demand; lists (Squad
+ * week, planner ranking) answer from the cache and let a background refresher catch up in
+ * small slices so the event loop is never blocked for long.
+ */
+import { and, eq } from 'drizzle-orm';
+import { fitProfile, reachEnvelope, reliableReachM, type KickProfile } from '../../shared/flight/index';
+import type { ProfileEntry } from '../../shared/schemas/analysis';
+import type { Technique } from '../../shared/schemas/sync';
+import type { Db } from '../db/client';
+import { playerProfiles } from '../db/schema';
+import { loggedKickOf, standardConditions, type SessionConditions, type StoredKick } from './flight-inputs';
+
+/** Monte Carlo samples of the cached standard-conditions envelope. */
+export const PROFILE_ENVELOPE_SAMPLES = 1000;
+/** Fixed seed: the same kicks always give the same cached numbers. */
+export const PROFILE_ENVELOPE_SEED = 20_260_101;
+/** Target radius used for reliable reach when a player's logs give none (common practice). */
+export const DEFAULT_REACH_RADIUS_M = 3;
+
+type CachedRow = typeof playerProfiles.$inferSelect;
+
+/** The landing cloud kept with a profile. */
+export interface CachedCloud {
+  cloud: { xM: number[]; yM: number[] };
+}
+
+/** Computes, caches and serves launch profiles. */
+export class ProfileCache {
+  private readonly queue = new Set<string>();
+  private timer: NodeJS.Immediate | null = null;
+  private running = false;
+
+  constructor(private readonly db: Db) {}
+
+  /** The highest change_seq among a player's kicks of one technique (tombstones included: a void changes the fit). */
+  private kicksSeq(playerId: string, technique: Technique): number {
+    const row = this.db.$client
+      .prepare('SELECT MAX(change_seq) AS s FROM kicks WHERE player_id = ? AND technique = ?')
+      .get(playerId, technique) as { s: number | null };
+    return row.s ?? 0;
+  }
+
+  private cached(playerId: string, technique: Technique): CachedRow | undefined {
+    return this.db.select().from(playerProfiles).where(and(eq(playerProfiles.playerId, playerId), eq(playerProfiles.technique, technique))).get();
+  }
+
+  /** Whether the cache is missing or behind the player's kicks. */
+  isStale(playerId: string, technique: Technique): boolean {
+    const row = this.cached(playerId, technique);
+    return !row || row.kicksSeq < this.kicksSeq(playerId, technique);
+  }
+
+  /** Fits and stores one profile now. */
+  compute(playerId: string, technique: Technique): CachedRow {
+    const seq = this.kicksSeq(playerId, technique);
+    const rows = this.db.$client
+      .prepare(
+        `SELECT k.technique, k.outcome, k.target_distance_m AS targetDistanceM, k.target_radius_m AS targetRadiusM,
+                k.backspin_step AS backspinStep, k.sidespin_step AS sidespinStep, k.carry_m AS carryM, k.lateral_m AS lateralM,
+                k.measured_speed_ms AS measuredSpeedMs, k.launch_angle_deg AS launchAngleDeg, k.measured_spin_rps AS measuredSpinRps,
+                s.temperature_c AS temperatureC, s.altitude_m AS altitudeM, s.relative_humidity_pct AS relativeHumidityPct,
+                s.pressure_hpa AS pressureHpa, s.wind_speed_ms AS windSpeedMs, s.wind_from_deg AS windFromDeg, s.ball_size AS ballSize
+           FROM kicks k JOIN training_sessions s ON s.id = k.session_id
+          WHERE k.player_id = ? AND k.technique = ? AND k.deleted_at IS NULL AND s.deleted_at IS NULL
+          ORDER BY k.recorded_at DESC LIMIT 400`,
+      )
+      .all(playerId, technique) as (StoredKick & SessionConditions)[];
+    const radii = rows.map((r) => r.targetRadiusM).sort((a, b) => a - b);
+    const reachRadiusM = radii.length ? radii[Math.floor(radii.length / 2)]! : DEFAULT_REACH_RADIUS_M;
+    let profile: KickProfile | null = null;
+    let cloud: CachedCloud['cloud'] | null = null;
+    let reach: number | null = null;
+    if (rows.length > 0) {
+      profile = fitProfile(rows.map((r) => loggedKickOf(r, r)));
+      const ballSize = rows[0]!.ballSize;
+      const envelope = reachEnvelope(profile, standardConditions(ballSize), { samples: PROFILE_ENVELOPE_SAMPLES, seed: PROFILE_ENVELOPE_SEED });
+      cloud = envelope.cloud;
+      reach = reliableReachM(envelope, reachRadiusM);
+    }
+    const row: CachedRow = {
+      playerId,
+      technique,
+      kicksSeq: seq,
+      repetitions: profile?.repetitions ?? 0,
+      profileJson: profile ? JSON.stringify(profile) : null,
+      cloudJson: cloud ? JSON.stringify(cloud) : null,
+      reliableReachM: reach,
+      reachRadiusM,
+      computedAt: new Date().toISOString(),
+    };
+    this.db
+      .insert(playerProfiles)
+      .values(row)
+      .onConflictDoUpdate({ target: [playerProfiles.playerId, playerProfiles.technique], set: row })
+      .run();
+    return row;
+  }
+
+  /** The profile entry, computed now if stale (one fit: a fraction of a second). */
+  get(playerId: string, technique: Technique): ProfileEntry {
+    const row = this.isStale(playerId, technique) ? this.compute(playerId, technique) : this.cached(playerId, technique)!;
+    return toEntry(row, false);
+  }
+
+  /** The cached entry without computing; stale or missing ones are queued for the refresher. */
+  peek(playerId: string, technique: Technique): ProfileEntry {
+    const row = this.cached(playerId, technique);
+    const stale = !row || row.kicksSeq < this.kicksSeq(playerId, technique);
+    if (stale) this.enqueue(playerId, technique);
+    if (!row) {
+      return { playerId, technique, profile: null, repetitions: 0, reliableReachM: null, reachRadiusM: DEFAULT_REACH_RADIUS_M, computedAt: null, pending: true };
+    }
+    return toEntry(row, stale);
+  }
+
+  /** The cached landing cloud (standard conditions), if any. */
+  cloud(playerId: string, technique: Technique): CachedCloud | null {
+    const row = this.cached(playerId, technique);
+    return row?.cloudJson ? { cloud: JSON.parse(row.cloudJson) as CachedCloud['cloud'] } : null;
+  }
+
+  /** Queues a recomputation for the background refresher. */
+  enqueue(playerId: string, technique: Technique): void {
+    this.queue.add(`${playerId}|${technique}`);
+    if (this.running) this.schedule();
+  }
+
+  /** Queues every stale player × technique that has kicks. */
+  enqueueAllStale(): number {
+    const pairs = this.db.$client
+      .prepare(
+        `SELECT k.player_id AS playerId, k.technique AS technique, MAX(k.change_seq) AS s, p.kicks_seq AS cached
+           FROM kicks k LEFT JOIN player_profiles p ON p.player_id = k.player_id AND p.technique = k.technique
+          GROUP BY k.player_id, k.technique HAVING cached IS NULL OR cached < s`,
+      )
+      .all() as { playerId: string; technique: Technique }[];
+    for (const p of pairs) this.queue.add(`${p.playerId}|${p.technique}`);
+    if (this.running) this.schedule();
+    return pairs.length;
+  }
+
+  /** Starts the background refresher (one fit per event-loop turn). */
+  start(): void {
+    this.running = true;
+    this.enqueueAllStale();
+    this.schedule();
+  }
+
+  /** Stops the refresher. */
+  stop(): void {
+    this.running = false;
+    if (this.timer) clearImmediate(this.timer);
+    this.timer = null;
+  }
+
+  /** Number of queued recomputations. */
+  get queued(): number {
+    return this.queue.size;
+  }
+
+  private schedule(): void {
+    if (this.timer || !this.running || this.queue.size === 0) return;
+    this.timer = setImmediate(() => {
+      this.timer = null;
+      const next = this.queue.values().next();
+      if (!next.done) {
+        this.queue.delete(next.value);
+        const [playerId, technique] = next.value.split('|') as [string, Technique];
+        try {
+          if (this.isStale(playerId, technique)) this.compute(playerId, technique);
+        } catch {
+          // A profile that cannot be fitted stays stale; the next change queues it again.
+        }
+      }
+      this.schedule();
+    });
+  }
+}
+
+function toEntry(row: CachedRow, pending: boolean): ProfileEntry {
+  return {
+    playerId: row.playerId,
+    technique: row.technique,
+    profile: row.profileJson ? (JSON.parse(row.profileJson) as KickProfile) : null,
+    repetitions: row.repetitions,
+    reliableReachM: row.reliableReachM,
+    reachRadiusM: row.reachRadiusM,
+    computedAt: row.computedAt,
+    pending,
+  };
+}

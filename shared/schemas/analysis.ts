@@ -1,0 +1,140 @@
+/**
+ * Response shapes of the analysis endpoints (Player file, Squad week, planner), shared so the
+ * client and the server cannot drift apart.
+ */
+import type { KickProfile } from '../flight/profile-types';
+import type { Outcome, Technique } from './sync';
+
+/** Which carry the figures use: as logged, or normalised to still air at ISA sea level, 15 °C. */
+export type CarryBasis = 'logged' | 'still-air';
+
+/** One week × technique row of a player's progress (`GET /api/players/:id/progress`). */
+export interface ProgressWeek {
+  /** Monday of the ISO week, YYYY-MM-DD. */
+  weekStart: string;
+  technique: Technique;
+  reps: number;
+  /** Share of repetitions logged `on_target` (0..1). */
+  hitRate: number;
+  /** Share of each outcome (0..1), every outcome present. */
+  outcomeShare: Record<Outcome, number>;
+  /** How many repetitions had a carry on the chosen basis. */
+  carryCount: number;
+  medianCarryM: number | null;
+  /** Nearest-rank quartiles of carry, metres. */
+  carryP25M: number | null;
+  carryP75M: number | null;
+  /** Population standard deviation of carry, metres. */
+  carrySdM: number | null;
+}
+
+/** `GET /api/players/:id/progress`. */
+export interface ProgressResponse {
+  playerId: string;
+  carryBasis: CarryBasis;
+  weeks: ProgressWeek[];
+}
+
+/** One kick in a player's recent-kicks table (`GET /api/players/:id/kicks`). */
+export interface PlayerKick {
+  id: string;
+  sessionId: string;
+  recordedAt: string;
+  technique: Technique;
+  foot: 'left' | 'right';
+  backspinStep: number;
+  sidespinStep: number;
+  targetDistanceM: number;
+  targetRadiusM: number;
+  outcome: Outcome;
+  carryM: number | null;
+  /** The logged carry normalised to still air at ISA sea level, 15 °C (null without a carry). */
+  stillAirCarryM: number | null;
+  lateralM: number | null;
+  measuredSpeedMs: number | null;
+  launchAngleDeg: number | null;
+  measuredSpinRps: number | null;
+}
+
+/** `GET /api/players/:id/kicks`. */
+export interface PlayerKicksResponse {
+  playerId: string;
+  total: number;
+  kicks: PlayerKick[];
+}
+
+/** A cached launch profile of one player and technique. */
+export interface ProfileEntry {
+  playerId: string;
+  technique: Technique;
+  /** Null while it has not been computed yet (`pending`) or when there are no repetitions. */
+  profile: KickProfile | null;
+  repetitions: number;
+  /** Reliable reach at standard conditions for `reachRadiusM` (null: no distance reaches 60 %). */
+  reliableReachM: number | null;
+  reachRadiusM: number;
+  computedAt: string | null;
+  /** Whether newer kicks exist than the cached profile used (a background job is refreshing it). */
+  pending: boolean;
+}
+
+/** `GET /api/players/:id/profile?technique=`. */
+export type ProfileResponse = ProfileEntry;
+
+/** `GET /api/squads/:id/profiles?technique=`: every player's profile for the planner ranking. */
+export interface SquadProfilesResponse {
+  squadId: string;
+  technique: Technique;
+  players: (ProfileEntry & { displayName: string; shirtNumber: number | null })[];
+}
+
+/** Predicted against observed hit rate of one player and technique over a week. */
+export interface CalibrationPoint {
+  technique: Technique;
+  reps: number;
+  /** Mean predicted hit probability of the week's repetitions, from the cached envelope. */
+  predictedHitRate: number;
+  observedHitRate: number;
+}
+
+/** One player's line in Squad week (`GET /api/squads/:id/week`). */
+export interface SquadWeekPlayer {
+  playerId: string;
+  displayName: string;
+  shirtNumber: number | null;
+  reps: number;
+  hitRate: number | null;
+  previousReps: number;
+  previousHitRate: number | null;
+  /** This week's hit rate minus last week's (null when either week has no repetitions). */
+  hitRateChange: number | null;
+  /** Technique with the best hit rate this week among those with enough repetitions. */
+  bestTechnique: Technique | null;
+  byTechnique: { technique: Technique; reps: number; hitRate: number; medianCarryM: number | null }[];
+  /** Current reliable reach per technique (from the cached profile). */
+  reach: { technique: Technique; reliableReachM: number | null; reachRadiusM: number; repetitions: number; pending: boolean }[];
+  calibration: CalibrationPoint[];
+  /** Sessions this week in which the player passed the club's repetition limit. */
+  loadFlags: { sessionId: string; startedAt: string; reps: number; limit: number }[];
+}
+
+/** Hit rate of the squad's repetitions in one band of target distance. */
+export interface ZoneHitRate {
+  technique: Technique;
+  bandStartM: number;
+  bandEndM: number;
+  reps: number;
+  hitRate: number;
+}
+
+/** `GET /api/squads/:id/week?start=`. */
+export interface SquadWeek {
+  squadId: string;
+  squadName: string;
+  weekStart: string;
+  previousWeekStart: string;
+  carryBasis: CarryBasis;
+  repLimitPerSession: number;
+  players: SquadWeekPlayer[];
+  zones: ZoneHitRate[];
+}
