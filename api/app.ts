@@ -9,7 +9,15 @@ import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { pinoHttp } from 'pino-http';
 import type { Logger } from 'pino';
+import { AccountsService } from './accounts/accounts.service';
+import { adminRouter } from './admin/admin.router';
 import { ProfileCache } from './analysis/profile-cache';
+import { digestsRouter, unsubscribeRouter } from './digests/digests.router';
+import { DigestJob } from './digests/digests.service';
+import { GuardiansService } from './guardians/guardians.service';
+import { guardiansRouter } from './guardians/guardians.router';
+import { devMailRouter } from './mail/dev-mail.router';
+import { Mailer } from './mail/mailer';
 import { AuthService } from './auth/auth.service';
 import { authRouter } from './auth/auth.router';
 import { createAuthMiddleware } from './auth/passport';
@@ -29,13 +37,23 @@ export interface AppDeps {
   logger: Logger;
   /** Launch-profile cache; created here when not given (the server passes one it starts). */
   profiles?: ProfileCache;
+  /** Outgoing mail; without one, mail is queued in the outbox but not sent. */
+  mailer?: Mailer;
+  /** Whether the local fake SMTP server is the transport (enables `/api/dev/mail`). */
+  devMail?: boolean;
+  /** The digest job (the server passes the one its scheduler uses). */
+  digests?: DigestJob;
 }
 
 /** JSON bodies above this are refused (a 500-kick sync batch is far below it). */
 export const JSON_BODY_LIMIT = '1mb';
 
 /** Creates the Express application. */
-export function createApp({ db, config, logger, profiles = new ProfileCache(db) }: AppDeps): Express {
+export function createApp(deps: AppDeps): Express {
+  const { db, config, logger } = deps;
+  const profiles = deps.profiles ?? new ProfileCache(db);
+  const mailer = deps.mailer ?? new Mailer(db, null, config.mailFrom);
+  const digests = deps.digests ?? new DigestJob(db, mailer, config);
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
@@ -59,7 +77,9 @@ export function createApp({ db, config, logger, profiles = new ProfileCache(db) 
     res.json({ ok: true });
   });
   const auth = new AuthService(db, config);
-  api.use('/auth', authRouter(auth, config));
+  const accounts = new AccountsService(db, config, mailer);
+  api.use('/auth', authRouter(auth, accounts, config));
+  api.use('/digests', unsubscribeRouter(db, config));
 
   const requireAuth = createAuthMiddleware(db, config);
   api.use(requireAuth, attachScope(db));
@@ -67,6 +87,10 @@ export function createApp({ db, config, logger, profiles = new ProfileCache(db) 
   api.use('/squads', squadsRouter(db, profiles));
   api.use('/players', playersRouter(db, profiles));
   api.use('/sync', syncRouter(db));
+  api.use('/guardians', guardiansRouter(new GuardiansService(db)));
+  api.use('/admin', adminRouter(db, accounts));
+  api.use('/digests', digestsRouter(digests));
+  if (deps.devMail) api.use('/dev/mail', devMailRouter(db));
   api.use(() => {
     throw new NotFound('No such API route');
   });

@@ -15,6 +15,8 @@ const envSchema = z.object({
   LOFTLINE_LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   LOFTLINE_SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
   LOFTLINE_PUBLIC_URL: z.string().url().optional(),
+  SMTP_URL: z.string().url({ error: 'must be an smtp:// or smtps:// URL' }).optional(),
+  LOFTLINE_MAIL_FROM: z.string().min(3).default('Loftline <no-reply@loftline.invalid>'),
 });
 
 /** The server's validated configuration. */
@@ -25,6 +27,9 @@ export interface AppConfig {
   jwtSecret: string;
   logLevel: 'fatal' | 'error' | 'warn' | 'info' | 'debug' | 'trace' | 'silent';
   smtpPort: number;
+  /** Real SMTP server; when absent a local fake server captures mail (development, tests, demo). */
+  smtpUrl: string | null;
+  mailFrom: string;
   publicUrl: string;
   /** Access tokens are short-lived: a stolen one is useful for minutes only. */
   accessTokenTtlS: number;
@@ -68,6 +73,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Part
     jwtSecret,
     logLevel: e.LOFTLINE_LOG_LEVEL,
     smtpPort: e.LOFTLINE_SMTP_PORT,
+    smtpUrl: e.SMTP_URL ?? null,
+    mailFrom: e.LOFTLINE_MAIL_FROM,
     publicUrl: e.LOFTLINE_PUBLIC_URL ?? `http://localhost:${e.PORT}`,
     accessTokenTtlS: 15 * 60,
     refreshTokenTtlS: 30 * 24 * 3600,

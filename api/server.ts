@@ -11,7 +11,10 @@ import { createApp } from './app';
 import type { AppConfig } from './config';
 import { openDatabase, type Db } from './db/client';
 import { createLogger } from './logger';
+import { scheduleDigests } from './digests/scheduler';
+import { DigestJob } from './digests/digests.service';
 import { startFakeSmtp, type FakeSmtp } from './mail/fake-smtp';
+import { Mailer } from './mail/mailer';
 
 /** A running Loftline server. */
 export interface RunningServer {
@@ -40,15 +43,20 @@ export async function startServer(config: AppConfig, options: StartOptions = {})
   const profiles = new ProfileCache(db);
   profiles.start();
   let smtp: FakeSmtp | null = null;
-  if (config.env !== 'production') {
+  if (!config.smtpUrl) {
     try {
-      smtp = await startFakeSmtp(config.smtpPort);
-      logger.info({ port: smtp.port }, 'fake SMTP server capturing mail on 127.0.0.1');
+      smtp = await startFakeSmtp(db, config.smtpPort);
+      logger.info({ port: smtp.port }, 'no SMTP_URL: a local fake SMTP server captures all mail on 127.0.0.1 (admins read it at /admin/mail)');
     } catch (err) {
-      logger.warn({ err }, 'fake SMTP server could not start; mail will queue until it can be sent');
+      logger.warn({ err }, 'the fake SMTP server could not start; mail stays queued in the outbox');
     }
   }
-  const app = createApp({ db, config, logger, profiles });
+  const mailer = new Mailer(db, config.smtpUrl ?? smtp?.url ?? null, config.mailFrom);
+  const digests = new DigestJob(db, mailer, config);
+  const stopSchedule = scheduleDigests(db, digests, logger);
+  const retry = setInterval(() => void mailer.flush().catch((err: unknown) => logger.error({ err }, 'mail flush failed')), 60_000);
+  retry.unref();
+  const app = createApp({ db, config, logger, profiles, mailer, digests, devMail: smtp !== null });
   const server: Server = await new Promise((resolveServer, reject) => {
     const s = app.listen(config.port, () => resolveServer(s));
     s.once('error', reject);
@@ -61,6 +69,9 @@ export async function startServer(config: AppConfig, options: StartOptions = {})
     smtp,
     close: async () => {
       profiles.stop();
+      stopSchedule();
+      clearInterval(retry);
+      mailer.close();
       await new Promise<void>((done) => server.close(() => done()));
       await smtp?.close();
       db.$client.close();

@@ -4,6 +4,8 @@
 import { Router } from 'express';
 import { rateLimit, ipKeyGenerator } from 'express-rate-limit';
 import { loginRequestSchema, refreshRequestSchema } from '../../shared/schemas/auth';
+import { acceptInviteSchema, forgotPasswordSchema, resetPasswordSchema } from '../../shared/schemas/mail';
+import type { AccountsService } from '../accounts/accounts.service';
 import type { AppConfig } from '../config';
 import { HttpError, parseOrThrow } from '../errors';
 import type { AuthService } from './auth.service';
@@ -15,7 +17,7 @@ function tooMany(message: string): HttpError {
 }
 
 /** Builds the auth router. Failed attempts count toward both limits; successful ones do not. */
-export function authRouter(auth: AuthService, config: AppConfig): Router {
+export function authRouter(auth: AuthService, accounts: AccountsService, config: AppConfig): Router {
   const router = Router();
   const perIp = rateLimit({
     windowMs: WINDOW_MS,
@@ -53,6 +55,39 @@ export function authRouter(auth: AuthService, config: AppConfig): Router {
   router.post('/logout', (req, res) => {
     const { refreshToken } = parseOrThrow(refreshRequestSchema, req.body, 'Sign-out');
     auth.logout(refreshToken);
+    res.status(204).end();
+  });
+
+  const perIpAccountMail = rateLimit({
+    windowMs: WINDOW_MS,
+    limit: config.loginFailuresPerIp,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    keyGenerator: (req) => `mail:${ipKeyGenerator(req.ip ?? 'unknown')}`,
+    handler: (_req, _res, next) => next(tooMany('Too many requests from this network; wait 15 minutes and try again')),
+  });
+
+  router.get('/invite', (req, res) => {
+    const token = typeof req.query['token'] === 'string' ? req.query['token'] : '';
+    const { token: checked } = parseOrThrow(acceptInviteSchema.pick({ token: true }), { token }, 'Invite');
+    res.json(accounts.describeInvite(checked));
+  });
+
+  router.post('/accept-invite', perIp, async (req, res) => {
+    const { token, password } = parseOrThrow(acceptInviteSchema, req.body, 'Invite');
+    const userId = await accounts.acceptInvite(token, password);
+    res.json(auth.signInUser(userId));
+  });
+
+  router.post('/forgot-password', perIpAccountMail, (req, res) => {
+    const { email } = parseOrThrow(forgotPasswordSchema, req.body, 'Password reset');
+    accounts.forgotPassword(email);
+    res.status(202).json({ message: 'If an account uses this e-mail, a link to choose a new password is on its way. It works for 1 hour.' });
+  });
+
+  router.post('/reset-password', perIp, async (req, res) => {
+    const { token, password } = parseOrThrow(resetPasswordSchema, req.body, 'Password reset');
+    await accounts.resetPassword(token, password);
     res.status(204).end();
   });
 

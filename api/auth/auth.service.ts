@@ -33,6 +33,11 @@ export class AuthService {
     return this.tokensFor(row.id, issueRefreshToken(this.db, this.config, row.id).token);
   }
 
+  /** Issues a token pair for a user who just proved themselves another way (an accepted invite). */
+  signInUser(userId: string): AuthTokens {
+    return this.tokensFor(userId, issueRefreshToken(this.db, this.config, userId).token);
+  }
+
   /** Rotates a refresh token into a new pair; reuse of a rotated token revokes its family. */
   refresh(refreshToken: string): AuthTokens {
     const result = rotateRefreshToken(this.db, this.config, refreshToken);

@@ -20,6 +20,9 @@ export const clubs = sqliteTable('clubs', {
   timezone: text('timezone').notNull().default('Europe/London'),
   /** Repetitions per player per session above which Pitchside shows the kicking-load caution. */
   repLimitPerSession: integer('rep_limit_per_session').notNull().default(40),
+  /** Weekday (0 = Sunday … 6 = Saturday) and local time (HH:MM, club time zone) of the weekly digests. */
+  digestWeekday: integer('digest_weekday').notNull().default(1),
+  digestTime: text('digest_time').notNull().default('07:00'),
   /** Optional club-tuned spin-step rates (JSON), overriding the flight model's defaults. */
   spinStepsJson: text('spin_steps_json'),
   createdAt: createdAt(),
@@ -55,6 +58,7 @@ export const users = sqliteTable(
     role: text('role', { enum: ['admin', 'head_coach', 'assistant_coach', 'player', 'guardian'] }).notNull(),
     passwordHash: text('password_hash'),
     disabledAt: text('disabled_at'),
+    invitedAt: text('invited_at'),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
@@ -117,6 +121,8 @@ export const players = sqliteTable(
     shirtNumber: integer('shirt_number'),
     dominantFoot: text('dominant_foot', { enum: ['left', 'right'] }).notNull().default('right'),
     birthDate: text('birth_date'),
+    /** An adult player's own opt-in to Family digests about them (DESIGN §10: none for adults otherwise). */
+    digestSelfOptIn: integer('digest_self_opt_in', { mode: 'boolean' }).notNull().default(false),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
     deletedAt: text('deleted_at'),
@@ -138,6 +144,9 @@ export const guardianLinks = sqliteTable(
     relationship: text('relationship').notNull().default('guardian'),
     consentAt: text('consent_at'),
     consentRecordedBy: text('consent_recorded_by').references(() => users.id),
+    /** Version of the consent text the guardian agreed to. */
+    consentTextVersion: text('consent_text_version'),
+    consentWithdrawnAt: text('consent_withdrawn_at'),
     digestOptIn: integer('digest_opt_in', { mode: 'boolean' }).notNull().default(false),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
@@ -324,9 +333,14 @@ export const mailOutbox = sqliteTable(
     subject: text('subject').notNull(),
     textBody: text('text_body').notNull(),
     htmlBody: text('html_body'),
+    /** Extra headers (JSON), e.g. List-Unsubscribe. */
+    headersJson: text('headers_json'),
+    /** Inline attachments (JSON: filename, cid, contentType, base64 content). */
+    attachmentsJson: text('attachments_json'),
     status: text('status', { enum: ['queued', 'sent', 'failed'] }).notNull().default('queued'),
     attempts: integer('attempts').notNull().default(0),
     lastError: text('last_error'),
+    nextAttemptAt: text('next_attempt_at'),
     createdAt: createdAt(),
     sentAt: text('sent_at'),
   },
@@ -363,4 +377,37 @@ export const auditLog = sqliteTable(
     at: createdAt(),
   },
   (t) => [index('audit_log_club_at_idx').on(t.clubId, t.at)],
+);
+
+/** Single-use account tokens (invites: 7 days; password resets: 1 hour), stored as hashes. */
+export const accountTokens = sqliteTable(
+  'account_tokens',
+  {
+    id: text('id').primaryKey(),
+    userId: text('user_id').notNull().references(() => users.id),
+    kind: text('kind', { enum: ['invite', 'reset'] }).notNull(),
+    tokenHash: text('token_hash').notNull(),
+    expiresAt: text('expires_at').notNull(),
+    usedAt: text('used_at'),
+    createdBy: text('created_by').references(() => users.id),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex('account_tokens_hash_uq').on(t.tokenHash), index('account_tokens_user_idx').on(t.userId)],
+);
+
+/** Messages the local fake SMTP server received (development, tests and the demo only). */
+export const capturedMail = sqliteTable(
+  'captured_mail',
+  {
+    id: text('id').primaryKey(),
+    fromAddress: text('from_address').notNull(),
+    toJson: text('to_json').notNull(),
+    subject: text('subject').notNull(),
+    textBody: text('text_body').notNull(),
+    htmlBody: text('html_body'),
+    headersJson: text('headers_json').notNull(),
+    attachmentCount: integer('attachment_count').notNull().default(0),
+    receivedAt: text('received_at').notNull().default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ', 'now'))`),
+  },
+  (t) => [index('captured_mail_received_idx').on(t.receivedAt)],
 );

@@ -12,6 +12,9 @@ import request from 'supertest';
 import { createApp } from '../../api/app';
 import { loadConfig, type AppConfig } from '../../api/config';
 import { openDatabase, type Db } from '../../api/db/client';
+import { DigestJob } from '../../api/digests/digests.service';
+import { startFakeSmtp, type FakeSmtp } from '../../api/mail/fake-smtp';
+import { Mailer } from '../../api/mail/mailer';
 import { clubs, players, squads, squadStaff, users } from '../../api/db/schema';
 import { DEMO_PASSWORD, seedDemo } from '../../seed/scenario';
 
@@ -85,4 +88,32 @@ export async function signIn(app: Express, email: string, password = DEMO_PASSWO
   const res = await request(app).post('/api/auth/login').send({ email, password });
   if (res.status !== 200) throw new Error(`sign-in as ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
   return res.body as { accessToken: string; refreshToken: string; user: { id: string; role: string; clubId: string } };
+}
+
+/** A test app whose mail goes over real SMTP to the local fake server (captures land in the database). */
+export interface MailTestApp extends TestApp {
+  smtp: FakeSmtp;
+  mailer: Mailer;
+  digests: DigestJob;
+}
+
+/** Like `createTestApp`, with a fake SMTP server on a free loopback port and `/api/dev/mail` enabled. */
+export async function createMailTestApp(overrides: Partial<AppConfig> = {}): Promise<MailTestApp> {
+  const base = createTestApp(overrides);
+  const smtp = await startFakeSmtp(base.db, 0);
+  const mailer = new Mailer(base.db, smtp.url, base.config.mailFrom);
+  const digests = new DigestJob(base.db, mailer, base.config);
+  const app = createApp({ db: base.db, config: base.config, logger: pino({ level: 'silent' }), mailer, digests, devMail: true });
+  return {
+    ...base,
+    app,
+    smtp,
+    mailer,
+    digests,
+    close: () => {
+      mailer.close();
+      void smtp.close();
+      base.close();
+    },
+  };
 }
