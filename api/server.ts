@@ -5,7 +5,7 @@
 import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { isDatabaseEmpty, seedDemo } from '../seed/scenario';
-import { backfillStillAirCarry } from './analysis/still-air';
+import { backfillStillAirCarry, StillAirRefresher } from './analysis/still-air';
 import { ProfileCache } from './analysis/profile-cache';
 import { createApp } from './app';
 import type { AppConfig } from './config';
@@ -40,6 +40,8 @@ export async function startServer(config: AppConfig, options: StartOptions = {})
   }
   const normalised = backfillStillAirCarry(db);
   if (normalised) logger.info({ kicks: normalised }, 'normalised logged carries to still air');
+  const stillAir = new StillAirRefresher(db);
+  stillAir.start();
   const profiles = new ProfileCache(db);
   profiles.start();
   let smtp: FakeSmtp | null = null;
@@ -69,6 +71,7 @@ export async function startServer(config: AppConfig, options: StartOptions = {})
     smtp,
     close: async () => {
       profiles.stop();
+      stillAir.stop();
       stopSchedule();
       clearInterval(retry);
       mailer.close();

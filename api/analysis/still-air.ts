@@ -1,44 +1,95 @@
 /**
- * Keeps `kicks.still_air_carry_m` filled: for new or edited kicks as they are applied, and as a
- * backfill for rows that have a carry but no normalised value yet (the demo data, older rows).
+ * Keeps `kicks.still_air_carry_m` filled off the sync path: a push (or a change of a session's
+ * conditions) leaves it NULL, and the refresher normalises new carries in small slices a moment
+ * later, in `change_seq` order, so a push of 500 kicks never waits for 170 inverse solves.
  */
 import type { Db } from '../db/client';
+import { cachedStatement } from '../db/statements';
 import { stillAirCarryM, type SessionConditions, type StoredKick } from './flight-inputs';
 
 interface Row extends StoredKick, SessionConditions {
   id: string;
+  changeSeq: number;
 }
 
-const SELECT = `SELECT k.id, k.technique, k.outcome, k.target_distance_m AS targetDistanceM, k.target_radius_m AS targetRadiusM,
+const SELECT = `SELECT k.id, k.change_seq AS changeSeq, k.technique, k.outcome, k.target_distance_m AS targetDistanceM, k.target_radius_m AS targetRadiusM,
        k.backspin_step AS backspinStep, k.sidespin_step AS sidespinStep, k.carry_m AS carryM, k.lateral_m AS lateralM,
        k.measured_speed_ms AS measuredSpeedMs, k.launch_angle_deg AS launchAngleDeg, k.measured_spin_rps AS measuredSpinRps,
        s.temperature_c AS temperatureC, s.altitude_m AS altitudeM, s.relative_humidity_pct AS relativeHumidityPct,
        s.pressure_hpa AS pressureHpa, s.wind_speed_ms AS windSpeedMs, s.wind_from_deg AS windFromDeg, s.ball_size AS ballSize
   FROM kicks k JOIN training_sessions s ON s.id = k.session_id`;
 
-/** Recomputes the normalised carry of the given kicks (inside the caller's transaction). */
-export function refreshStillAirCarry(db: Db, kickIds: readonly string[]): void {
-  if (kickIds.length === 0) return;
-  const select = db.$client.prepare(`${SELECT} WHERE k.id = ?`);
-  const update = db.$client.prepare('UPDATE kicks SET still_air_carry_m = ? WHERE id = ?');
-  for (const id of kickIds) {
-    const row = select.get(id) as Row | undefined;
-    if (row) update.run(stillAirCarryM(row, row), id);
+/** Per connection: the lowest change sequence a refresher must walk back to (older rows were cleared). */
+const rewind = new WeakMap<Db['$client'], number>();
+
+/** Marks a session's kicks for renormalisation (its conditions changed); call in the write transaction. */
+export function clearSessionStillAirCarry(db: Db, sessionId: string): void {
+  const first = cachedStatement(db.$client, 'SELECT MIN(change_seq) AS s FROM kicks WHERE session_id = ? AND carry_m IS NOT NULL').get(sessionId) as { s: number | null };
+  cachedStatement(db.$client, 'UPDATE kicks SET still_air_carry_m = NULL WHERE session_id = ? AND still_air_carry_m IS NOT NULL').run(sessionId);
+  if (first.s !== null) rewind.set(db.$client, Math.min(rewind.get(db.$client) ?? Infinity, first.s - 1));
+}
+
+/**
+ * Normalises up to `limit` kicks that have a carry but no normalised value, after change
+ * sequence `afterSeq`. Returns how many were looked at and the last sequence seen, so a caller
+ * can walk forward without retrying carries the model cannot explain (those stay NULL).
+ */
+export function normaliseStillAirSlice(db: Db, afterSeq: number, limit: number): { processed: number; lastSeq: number } {
+  const rows = cachedStatement(
+    db.$client,
+    `${SELECT} WHERE k.carry_m IS NOT NULL AND k.still_air_carry_m IS NULL AND k.change_seq > ? ORDER BY k.change_seq LIMIT ?`,
+  ).all(afterSeq, limit) as Row[];
+  const update = cachedStatement(db.$client, 'UPDATE kicks SET still_air_carry_m = ? WHERE id = ? AND change_seq = ?');
+  db.$client.transaction(() => {
+    for (const row of rows) update.run(stillAirCarryM(row, row), row.id, row.changeSeq);
+  })();
+  return { processed: rows.length, lastSeq: rows.at(-1)?.changeSeq ?? afterSeq };
+}
+
+/** Normalises every pending carry now (start-up, tests); returns how many were looked at. */
+export function backfillStillAirCarry(db: Db): number {
+  let total = 0;
+  let after = 0;
+  for (;;) {
+    const { processed, lastSeq } = normaliseStillAirSlice(db, after, 500);
+    total += processed;
+    after = lastSeq;
+    if (processed < 500) return total;
   }
 }
 
-/** Recomputes the normalised carry of every kick of a session (its conditions changed). */
-export function refreshSessionStillAirCarry(db: Db, sessionId: string): void {
-  const ids = db.$client.prepare('SELECT id FROM kicks WHERE session_id = ? AND carry_m IS NOT NULL').all(sessionId) as { id: string }[];
-  refreshStillAirCarry(db, ids.map((r) => r.id));
-}
+/** Walks new carries forward in the background, a slice per tick. */
+export class StillAirRefresher {
+  private afterSeq = 0;
+  private timer: NodeJS.Timeout | null = null;
 
-/** Fills every missing normalised carry; returns how many kicks were computed. */
-export function backfillStillAirCarry(db: Db): number {
-  const rows = db.$client.prepare(`${SELECT} WHERE k.carry_m IS NOT NULL AND k.still_air_carry_m IS NULL`).all() as Row[];
-  const update = db.$client.prepare('UPDATE kicks SET still_air_carry_m = ? WHERE id = ?');
-  db.$client.transaction(() => {
-    for (const row of rows) update.run(stillAirCarryM(row, row), row.id);
-  })();
-  return rows.length;
+  constructor(
+    private readonly db: Db,
+    private readonly sliceSize = 100,
+    private readonly intervalMs = 1000,
+  ) {}
+
+  /** Starts ticking. */
+  start(): void {
+    this.timer ??= setInterval(() => this.tick(), this.intervalMs);
+    this.timer.unref();
+  }
+
+  /** One slice now; returns how many kicks it normalised. */
+  tick(): number {
+    const back = rewind.get(this.db.$client);
+    if (back !== undefined) {
+      rewind.delete(this.db.$client);
+      this.afterSeq = Math.min(this.afterSeq, back);
+    }
+    const { processed, lastSeq } = normaliseStillAirSlice(this.db, this.afterSeq, this.sliceSize);
+    this.afterSeq = lastSeq;
+    return processed;
+  }
+
+  /** Stops ticking. */
+  stop(): void {
+    if (this.timer) clearInterval(this.timer);
+    this.timer = null;
+  }
 }

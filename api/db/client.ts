@@ -9,6 +9,7 @@ import { mkdirSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import * as schema from './schema';
+import { cachedStatement } from './statements';
 
 /** The typed Drizzle handle used across the server. */
 export type Db = BetterSQLite3Database<typeof schema> & { $client: Database.Database };
@@ -30,11 +31,10 @@ export function openDatabase(path: string): Db {
 
 /** Hands out the next `change_seq`; call inside the write transaction that uses it. */
 export function nextChangeSeq(db: Db): number {
-  const row = db.$client
-    .prepare(
-      `INSERT INTO change_counter (id, last_seq) VALUES (1, 1)
-       ON CONFLICT(id) DO UPDATE SET last_seq = last_seq + 1 RETURNING last_seq`,
-    )
-    .get() as { last_seq: number };
+  const row = cachedStatement(
+    db.$client,
+    `INSERT INTO change_counter (id, last_seq) VALUES (1, 1)
+     ON CONFLICT(id) DO UPDATE SET last_seq = last_seq + 1 RETURNING last_seq`,
+  ).get() as { last_seq: number };
   return row.last_seq;
 }

@@ -2,7 +2,7 @@
  * Applies pushed mutations exactly once and serves scoped changes for pull.
  * The contract is written down in `shared/schemas/sync.ts`.
  */
-import { and, asc, eq, gt, inArray, sql } from 'drizzle-orm';
+import { and, asc, eq, getTableColumns, gt, inArray, sql } from 'drizzle-orm';
 import type * as z from 'zod';
 import {
   ENTITY_SCHEMAS,
@@ -16,9 +16,10 @@ import {
   type SyncChange,
   type SyncEntity,
 } from '../../shared/schemas/sync';
-import { refreshSessionStillAirCarry, refreshStillAirCarry } from '../analysis/still-air';
+import { clearSessionStillAirCarry } from '../analysis/still-air';
 import { nextChangeSeq, type Db } from '../db/client';
-import { appliedMutations, changeCounter, drills, kicks, players, trainingSessions } from '../db/schema';
+import { cachedStatement } from '../db/statements';
+import { changeCounter, drills, kicks, trainingSessions } from '../db/schema';
 import { fieldErrors, Forbidden } from '../errors';
 import type { Scope } from '../scope/scope';
 import {
@@ -92,15 +93,17 @@ function forbidden(what: string): Rejection {
   return new Rejection('forbidden', `You may not change ${what}`);
 }
 
-function sessionFor(db: Db, scope: Scope, sessionId: string): typeof trainingSessions.$inferSelect {
-  const session = db.select().from(trainingSessions).where(eq(trainingSessions.id, sessionId)).get();
+function sessionFor(db: Db, scope: Scope, sessionId: string): { clubId: string; squadId: string } {
+  const session = cachedStatement(db.$client, 'SELECT club_id AS clubId, squad_id AS squadId FROM training_sessions WHERE id = ?').get(sessionId) as
+    | { clubId: string; squadId: string }
+    | undefined;
   if (!session) throw new Rejection('unknown_session', 'The training session is not on the server; push the session first', [{ field: 'data.sessionId', message: 'Unknown session' }]);
   if (session.clubId !== scope.user.clubId || !scope.canWriteSquad(session.squadId)) throw forbidden('this squad’s sessions');
   return session;
 }
 
 function applyMutation(db: Db, scope: Scope, deviceId: string, m: Parsed): MutationResult {
-  if (db.select({ id: appliedMutations.id }).from(appliedMutations).where(eq(appliedMutations.id, m.id)).get()) {
+  if (cachedStatement(db.$client, 'SELECT 1 FROM applied_mutations WHERE id = ?').get(m.id)) {
     return { id: m.id, status: 'duplicate' };
   }
   const now = new Date().toISOString();
@@ -112,7 +115,13 @@ function applyMutation(db: Db, scope: Scope, deviceId: string, m: Parsed): Mutat
         ? applyDrill(db, scope, m, now)
         : applyKick(db, scope, deviceId, m, now);
   if (result.status === 'applied') {
-    db.insert(appliedMutations).values({ id: m.id, userId: scope.user.id, deviceId, entity: m.entity, entityId, status: 'applied' }).run();
+    cachedStatement(db.$client, `INSERT INTO applied_mutations (id, user_id, device_id, entity, entity_id, status) VALUES (?, ?, ?, ?, ?, 'applied')`).run(
+      m.id,
+      scope.user.id,
+      deviceId,
+      m.entity,
+      entityId,
+    );
   }
   return result;
 }
@@ -155,7 +164,7 @@ function applySession(db: Db, scope: Scope, deviceId: string, m: Parsed, now: st
       .set({ ...sessionColumns(d), updatedAt: d.updatedAt ?? now, version: existing.version + 1, changeSeq: nextChangeSeq(db) })
       .where(eq(trainingSessions.id, d.id))
       .run();
-    refreshSessionStillAirCarry(db, d.id);
+    clearSessionStillAirCarry(db, d.id);
   } else {
     db.insert(trainingSessions)
       .values({ id: d.id, clubId: scope.user.clubId, ...sessionColumns(d), recordedBy: scope.user.id, deviceId, updatedAt: d.updatedAt ?? now, version: 1, changeSeq: nextChangeSeq(db) })
@@ -190,7 +199,9 @@ function applyDrill(db: Db, scope: Scope, m: Parsed, now: string): MutationResul
 
 function checkKickRefs(db: Db, scope: Scope, d: KickData): void {
   const session = sessionFor(db, scope, d.sessionId);
-  const player = db.select().from(players).where(eq(players.id, d.playerId)).get();
+  const player = cachedStatement(db.$client, 'SELECT club_id AS clubId, squad_id AS squadId, deleted_at AS deletedAt FROM players WHERE id = ?').get(d.playerId) as
+    | { clubId: string; squadId: string; deletedAt: string | null }
+    | undefined;
   if (!player || player.clubId !== scope.user.clubId || player.deletedAt) {
     throw new Rejection('invalid', 'data.playerId: no such player in your club', [{ field: 'data.playerId', message: 'Unknown player' }]);
   }
@@ -198,15 +209,36 @@ function checkKickRefs(db: Db, scope: Scope, d: KickData): void {
     throw new Rejection('invalid', 'data.playerId: the player is not on this session’s squad', [{ field: 'data.playerId', message: 'Not on the session’s squad' }]);
   }
   if (d.drillId) {
-    const drill = db.select().from(drills).where(eq(drills.id, d.drillId)).get();
+    const drill = cachedStatement(db.$client, 'SELECT session_id AS sessionId FROM drills WHERE id = ?').get(d.drillId) as { sessionId: string } | undefined;
     if (!drill || drill.sessionId !== d.sessionId) {
       throw new Rejection('invalid', 'data.drillId: the drill is not part of this session', [{ field: 'data.drillId', message: 'Not a drill of this session' }]);
     }
   }
 }
 
+/** `SELECT` list giving kick rows the camelCase keys of the Drizzle schema. */
+const KICK_COLUMNS = Object.entries(getTableColumns(kicks))
+  .map(([key, column]) => `${column.name} AS "${key}"`)
+  .join(', ');
+
+type KickRow = typeof kicks.$inferSelect;
+
+const INSERT_KICK = `INSERT INTO kicks (id, club_id, session_id, drill_id, player_id, technique, foot, backspin_step, sidespin_step,
+    target_distance_m, target_radius_m, outcome, carry_m, lateral_m, measured_speed_ms, launch_angle_deg, measured_spin_rps,
+    recorded_at, recorded_by, device_id, updated_at, version, change_seq)
+  VALUES (@id, @clubId, @sessionId, @drillId, @playerId, @technique, @foot, @backspinStep, @sidespinStep, @targetDistanceM,
+    @targetRadiusM, @outcome, @carryM, @lateralM, @measuredSpeedMs, @launchAngleDeg, @measuredSpinRps, @recordedAt, @recordedBy,
+    @deviceId, @updatedAt, 1, @changeSeq)`;
+
+const UPDATE_KICK = `UPDATE kicks SET session_id = @sessionId, drill_id = @drillId, player_id = @playerId, technique = @technique, foot = @foot,
+    backspin_step = @backspinStep, sidespin_step = @sidespinStep, target_distance_m = @targetDistanceM, target_radius_m = @targetRadiusM,
+    outcome = @outcome, carry_m = @carryM, lateral_m = @lateralM, measured_speed_ms = @measuredSpeedMs, launch_angle_deg = @launchAngleDeg,
+    measured_spin_rps = @measuredSpinRps, recorded_at = @recordedAt, updated_at = @updatedAt, version = version + 1, change_seq = @changeSeq,
+    still_air_carry_m = NULL
+  WHERE id = @id`;
+
 function applyKick(db: Db, scope: Scope, deviceId: string, m: Parsed, now: string): MutationResult {
-  const existing = db.select().from(kicks).where(eq(kicks.id, String(m.data['id'] ?? ''))).get();
+  const existing = cachedStatement(db.$client, `SELECT ${KICK_COLUMNS} FROM kicks WHERE id = ?`).get(String(m.data['id'] ?? '')) as KickRow | undefined;
   if (m.op === 'delete') {
     const { id } = parseData(ENTITY_SCHEMAS.kick.pick({ id: true }), m.data);
     if (!existing) return { id: m.id, status: 'applied' };
@@ -222,13 +254,18 @@ function applyKick(db: Db, scope: Scope, deviceId: string, m: Parsed, now: strin
     sessionFor(db, scope, existing.sessionId);
     const stop = checkExisting(m, existing, kickToSync, scope);
     if (stop) return stop;
-    db.update(kicks).set({ ...kickColumns(d), updatedAt: d.updatedAt ?? now, version: existing.version + 1, changeSeq: nextChangeSeq(db) }).where(eq(kicks.id, d.id)).run();
+    cachedStatement(db.$client, UPDATE_KICK).run({ id: d.id, ...kickColumns(d), updatedAt: d.updatedAt ?? now, changeSeq: nextChangeSeq(db) });
   } else {
-    db.insert(kicks)
-      .values({ id: d.id, clubId: scope.user.clubId, ...kickColumns(d), recordedBy: scope.user.id, deviceId, updatedAt: d.updatedAt ?? now, version: 1, changeSeq: nextChangeSeq(db) })
-      .run();
+    cachedStatement(db.$client, INSERT_KICK).run({
+      id: d.id,
+      clubId: scope.user.clubId,
+      ...kickColumns(d),
+      recordedBy: scope.user.id,
+      deviceId,
+      updatedAt: d.updatedAt ?? now,
+      changeSeq: nextChangeSeq(db),
+    });
   }
-  refreshStillAirCarry(db, [d.id]);
   return { id: m.id, status: 'applied' };
 }
 

@@ -2,7 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import request from 'supertest';
 import { stillAirCarryM, type SessionConditions, type StoredKick } from '../../api/analysis/flight-inputs';
-import { backfillStillAirCarry } from '../../api/analysis/still-air';
+import { backfillStillAirCarry, clearSessionStillAirCarry, StillAirRefresher } from '../../api/analysis/still-air';
 import { kicks, playerProfiles } from '../../api/db/schema';
 import { DEMO_ACCOUNTS, DEMO_SQUAD_IDS, demoPeriod } from '../../seed/scenario';
 import type { PlayerKicksResponse, ProfileEntry, SquadProfilesResponse, SquadWeek } from '../../shared/schemas/analysis';
@@ -103,12 +103,30 @@ describe('analysis endpoints', () => {
         ],
       });
     expect((push.body as PushResponse).results.map((r) => r.status)).toEqual(['applied', 'applied']);
+    // The push leaves normalisation to the background refresher; run it now.
+    expect(t.db.select().from(kicks).where(eq(kicks.sessionId, sessionId)).get()!.stillAirCarryM).toBeNull();
+    backfillStillAirCarry(t.db);
     const pushed = t.db.select().from(kicks).where(eq(kicks.sessionId, sessionId)).get()!;
     // Into a 5 m/s headwind, the still-air equivalent is longer than the logged 34 m (common practice).
     expect(pushed.stillAirCarryM!).toBeGreaterThan(34);
     const refreshed = (await get(head, `/api/players/${id}/profile?technique=lofted`)).body as ProfileEntry;
     expect(refreshed.computedAt).not.toBe(first.computedAt);
     expect(refreshed.repetitions).toBe(first.repetitions + 1);
+  });
+
+  it('renormalises a session’s carries in the background after its conditions change', () => {
+    const refresher = new StillAirRefresher(t.db, 1000);
+    while (refresher.tick() > 0) {
+      // walk to the end
+    }
+    const row = t.db.$client.prepare('SELECT session_id AS s FROM kicks WHERE still_air_carry_m IS NOT NULL LIMIT 1').get() as { s: string };
+    const count = () => (t.db.$client.prepare('SELECT COUNT(*) AS n FROM kicks WHERE session_id = ? AND still_air_carry_m IS NOT NULL').get(row.s) as { n: number }).n;
+    const before = count();
+    expect(before).toBeGreaterThan(0);
+    t.db.transaction(() => clearSessionStillAirCarry(t.db, row.s));
+    expect(count()).toBe(0);
+    refresher.tick();
+    expect(count()).toBe(before);
   });
 
   it('serves squad profiles from the cache and marks missing ones pending', async () => {
