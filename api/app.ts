@@ -17,6 +17,9 @@ import { DigestJob } from './digests/digests.service';
 import { GuardiansService } from './guardians/guardians.service';
 import { guardiansRouter } from './guardians/guardians.router';
 import { devMailRouter } from './mail/dev-mail.router';
+import { erasureRouter } from './exports/erasure.router';
+import { exportsRouter } from './exports/exports.router';
+import { importsRouter } from './imports/imports.router';
 import { Mailer } from './mail/mailer';
 import { AuthService } from './auth/auth.service';
 import { authRouter } from './auth/auth.router';
@@ -88,7 +91,10 @@ export function createApp(deps: AppDeps): Express {
   api.use('/players', playersRouter(db, profiles));
   api.use('/sync', syncRouter(db));
   api.use('/guardians', guardiansRouter(new GuardiansService(db)));
+  api.use('/admin/players', erasureRouter(db));
   api.use('/admin', adminRouter(db, accounts));
+  api.use('/imports', importsRouter(db));
+  api.use('/exports', exportsRouter(db));
   api.use('/digests', digestsRouter(digests));
   if (deps.devMail) api.use('/dev/mail', devMailRouter(db));
   api.use(() => {

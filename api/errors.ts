@@ -23,6 +23,18 @@ export class HttpError extends Error {
   }
 }
 
+/** An error whose answer carries more than the error object (e.g. an import's per-row errors). */
+export class HttpErrorWithBody extends HttpError {
+  constructor(
+    status: number,
+    code: string,
+    message: string,
+    readonly body: Record<string, unknown>,
+  ) {
+    super(status, code, message);
+  }
+}
+
 /** 400: the request is malformed or fails validation. */
 export class Invalid extends HttpError {
   constructor(message: string, fields?: FieldError[]) {
@@ -77,7 +89,8 @@ interface BodyParserError {
 /** The single error middleware. Unknown errors become a 500 without leaking internals. */
 export const errorMiddleware: ErrorRequestHandler = (err: unknown, req, res, _next) => {
   if (err instanceof HttpError) {
-    res.status(err.status).json({ error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) } });
+    const extra = err instanceof HttpErrorWithBody ? err.body : {};
+    res.status(err.status).json({ ...extra, error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) } });
     return;
   }
   const bp = err as BodyParserError;

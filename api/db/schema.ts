@@ -311,13 +311,17 @@ export const uploads = sqliteTable(
     kind: text('kind', { enum: ['roster', 'measured_kicks'] }).notNull(),
     filename: text('filename').notNull(),
     sizeBytes: integer('size_bytes').notNull(),
+    /** SHA-256 of the file (plus, for kicks, the mapping): the same upload is recognised and not applied twice. */
+    contentHash: text('content_hash'),
+    /** What the commit did (JSON), returned again when the same file comes back. */
+    summaryJson: text('summary_json'),
     content: text('content').notNull(),
     status: text('status', { enum: ['uploaded', 'previewed', 'committed', 'failed'] }).notNull().default('uploaded'),
     error: text('error'),
     createdAt: createdAt(),
     committedAt: text('committed_at'),
   },
-  (t) => [index('uploads_club_idx').on(t.clubId)],
+  (t) => [index('uploads_club_idx').on(t.clubId), index('uploads_hash_idx').on(t.clubId, t.kind, t.contentHash)],
 );
 
 /** Every outgoing e-mail, written before sending so a crash never loses or doubles one. */
