@@ -25,20 +25,20 @@ export function playersRouter(db: Db, profiles: ProfileCache): Router {
   });
   router.get('/:id/progress', (req, res) => {
     const id = parseOrThrow(idSchema, req.params.id, 'Player id');
-    const filter = parseOrThrow(progressQuerySchema, req.query, 'Query');
     const player = getPlayer(db, scopeOf(req), id);
+    const filter = parseOrThrow(progressQuerySchema, req.query, 'Query');
     res.json({ playerId: player.id, carryBasis: filter.carry, weeks: playerProgress(db, player.id, filter) });
   });
   router.get('/:id/kicks', (req, res) => {
     const id = parseOrThrow(idSchema, req.params.id, 'Player id');
-    const q = parseOrThrow(kicksQuerySchema, req.query, 'Query');
     const player = getPlayer(db, scopeOf(req), id);
+    const q = parseOrThrow(kicksQuerySchema, req.query, 'Query');
     res.json({ playerId: player.id, ...playerKicks(db, player.id, q.technique, q.limit) });
   });
   router.get('/:id/profile', (req, res) => {
     const id = parseOrThrow(idSchema, req.params.id, 'Player id');
-    const { technique } = parseOrThrow(profileQuerySchema, req.query, 'Query');
     const player = getPlayer(db, scopeOf(req), id);
+    const { technique } = parseOrThrow(profileQuerySchema, req.query, 'Query');
     res.json(profiles.get(player.id, technique));
   });
   return router;

@@ -6,7 +6,7 @@ import type { ProfileCache } from '../analysis/profile-cache';
 import type { Db } from '../db/client';
 import { profileQuerySchema } from '../players/players.schemas';
 import { squadProfiles } from './profiles.service';
-import { parseOrThrow } from '../errors';
+import { NotFound, parseOrThrow } from '../errors';
 import { scopeOf } from '../scope/scope.middleware';
 import { listSquads } from './squads.service';
 import { squadWeek } from './week.service';
@@ -24,11 +24,13 @@ export function squadsRouter(db: Db, profiles: ProfileCache): Router {
   });
   router.get('/:id/week', requireRole('admin', 'head_coach', 'assistant_coach'), (req, res) => {
     const id = parseOrThrow(z.uuid({ error: 'id must be a UUID' }), req.params['id'], 'Squad id');
+    if (!scopeOf(req).canReadSquad(id)) throw new NotFound('No such squad among yours');
     const { start, carry } = parseOrThrow(weekQuerySchema, req.query, 'Query');
     res.json(squadWeek(db, profiles, scopeOf(req), id, start, carry));
   });
   router.get('/:id/profiles', requireRole('admin', 'head_coach', 'assistant_coach'), (req, res) => {
     const id = parseOrThrow(z.uuid({ error: 'id must be a UUID' }), req.params['id'], 'Squad id');
+    if (!scopeOf(req).canReadSquad(id)) throw new NotFound('No such squad among yours');
     const { technique } = parseOrThrow(profileQuerySchema, req.query, 'Query');
     res.json(squadProfiles(db, profiles, scopeOf(req), id, technique));
   });
