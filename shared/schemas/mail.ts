@@ -3,6 +3,7 @@
  * shared by the server and the client (issue: Family digest and account mail).
  */
 import * as z from 'zod';
+import { isCommonPassword } from '../common-passwords';
 import { ROLES } from '../roles';
 
 /** Shortest password an account may set (common practice; NIST SP 800-63B asks for at least 8). */
@@ -11,7 +12,8 @@ export const MIN_PASSWORD_LENGTH = 10;
 const password = z
   .string({ error: 'password is required' })
   .min(MIN_PASSWORD_LENGTH, { error: `password must be at least ${MIN_PASSWORD_LENGTH} characters` })
-  .max(200, { error: 'password must be at most 200 characters' });
+  .max(200, { error: 'password must be at most 200 characters' })
+  .refine((p) => !isCommonPassword(p), { error: 'password is one of the most common passwords; choose another' });
 const token = z.string({ error: 'token is required' }).min(20, { error: 'token is not valid' }).max(300, { error: 'token is not valid' });
 const email = z.string({ error: 'email is required' }).trim().toLowerCase().pipe(z.email({ error: 'email is not a valid e-mail address' }));
 

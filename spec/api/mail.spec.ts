@@ -208,6 +208,9 @@ describe('invite and password reset over SMTP', () => {
     const short = await request(t.app).post('/api/auth/accept-invite').send({ token, password: 'short' });
     expect(short.status).toBe(400);
     expect(short.body.error.fields[0].field).toBe('password');
+    const common = await request(t.app).post('/api/auth/accept-invite').send({ token, password: 'Password123' });
+    expect(common.status).toBe(400);
+    expect(common.body.error.fields[0].message).toContain('common');
     const accepted = await request(t.app).post('/api/auth/accept-invite').send({ token, password: 'a-long-new-password' });
     expect(accepted.status).toBe(200);
     expect(accepted.body.user.email).toBe('new.coach@kestrel-vale.test');
