@@ -16,6 +16,7 @@ const envSchema = z.object({
   LOFTLINE_SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
   LOFTLINE_PUBLIC_URL: z.string().url().optional(),
   SMTP_URL: z.string().url({ error: 'must be an smtp:// or smtps:// URL' }).optional(),
+  LOFTLINE_CLIENT_DIR: z.string().min(1).optional(),
   LOFTLINE_MAIL_FROM: z.string().min(3).default('Loftline <no-reply@loftline.invalid>'),
 });
 
@@ -81,7 +82,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Part
     bcryptCost: 12,
     loginFailuresPerIp: 50,
     loginFailuresPerAccount: 10,
-    clientDir: resolve('dist/loftline/browser'),
+    clientDir: resolve(e.LOFTLINE_CLIENT_DIR ?? 'dist/loftline/browser'),
     ...overrides,
   };
 }
