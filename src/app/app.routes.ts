@@ -1,5 +1,10 @@
 import { Routes } from '@angular/router';
+import { requireAdmin } from './admin/admin-guard';
 import { requireSignedIn, requireSignedOut } from './core/auth-guard';
+import { requireStaff } from './core/staff-guard';
+import { requireGuardian } from './guardian/guardian-guard';
+import { guardianLanding } from './home/guardian-landing';
+import { requireSandboxAccess } from './sandbox/sandbox-access';
 import { AppShell } from './shell/app-shell';
 
 /**
@@ -14,6 +19,27 @@ export const routes: Routes = [
     canMatch: [requireSignedOut],
     loadComponent: () => import('./auth/sign-in').then((m) => m.SignIn),
   },
+  // Pages opened from e-mailed links: public (the token in the link is the credential).
+  {
+    path: 'accept-invite',
+    title: 'Set your password · Loftline',
+    loadComponent: () => import('./auth/accept-invite').then((m) => m.AcceptInvite),
+  },
+  {
+    path: 'forgot-password',
+    title: 'Forgot your password · Loftline',
+    loadComponent: () => import('./auth/forgot-password').then((m) => m.ForgotPassword),
+  },
+  {
+    path: 'reset-password',
+    title: 'Choose a new password · Loftline',
+    loadComponent: () => import('./auth/reset-password').then((m) => m.ResetPassword),
+  },
+  {
+    path: 'unsubscribe',
+    title: 'Stop the Family digest · Loftline',
+    loadComponent: () => import('./guardian/unsubscribe').then((m) => m.Unsubscribe),
+  },
   {
     path: '',
     component: AppShell,
@@ -24,7 +50,59 @@ export const routes: Routes = [
       {
         path: 'home',
         title: 'Home · Loftline',
+        canActivate: [guardianLanding],
         loadComponent: () => import('./home/home').then((m) => m.Home),
+      },
+      {
+        path: 'guardian',
+        title: 'Guardian home · Loftline',
+        canMatch: [requireGuardian],
+        loadComponent: () => import('./guardian/guardian-home').then((m) => m.GuardianHome),
+      },
+      {
+        path: 'admin',
+        canMatch: [requireAdmin],
+        loadChildren: () => import('./admin/admin.routes').then((m) => m.ADMIN_ROUTES),
+      },
+      {
+        path: 'pitchside',
+        title: 'Pitchside · Loftline',
+        canMatch: [requireStaff],
+        loadComponent: () => import('./pitchside/pitchside').then((m) => m.Pitchside),
+      },
+      {
+        path: 'pitchside/:sessionId',
+        title: 'Pitchside · Loftline',
+        canMatch: [requireStaff],
+        loadComponent: () => import('./pitchside/pitchside').then((m) => m.Pitchside),
+      },
+      {
+        path: 'sandbox',
+        title: 'Flight sandbox · Loftline',
+        canMatch: [requireSandboxAccess],
+        loadComponent: () => import('./sandbox/sandbox').then((m) => m.Sandbox),
+      },
+      {
+        path: 'planner',
+        title: 'Set-piece planner · Loftline',
+        canMatch: [requireStaff],
+        loadComponent: () => import('./planner/planner').then((m) => m.Planner),
+      },
+      {
+        path: 'players/:id',
+        title: 'Player file · Loftline',
+        loadComponent: () => import('./player-file/player-file').then((m) => m.PlayerFile),
+      },
+      {
+        path: 'squad-week',
+        title: 'Squad week · Loftline',
+        canMatch: [requireStaff],
+        loadComponent: () => import('./squad-week/squad-week').then((m) => m.SquadWeek),
+      },
+      {
+        path: 'imports',
+        canMatch: [requireStaff],
+        loadChildren: () => import('./imports/imports.routes').then((m) => m.IMPORTS_ROUTES),
       },
     ],
   },

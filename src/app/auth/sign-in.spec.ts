@@ -166,6 +166,13 @@ describe('SignIn', () => {
     expect(alertText()).toContain('Check the highlighted fields');
   });
 
+  it('offers a way to reset a forgotten password', async () => {
+    await open();
+    const link = harness.routeNativeElement?.querySelector<HTMLAnchorElement>('a.sign-in__forgot');
+    expect(link?.textContent?.trim()).toBe('Forgot your password?');
+    expect(link?.getAttribute('href')).toBe('/forgot-password');
+  });
+
   it('shows and hides the password on request', async () => {
     await open();
     const toggle = await loader.getHarness(MatButtonHarness.with({ selector: '[aria-label="Show password"]' }));

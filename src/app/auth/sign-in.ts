@@ -5,7 +5,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
-import { Router } from '@angular/router';
+import { Router, RouterLink } from '@angular/router';
 import { finalize } from 'rxjs';
 import { loginRequestSchema } from '../../../shared/schemas/auth';
 import { describeApiError } from '../core/api-error';
@@ -26,6 +26,7 @@ const SERVER_CHECKED_FIELDS = ['email', 'password'] as const;
   selector: 'll-sign-in',
   imports: [
     ReactiveFormsModule,
+    RouterLink,
     MatButtonModule,
     MatFormFieldModule,
     MatIconModule,

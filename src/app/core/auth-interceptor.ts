@@ -4,8 +4,20 @@ import { Router } from '@angular/router';
 import { catchError, of, switchMap, throwError } from 'rxjs';
 import { AuthSession, SessionExpiredError } from './auth-session';
 
-/** Endpoints that take credentials in the body and must never carry (or retry with) a bearer. */
-const TOKEN_ENDPOINTS = ['/api/auth/login', '/api/auth/refresh'];
+/**
+ * Endpoints that must never carry (or retry with) a bearer: login and refresh take credentials
+ * in the body; the invitation, password-reset and unsubscribe endpoints are public and take a
+ * one-time token instead, so a stale session must not send them into a refresh.
+ */
+const TOKEN_ENDPOINTS = [
+  '/api/auth/login',
+  '/api/auth/refresh',
+  '/api/auth/invite',
+  '/api/auth/accept-invite',
+  '/api/auth/forgot-password',
+  '/api/auth/reset-password',
+  '/api/digests/unsubscribe',
+];
 
 /**
  * Adds the access token to Loftline API calls and renews it when it has expired.

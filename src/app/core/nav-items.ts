@@ -1,4 +1,4 @@
-import { ROLES, type Role } from '../../../shared/roles';
+import { ROLES, STAFF_ROLES, type Role } from '../../../shared/roles';
 
 /** One entry of the app's navigation. */
 export interface NavItem {
@@ -19,6 +19,14 @@ export interface NavItem {
  */
 export const NAV_ITEMS: readonly NavItem[] = [
   { path: '/home', label: 'Home', icon: 'home', roles: ROLES },
+  { path: '/pitchside', label: 'Pitchside', icon: 'sports_soccer', roles: STAFF_ROLES },
+  { path: '/planner', label: 'Set-piece planner', icon: 'strategy', roles: STAFF_ROLES },
+  { path: '/sandbox', label: 'Flight sandbox', icon: 'science', roles: [...STAFF_ROLES, 'player'] },
+  { path: '/squad-week', label: 'Squad week', icon: 'leaderboard', roles: STAFF_ROLES },
+  { path: '/players/me', label: 'My file', icon: 'person', roles: ['player'] },
+  { path: '/guardian', label: 'Guardian home', icon: 'family_restroom', roles: ['guardian'] },
+  { path: '/imports', label: 'Imports and exports', icon: 'upload_file', roles: STAFF_ROLES },
+  { path: '/admin', label: 'Club admin', icon: 'admin_panel_settings', roles: ['admin'] },
 ];
 
 /** The entries a user with this role sees, in order. */

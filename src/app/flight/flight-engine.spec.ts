@@ -1,7 +1,8 @@
 import { TestBed } from '@angular/core/testing';
 import { firstValueFrom, forkJoin } from 'rxjs';
-import { DEFAULT_PRIORS, fitProfile, reachEnvelope, setPieceCheck, type KickProfile } from '../../../shared/flight';
+import { DEFAULT_PRIORS, fitProfile, reachEnvelope, setPieceCheck, simulateKick, type KickProfile } from '../../../shared/flight';
 import { FLIGHT_WORKER_FACTORY, FlightEngine } from './flight-engine';
+import { setPieceRank } from './set-piece-rank';
 
 function profile(): KickProfile {
   const base = fitProfile([], { ...DEFAULT_PRIORS.lofted, technique: 'lofted' });
@@ -44,6 +45,31 @@ describe('FlightEngine', () => {
         seed: 3,
       };
       expect(await firstValueFrom(engine.setPiece(input))).toEqual(setPieceCheck(input));
+    });
+
+    it('runs several kicks in one message, in order, as the direct calls do', async () => {
+      const kicks = [
+        { speed: 25, elevationDeg: 30, backspinRps: 6, path: true, planes: [9.15, 30] },
+        { speed: 20, elevationDeg: 18, sidespinRps: 8, wind: { speedMs: 4, fromDeg: 90 }, path: true },
+      ];
+      const flights = await firstValueFrom(engine.simulateKicks(kicks));
+      expect(flights).toEqual(kicks.map((k) => simulateKick(k)));
+    });
+
+    it('ranks a squad at a spot in the worker with the same result as the direct call', async () => {
+      const input = {
+        ballX: 23,
+        ballY: -4,
+        wallHeightM: 2.1,
+        conditions: {},
+        samples: 100,
+        seed: 9,
+        players: [
+          { id: 'a', profile: { ...profile(), technique: 'curled' as const, elevationDeg: 20 } },
+          { id: 'b', profile: { ...profile(), technique: 'curled' as const, elevationDeg: 24, meanSpeedMs: 21 } },
+        ],
+      };
+      expect(await firstValueFrom(engine.setPieceRank(input))).toEqual(setPieceRank(input));
     });
 
     it('correlates concurrent requests by id', async () => {

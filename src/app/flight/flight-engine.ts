@@ -21,6 +21,7 @@ import {
   type FlightRequest,
   type FlightResponse,
 } from './flight-protocol';
+import type { SetPieceRankEntry, SetPieceRankInput } from './set-piece-rank';
 
 /**
  * Creates the flight worker, or returns null where Web Workers do not exist (server-side rendering,
@@ -72,6 +73,22 @@ export class FlightEngine {
   /** One trajectory, e.g. for the flight sandbox. */
   simulate(kick: KickInput): Observable<Flight> {
     return this.run('simulate', [kick]);
+  }
+
+  /**
+   * Several trajectories in one worker message (the sandbox's overlaid kicks), so a slider move costs one
+   * round trip however many kicks are compared. Results come in the order of `kicks`.
+   */
+  simulateKicks(kicks: KickInput[]): Observable<Flight[]> {
+    return this.run('simulateKicks', [kicks]);
+  }
+
+  /**
+   * The planner's squad check at one spot: each player's set-piece shares, goal-mouth cloud and
+   * mean-launch flight, in the order given (rank them with `rankSetPiece`).
+   */
+  setPieceRank(input: SetPieceRankInput): Observable<SetPieceRankEntry[]> {
+    return this.run('setPieceRank', [input]);
   }
 
   /** Fit a player's profile from logged repetitions of one technique. */

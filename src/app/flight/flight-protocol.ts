@@ -15,6 +15,7 @@ import {
   type SetPieceResult,
   type Technique,
 } from '../../../shared/flight';
+import { setPieceRank, type SetPieceRankEntry, type SetPieceRankInput } from './set-piece-rank';
 
 /**
  * The jobs the flight worker runs: each job's arguments and result. Both the worker and the main-thread
@@ -27,6 +28,10 @@ export interface FlightJobs {
   };
   setPiece: { args: [input: SetPieceInput]; result: SetPieceResult };
   simulate: { args: [kick: KickInput]; result: Flight };
+  /** Several kicks in one message (the sandbox's overlaid kicks), results in the same order. */
+  simulateKicks: { args: [kicks: KickInput[]]; result: Flight[] };
+  /** Every player's set-piece check, goal-mouth cloud and mean-launch flight at one spot. */
+  setPieceRank: { args: [input: SetPieceRankInput]; result: SetPieceRankEntry[] };
   fitProfile: { args: [kicks: LoggedKick[], prior?: ProfilePrior & { technique?: Technique }]; result: KickProfile };
 }
 
@@ -47,6 +52,11 @@ const JOBS: { [K in FlightJobKind]: (...args: FlightJobs[K]['args']) => FlightJo
   envelope: (profile, conditions, options) => reachEnvelope(profile, conditions, options),
   setPiece: (input) => setPieceCheck(input),
   simulate: (kick) => simulateKick(kick),
+  simulateKicks: (kicks) => {
+    if (!Array.isArray(kicks)) throw new RangeError('kicks must be an array');
+    return kicks.map((kick) => simulateKick(kick));
+  },
+  setPieceRank: (input) => setPieceRank(input),
   fitProfile: (kicks, prior) => fitProfile(kicks, prior),
 };
 

@@ -6,6 +6,7 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { Component, provideZonelessChangeDetection } from '@angular/core';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { MatButtonHarness } from '@angular/material/button/testing';
+import { MatDialogHarness } from '@angular/material/dialog/testing';
 import { MatNavListHarness } from '@angular/material/list/testing';
 import { MatMenuHarness } from '@angular/material/menu/testing';
 import { MatToolbarHarness } from '@angular/material/toolbar/testing';
@@ -14,6 +15,10 @@ import { of } from 'rxjs';
 import type { SessionUser } from '../../../shared/schemas/auth';
 import { AuthSession, SESSION_STORAGE_KEY } from '../core/auth-session';
 import { BROWSER_STORAGE, MemoryStorage } from '../core/browser-storage';
+import { LOFTLINE_DB, type LoftlineDb } from '../core/loftline-db';
+import { NAV_ITEMS, navItemsFor } from '../core/nav-items';
+import { freshDb, until } from '../core/spec-support';
+import { SyncQueue } from '../core/sync-queue';
 import { THEME_STORAGE_KEY } from '../core/theme-preference';
 import { AppShell } from './app-shell';
 
@@ -34,13 +39,46 @@ function fixedWidth(wide: boolean): Partial<BreakpointObserver> {
   return { observe: () => of(state), isMatched: () => wide };
 }
 
+/** Puts `count` unsent kick mutations of the coach into the outbox. */
+async function seedOutbox(db: LoftlineDb, count: number): Promise<void> {
+  for (let i = 0; i < count; i++) {
+    await db.outbox.add({
+      id: `6a0c1c3e-5a7e-4c44-9a8e-0d7e0c6f20${String(i).padStart(2, '0')}`,
+      seq: i + 1,
+      userId: coach.id,
+      entity: 'kick',
+      entityId: `6a0c1c3e-5a7e-4c44-9a8e-0d7e0c6f21${String(i).padStart(2, '0')}`,
+      sessionId: '6a0c1c3e-5a7e-4c44-9a8e-0d7e0c6f2200',
+      op: 'upsert',
+      data: {},
+      queuedAt: '2026-11-20T18:00:00.000Z',
+      state: 'pending',
+      revision: 0,
+      attempts: 0,
+    });
+  }
+}
+
 describe('AppShell', () => {
   let fixture: ComponentFixture<AppShell>;
   let loader: HarnessLoader;
   let backend: HttpTestingController;
   let storage: MemoryStorage;
+  let db: LoftlineDb;
 
-  async function open(wide: boolean): Promise<void> {
+  /** The sync queue starts with the shell and pulls once; answer it with no changes. */
+  async function answerPull(): Promise<void> {
+    await until('the first pull', () => {
+      const pulls = backend.match((r) => r.url === '/api/sync/pull');
+      pulls.forEach((r) => r.flush({ changes: [], cursor: 0, hasMore: false }));
+      return pulls.length > 0;
+    });
+  }
+
+  /** Opens the shell; `before` seeds the database (and then the spec answers the queue itself). */
+  async function open(wide: boolean, before?: (db: LoftlineDb) => Promise<void>): Promise<void> {
+    db = freshDb();
+    await before?.(db);
     storage = new MemoryStorage();
     storage.setItem(
       SESSION_STORAGE_KEY,
@@ -62,6 +100,7 @@ describe('AppShell', () => {
         ]),
         { provide: BROWSER_STORAGE, useValue: storage },
         { provide: BreakpointObserver, useValue: fixedWidth(wide) },
+        { provide: LOFTLINE_DB, useValue: db },
       ],
     });
     backend = TestBed.inject(HttpTestingController);
@@ -74,12 +113,17 @@ describe('AppShell', () => {
       playerId: null,
       childPlayerIds: [],
     });
+    if (!before) {
+      await answerPull();
+    }
     await fixture.whenStable();
   }
 
-  afterEach(() => {
+  afterEach(async () => {
     backend.verify();
     document.documentElement.removeAttribute('data-theme');
+    TestBed.resetTestingModule();
+    await db.delete();
   });
 
   it('shows product, club, user and role in the bar on a wide screen', async () => {
@@ -96,7 +140,9 @@ describe('AppShell', () => {
     await open(true);
     const nav = await loader.getHarness(MatNavListHarness);
     const items = await nav.getItems();
-    expect(await Promise.all(items.map((item) => item.getTitle()))).toEqual(['Home']);
+    const titles = await Promise.all(items.map((item) => item.getTitle()));
+    expect(titles).toEqual(navItemsFor('head_coach', NAV_ITEMS).map((item) => item.label));
+    expect(titles).toContain('Pitchside');
     expect(await items[0]?.getHref()).toBe('/home');
   });
 
@@ -108,6 +154,56 @@ describe('AppShell', () => {
 
     expect(TestBed.inject(AuthSession).isSignedIn()).toBeFalse();
     expect(TestBed.inject(Router).url).toBe('/sign-in');
+  });
+
+  it('warns before signing out with unsynced changes, and keeps them when the coach signs out anyway', async () => {
+    await open(true, (d) => seedOutbox(d, 2));
+    const queue = TestBed.inject(SyncQueue);
+    // The queue tries to send them; no signal.
+    await until('the push', () => {
+      const pushes = backend.match('/api/sync/push');
+      pushes.forEach((r) => r.error(new ProgressEvent('error')));
+      return pushes.length > 0;
+    });
+    await until('the count', () => queue.unsynced() === 2);
+
+    await (await loader.getHarness(MatButtonHarness.with({ text: /Sign out/ }))).click();
+    const root = TestbedHarnessEnvironment.documentRootLoader(fixture);
+    const dialog = await root.getHarness(MatDialogHarness);
+    expect(await dialog.getText()).toContain('2 changes are saved on this phone but not on the server');
+    await (await root.getHarness(MatButtonHarness.with({ text: 'Sign out, keep them' }))).click();
+    await until('the sign-out call', () => {
+      const calls = backend.match('/api/auth/logout');
+      calls.forEach((r) => r.flush(null, { status: 204, statusText: 'No Content' }));
+      return calls.length > 0;
+    });
+    await fixture.whenStable();
+
+    expect(TestBed.inject(AuthSession).isSignedIn()).toBeFalse();
+    expect(await db.outbox.count()).toBe(2);
+  });
+
+  it('stays signed in when the coach chooses to, and tries to sync again', async () => {
+    await open(true, (d) => seedOutbox(d, 1));
+    await until('the push', () => {
+      const pushes = backend.match('/api/sync/push');
+      pushes.forEach((r) => r.error(new ProgressEvent('error')));
+      return pushes.length > 0;
+    });
+    await until('the count', () => TestBed.inject(SyncQueue).unsynced() === 1);
+    await until('the bar mark', () => ((fixture.nativeElement as HTMLElement).textContent ?? '').includes('cloud_upload'));
+
+    await (await loader.getHarness(MatButtonHarness.with({ text: /Sign out/ }))).click();
+    const root = TestbedHarnessEnvironment.documentRootLoader(fixture);
+    await (await root.getHarness(MatButtonHarness.with({ text: 'Stay signed in' }))).click();
+    await until('another push', () => {
+      const pushes = backend.match('/api/sync/push');
+      pushes.forEach((r) => r.error(new ProgressEvent('error')));
+      return pushes.length > 0;
+    });
+
+    expect(TestBed.inject(AuthSession).isSignedIn()).toBeTrue();
+    backend.expectNone('/api/auth/logout');
   });
 
   it('toggles the theme and remembers the choice', async () => {

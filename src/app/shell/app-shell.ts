@@ -2,6 +2,7 @@ import { BreakpointObserver } from '@angular/cdk/layout';
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
+import { MatDialog } from '@angular/material/dialog';
 import { MatDividerModule } from '@angular/material/divider';
 import { MatIconModule } from '@angular/material/icon';
 import { MatListModule } from '@angular/material/list';
@@ -14,8 +15,10 @@ import { ROLE_LABELS } from '../../../shared/roles';
 import { AuthSession } from '../core/auth-session';
 import { NAV_ITEMS, navItemsFor } from '../core/nav-items';
 import { ProfileStore } from '../core/profile-store';
+import { SyncQueue } from '../core/sync-queue';
 import { ThemePreference } from '../core/theme-preference';
 import { LoftlineMark } from '../ui/loftline-mark';
+import { SignOutWarning, type SignOutWarningChoice, type SignOutWarningData } from './sign-out-warning';
 
 /** From this width on the navigation sits in a side nav; below it, in a bottom bar for thumbs. */
 export const WIDE_LAYOUT_QUERY = '(min-width: 840px)';
@@ -53,6 +56,9 @@ export class AppShell {
   private readonly session = inject(AuthSession);
   private readonly router = inject(Router);
   private readonly breakpoints = inject(BreakpointObserver);
+  private readonly dialog = inject(MatDialog);
+  /** Started here so the outbox syncs on open, on whichever page the app opens. */
+  private readonly sync = inject(SyncQueue);
 
   protected readonly theme = inject(ThemePreference);
   protected readonly user = this.session.user;
@@ -75,6 +81,17 @@ export class AppShell {
     const items = this.navItems();
     return items.length <= BOTTOM_BAR_SLOTS ? [] : items.slice(BOTTOM_BAR_SLOTS - 1);
   });
+  /** The bar's sync mark: shown while the server lacks changes or the phone is offline. */
+  protected readonly syncMark = computed(() => {
+    const unsynced = this.sync.unsynced();
+    const phase = this.sync.phase();
+    if (phase === 'signed_out' || (unsynced === 0 && phase !== 'offline')) {
+      return null;
+    }
+    const offline = phase === 'offline';
+    const label = `${offline ? 'Offline, ' : ''}${unsynced} ${unsynced === 1 ? 'change' : 'changes'} not synced`;
+    return { offline, unsynced, label };
+  });
   protected readonly themeToggleLabel = computed(() =>
     this.theme.isDark() ? 'Switch to light theme' : 'Switch to dark theme',
   );
@@ -85,6 +102,27 @@ export class AppShell {
   }
 
   protected signOut(): void {
+    const unsynced = this.sync.unsynced();
+    if (unsynced === 0) {
+      this.leave();
+      return;
+    }
+    // Signing out never deletes the outbox; the coach only has to know the changes wait here.
+    this.dialog
+      .open<SignOutWarning, SignOutWarningData, SignOutWarningChoice>(SignOutWarning, {
+        data: { unsynced, offline: this.sync.phase() === 'offline' },
+      })
+      .afterClosed()
+      .subscribe((choice) => {
+        if (choice === 'sign_out') {
+          this.leave();
+        } else {
+          this.sync.syncNow();
+        }
+      });
+  }
+
+  private leave(): void {
     this.session.signOut();
     void this.router.navigateByUrl('/sign-in');
   }

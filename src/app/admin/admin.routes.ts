@@ -1,0 +1,24 @@
+import { Routes } from '@angular/router';
+import { CapturedMail } from './captured-mail';
+import { ClubAdmin } from './club-admin';
+import { GuardianLinks } from './guardian-links';
+import { InviteForm } from './invite-form';
+import { OutboxView } from './outbox-view';
+
+/**
+ * Club admin's sections under `/admin`. The whole set is one lazy chunk (loaded from
+ * `app.routes.ts`), so only administrators ever download it.
+ */
+export const ADMIN_ROUTES: Routes = [
+  {
+    path: '',
+    component: ClubAdmin,
+    children: [
+      { path: '', pathMatch: 'full', redirectTo: 'guardians' },
+      { path: 'guardians', title: 'Guardians · Club admin · Loftline', component: GuardianLinks },
+      { path: 'invites', title: 'Invitations · Club admin · Loftline', component: InviteForm },
+      { path: 'outbox', title: 'Outbox · Club admin · Loftline', component: OutboxView },
+      { path: 'mail', title: 'Captured mail · Club admin · Loftline', component: CapturedMail },
+    ],
+  },
+];

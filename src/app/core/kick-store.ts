@@ -1,0 +1,130 @@
+import { Injectable, Signal, inject } from '@angular/core';
+import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { Dexie, liveQuery } from 'dexie';
+import { from, of, switchMap } from 'rxjs';
+import { kickDataSchema, type KickData } from '../../../shared/schemas/sync';
+import { AuthSession } from './auth-session';
+import { InvalidEntryError, validateEntry } from './entry-validation';
+import { LocalWrites } from './local-writes';
+import { type LocalKick, LOFTLINE_DB, newId } from './loftline-db';
+import { mutationData, recordChange } from './outbox';
+
+/** What Pitchside knows when a repetition is logged (the store adds id and time). */
+export type NewKick = Omit<KickData, 'id' | 'recordedAt' | 'updatedAt'>;
+
+/** Fields of a logged kick the coach may correct afterwards. */
+export type KickCorrection = Partial<
+  Pick<KickData, 'playerId' | 'outcome' | 'backspinStep' | 'sidespinStep' | 'carryM' | 'lateralM' | 'foot' | 'technique' | 'targetDistanceM' | 'targetRadiusM'>
+>;
+
+/**
+ * The repetitions of a session on this device. `log()` resolves only once the kick and its
+ * outbox mutation are committed together in IndexedDB — that is what "saved" means on
+ * Pitchside, signal or not. Corrections and voids are mutations of their own (a void is a
+ * tombstone the server keeps), so every change reaches the server exactly once and in order.
+ */
+@Injectable({ providedIn: 'root' })
+export class KickStore {
+  private readonly db = inject(LOFTLINE_DB);
+  private readonly session = inject(AuthSession);
+  private readonly writes = inject(LocalWrites);
+
+  /** Logs one repetition now. */
+  async log(input: NewKick): Promise<LocalKick> {
+    const userId = this.requireUser();
+    const now = new Date().toISOString();
+    const data = validateEntry(kickDataSchema, { ...input, id: newId(), recordedAt: now, updatedAt: now });
+    const row: LocalKick = { ...data, updatedAt: now, version: 0, deletedAt: null, recordedBy: userId };
+    await this.db.transaction('rw', [this.db.kicks, this.db.outbox], () =>
+      recordChange(this.db, { userId, entity: 'kick', row, op: 'upsert' }),
+    );
+    this.writes.announce('kick');
+    return row;
+  }
+
+  /** Corrects a logged kick. */
+  async edit(id: string, changes: KickCorrection): Promise<LocalKick> {
+    const userId = this.requireUser();
+    const row = await this.db.transaction('rw', [this.db.kicks, this.db.outbox], async () => {
+      const existing = await this.db.kicks.get(id);
+      if (!existing || existing.deletedAt) {
+        throw new InvalidEntryError('That repetition is not on this device any more', { id: 'Unknown kick' });
+      }
+      const data = validateEntry(kickDataSchema, { ...mutationData(existing), ...changes });
+      const next: LocalKick = { ...existing, ...data, updatedAt: existing.updatedAt };
+      await recordChange(this.db, { userId, entity: 'kick', row: next, op: 'upsert' });
+      return next;
+    });
+    this.writes.announce('kick');
+    return row;
+  }
+
+  /**
+   * Voids a kick. A kick the server never accepted (only rejected mutations, never applied)
+   * simply goes, with its rejected entries; any other becomes a tombstone sent to the server.
+   */
+  async void(id: string): Promise<void> {
+    const userId = this.requireUser();
+    await this.db.transaction('rw', [this.db.kicks, this.db.outbox], async () => {
+      const existing = await this.db.kicks.get(id);
+      if (!existing || existing.deletedAt) {
+        return;
+      }
+      const entries = await this.db.outbox.where('entityId').equals(id).toArray();
+      if (existing.version === 0 && entries.length > 0 && entries.every((e) => e.state === 'rejected')) {
+        await this.db.outbox.bulkDelete(entries.map((e) => e.id));
+        await this.db.kicks.delete(id);
+        return;
+      }
+      await recordChange(this.db, { userId, entity: 'kick', row: existing, op: 'delete' });
+    });
+    this.writes.announce('kick');
+  }
+
+  /** Voids the latest kick this user logged in the session; returns it, or null if there was none. */
+  async undoLast(sessionId: string): Promise<LocalKick | null> {
+    const userId = this.requireUser();
+    const latest = await this.db.kicks
+      .where('[sessionId+recordedAt]')
+      .between([sessionId, Dexie.minKey], [sessionId, Dexie.maxKey])
+      .reverse()
+      .filter((k) => !k.deletedAt && k.recordedBy === userId)
+      .first();
+    if (!latest) {
+      return null;
+    }
+    await this.void(latest.id);
+    return latest;
+  }
+
+  /** The session's kicks that are not voided, newest first, live. */
+  liveKicks(sessionId: Signal<string | null>): Signal<LocalKick[] | undefined> {
+    return toSignal(
+      toObservable(sessionId).pipe(
+        switchMap((id) =>
+          id === null
+            ? of([])
+            : from(
+                liveQuery(() =>
+                  this.db.kicks
+                    .where('[sessionId+recordedAt]')
+                    .between([id, Dexie.minKey], [id, Dexie.maxKey])
+                    .reverse()
+                    .filter((k) => !k.deletedAt)
+                    .toArray(),
+                ),
+              ),
+        ),
+      ),
+      { initialValue: undefined },
+    );
+  }
+
+  private requireUser(): string {
+    const id = this.session.user()?.id;
+    if (!id) {
+      throw new InvalidEntryError('Sign in to log repetitions', { user: 'Signed out' });
+    }
+    return id;
+  }
+}

@@ -1,0 +1,69 @@
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal, viewChild } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { RouterLink } from '@angular/router';
+import { RosterStore } from '../core/roster-store';
+import { SessionStore } from '../core/session-store';
+import { SyncQueue } from '../core/sync-queue';
+import { KickLogger } from './kick-logger';
+import { windLabel } from './pitchside-labels';
+import { SessionStart } from './session-start';
+import { SyncBadge } from './sync-badge';
+import { SyncPanel } from './sync-panel';
+
+/**
+ * Pitchside (`/pitchside`, `/pitchside/:sessionId`): the screen a coach holds in one hand during
+ * training. Without a session id it starts or resumes a session; with one it logs repetitions.
+ * Everything it shows comes from IndexedDB, so it opens and works with no signal; the bar at
+ * the top always says whether the phone is online and how many entries the server lacks.
+ */
+@Component({
+  selector: 'll-pitchside',
+  imports: [MatButtonModule, MatProgressBarModule, RouterLink, KickLogger, SessionStart, SyncBadge, SyncPanel],
+  templateUrl: './pitchside.html',
+  styleUrl: './pitchside.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class Pitchside {
+  private readonly roster = inject(RosterStore);
+
+  /** The session to log, from the route (`:sessionId`); absent on the start page. */
+  readonly sessionId = input<string | undefined>(undefined);
+
+  private readonly id = computed(() => this.sessionId() ?? null);
+  private readonly logger = viewChild(KickLogger);
+
+  protected readonly session = inject(SessionStore).liveSession(this.id);
+  protected readonly panelOpen = signal(false);
+  protected readonly players = this.roster.livePlayers(computed(() => this.session()?.squadId ?? null));
+
+  /** The bar's summary, e.g. "U16 · Tue 18:30 · 12 °C · headwind light". */
+  protected readonly summary = computed(() => {
+    const session = this.session();
+    if (!session) {
+      return 'Pitchside';
+    }
+    const squad = this.roster.squads()?.find((s) => s.id === session.squadId);
+    const started = new Date(session.startedAt).toLocaleString([], { weekday: 'short', hour: '2-digit', minute: '2-digit' });
+    const parts = [squad?.name ?? 'Session', started];
+    if (session.temperatureC !== null && session.temperatureC !== undefined) {
+      parts.push(`${session.temperatureC} °C`);
+    }
+    const wind = windLabel(session.windSpeedMs, session.windFromDeg);
+    if (wind) {
+      parts.push(wind);
+    }
+    parts.push(`ball ${session.ballSize}`);
+    return parts.join(' · ');
+  });
+
+  constructor() {
+    // Opening Pitchside is a good moment to sync: the coach is about to rely on the data.
+    inject(SyncQueue).syncNow();
+  }
+
+  protected fixKick(kickId: string): void {
+    this.panelOpen.set(false);
+    this.logger()?.openEntry(kickId);
+  }
+}

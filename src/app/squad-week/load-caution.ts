@@ -1,0 +1,68 @@
+import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { MatIconModule } from '@angular/material/icon';
+import type { SquadWeekPlayer } from '../../../shared/schemas/analysis';
+
+const DAY = new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short' });
+
+/** One player's sessions over the limit in words, e.g. "Bo Adeyemi (46 on Tue 4 Mar)". */
+export function loadLine(player: Pick<SquadWeekPlayer, 'displayName' | 'loadFlags'>): string {
+  const sessions = player.loadFlags.map((f) => `${f.reps} on ${DAY.format(new Date(f.startedAt))}`).join(', ');
+  return `${player.displayName} (${sessions})`;
+}
+
+/**
+ * The kicking-load caution of Squad week (DESIGN §10): which players passed the club's repetition
+ * limit in a session this week. Repeated hard kicking strains hips and groin; Loftline only counts,
+ * and leaves rest and load to the club's medical staff.
+ */
+@Component({
+  selector: 'll-load-caution',
+  imports: [MatIconModule],
+  template: `
+    @if (flagged().length > 0) {
+      <mat-icon aria-hidden="true">warning</mat-icon>
+      <div>
+        <p class="load-caution__title">Kicking load</p>
+        <p>
+          {{ flagged().length === 1 ? 'One player' : flagged().length + ' players' }} passed {{ limit() }} repetitions in a
+          session this week: {{ lines() }}.
+        </p>
+        <p>Repeated hard kicking strains hips and groin. Defer to the club's medical staff on rest and load.</p>
+      </div>
+    }
+  `,
+  styles: `
+    :host {
+      display: flex;
+      gap: 12px;
+      align-items: flex-start;
+    }
+    :host(.load-caution--shown) {
+      padding: 12px 16px;
+      margin-bottom: 16px;
+      border-radius: var(--mat-sys-corner-medium);
+      background: var(--mat-sys-tertiary-container);
+      color: var(--mat-sys-on-tertiary-container);
+    }
+    mat-icon {
+      flex: none;
+    }
+    p {
+      margin: 0 0 4px;
+    }
+    .load-caution__title {
+      font: var(--mat-sys-title-small);
+    }
+  `,
+  host: { '[class.load-caution--shown]': 'flagged().length > 0', '[attr.role]': "flagged().length > 0 ? 'note' : null" },
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class LoadCaution {
+  /** The week's players. */
+  readonly players = input.required<readonly SquadWeekPlayer[]>();
+  /** The club's repetition limit per session. */
+  readonly limit = input.required<number>();
+
+  protected readonly flagged = computed(() => this.players().filter((p) => p.loadFlags.length > 0));
+  protected readonly lines = computed(() => this.flagged().map(loadLine).join('; '));
+}

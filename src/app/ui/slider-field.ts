@@ -1,0 +1,154 @@
+import { ChangeDetectionStrategy, Component, DestroyRef, forwardRef, inject, input } from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { debounceTime } from 'rxjs';
+import {
+  type AbstractControl,
+  type ControlValueAccessor,
+  FormControl,
+  NG_VALUE_ACCESSOR,
+  ReactiveFormsModule,
+  type ValidationErrors,
+} from '@angular/forms';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { MatSliderModule } from '@angular/material/slider';
+import type { ErrorStateMatcher } from '@angular/material/core';
+
+let nextId = 0;
+
+/** How long typing must pause before a typed number applies, ms. */
+const TYPING_PAUSE_MS = 350;
+
+/**
+ * One number edited two ways: a slider for quick what-ifs with a thumb, and a number field for an exact
+ * value (typed values may go beyond the slider's usual range, up to `min`/`max`). A form control of its
+ * own (ControlValueAccessor) so a screen's reactive form holds plain numbers. It passes a typed value on
+ * only when it is a number in range, so the form never sees a half-typed or impossible value; the field
+ * shows why instead.
+ */
+@Component({
+  selector: 'll-slider-field',
+  imports: [MatFormFieldModule, MatInputModule, MatSliderModule, ReactiveFormsModule],
+  template: `
+    <mat-slider [min]="sliderMin()" [max]="sliderMax()" [step]="step()" class="slider-field__slider">
+      <input matSliderThumb [formControl]="slider" [attr.aria-label]="label() + ', ' + unit()" (blur)="touched()" />
+    </mat-slider>
+    <mat-form-field class="slider-field__number" subscriptSizing="dynamic">
+      <mat-label>{{ label() }}</mat-label>
+      <input matInput type="number" inputmode="decimal" [id]="inputId" [formControl]="typed" [errorStateMatcher]="whileTyping" [step]="step()" [min]="min()" [max]="max()" (blur)="commitTyped(); touched()" (keydown.enter)="commitTyped()" />
+      <span matTextSuffix>{{ unit() }}</span>
+      @if (typed.invalid) {
+        <mat-error>{{ min() }} to {{ max() }} {{ unit() }}</mat-error>
+      } @else if (hint()) {
+        <mat-hint>{{ hint() }}</mat-hint>
+      }
+    </mat-form-field>
+  `,
+  styles: `
+    :host {
+      display: grid;
+      grid-template-columns: minmax(0, 1fr) 8.5rem;
+      align-items: center;
+      column-gap: 8px;
+    }
+    .slider-field__slider {
+      min-width: 0;
+      margin-inline: 8px 0;
+    }
+    .slider-field__number {
+      width: 100%;
+    }
+  `,
+  providers: [{ provide: NG_VALUE_ACCESSOR, useExisting: forwardRef(() => SliderField), multi: true }],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class SliderField implements ControlValueAccessor {
+  /** Name of the value, e.g. "Speed". */
+  readonly label = input.required<string>();
+  /** Unit shown after the number, e.g. "m/s". */
+  readonly unit = input.required<string>();
+  /** The slider's range (where nearly every real value lies). */
+  readonly sliderMin = input.required<number>();
+  readonly sliderMax = input.required<number>();
+  /** The range a typed value may use. */
+  readonly min = input.required<number>();
+  readonly max = input.required<number>();
+  readonly step = input(1);
+  /** A short note under the number, e.g. what the sign means. */
+  readonly hint = input<string | undefined>(undefined);
+
+  protected readonly inputId = `ll-slider-field-${nextId++}`;
+  protected readonly slider = new FormControl(0, { nonNullable: true });
+  protected readonly typed = new FormControl<number | null>(null, (c) => this.checkTyped(c));
+
+  /** Shows a range error as soon as the number is edited, not only after leaving the field. */
+  protected readonly whileTyping: ErrorStateMatcher = { isErrorState: (control) => !!control && control.invalid && control.dirty };
+
+  private changed: (value: number) => void = () => undefined;
+  private lastValue: number | null = null;
+  private touchedFn: () => void = () => undefined;
+
+  constructor() {
+    const destroyRef = inject(DestroyRef);
+    this.slider.valueChanges.pipe(takeUntilDestroyed(destroyRef)).subscribe((value) => {
+      this.typed.setValue(value, { emitEvent: false });
+      this.emit(value);
+    });
+    // A typed number applies once the typing pauses (or on Enter / leaving the field), so "35" does not
+    // first compute a kick at 3 m/s.
+    this.typed.valueChanges.pipe(debounceTime(TYPING_PAUSE_MS), takeUntilDestroyed(destroyRef)).subscribe(() => this.commitTyped());
+  }
+
+  /** Pass the typed number on if it is valid and new. */
+  protected commitTyped(): void {
+    const value = this.typed.value;
+    if (value === null || this.typed.invalid || value === this.lastValue) return;
+    this.slider.setValue(this.clampToSlider(value), { emitEvent: false });
+    this.emit(value);
+  }
+
+  /** @inheritdoc */
+  writeValue(value: unknown): void {
+    const n = typeof value === 'number' && Number.isFinite(value) ? value : this.min();
+    this.slider.setValue(this.clampToSlider(n), { emitEvent: false });
+    this.typed.setValue(n, { emitEvent: false });
+    this.lastValue = n;
+  }
+
+  /** @inheritdoc */
+  registerOnChange(fn: (value: number) => void): void {
+    this.changed = fn;
+  }
+
+  /** @inheritdoc */
+  registerOnTouched(fn: () => void): void {
+    this.touchedFn = fn;
+  }
+
+  /** @inheritdoc */
+  setDisabledState(disabled: boolean): void {
+    for (const control of [this.slider, this.typed]) {
+      if (disabled) control.disable({ emitEvent: false });
+      else control.enable({ emitEvent: false });
+    }
+  }
+
+  protected touched(): void {
+    this.touchedFn();
+  }
+
+  private emit(value: number): void {
+    this.lastValue = value;
+    this.changed(value);
+  }
+
+  private clampToSlider(value: number): number {
+    return Math.min(this.sliderMax(), Math.max(this.sliderMin(), value));
+  }
+
+  private checkTyped(control: AbstractControl): ValidationErrors | null {
+    const value: unknown = control.value;
+    if (typeof value !== 'number' || !Number.isFinite(value)) return { required: true };
+    return value < this.min() || value > this.max() ? { range: true } : null;
+  }
+}
