@@ -112,6 +112,16 @@ export interface SyncStateRow {
   lastPulledAt: string | null;
 }
 
+/** A cached analysis answer (envelopes, profiles, progress, planner results) so screens open offline. */
+export interface AnalysisCacheEntry {
+  /** Caller-chosen key, e.g. `profile:<userId>:<playerId>:lofted`. */
+  key: string;
+  /** What the entry holds, so a kind can be cleared at once. */
+  kind: string;
+  value: unknown;
+  updatedAt: string;
+}
+
 /** The IndexedDB name in production (specs pass their own so each test starts empty). */
 export const LOFTLINE_DB_NAME = 'loftline';
 
@@ -136,6 +146,8 @@ export class LoftlineDb extends Dexie {
   conflicts!: EntityTable<ConflictNotice, 'id'>;
   /** Pull cursor per user. */
   syncState!: EntityTable<SyncStateRow, 'userId'>;
+  /** Local-only cache of analysis answers (never synced; safe to clear). */
+  analysisCache!: EntityTable<AnalysisCacheEntry, 'key'>;
 
   constructor(name: string = LOFTLINE_DB_NAME) {
     super(name);
@@ -148,6 +160,9 @@ export class LoftlineDb extends Dexie {
       outbox: 'id, seq, entityId, sessionId, [userId+seq], [userId+state]',
       conflicts: 'id, userId, entityId',
       syncState: 'userId',
+    });
+    this.version(2).stores({
+      analysisCache: 'key, kind, updatedAt',
     });
   }
 }

@@ -1,5 +1,6 @@
 import { HttpErrorResponse } from '@angular/common/http';
-import { InjectionToken } from '@angular/core';
+import { InjectionToken, inject } from '@angular/core';
+import { AnalysisCache } from '../core/analysis-cache';
 import { Observable, catchError, from, map, switchMap, tap, throwError } from 'rxjs';
 
 /** What kind of answer a cache entry holds (so the cache can be cleared by kind). */
@@ -27,8 +28,8 @@ interface StoredAnswer<T> {
 }
 
 /**
- * A cache that keeps answers only while the page is open. The default until the app-wide
- * IndexedDB cache is wired in, and what specs use when they do not care about persistence.
+ * A cache that keeps answers only while the page is open: what specs use when they do not care
+ * about persistence (the app itself uses the IndexedDB-backed AnalysisCache).
  */
 export class MemoryAnswerStore implements AnswerStore {
   private readonly entries = new Map<string, { kind: AnswerKind; value: unknown }>();
@@ -51,7 +52,7 @@ export class MemoryAnswerStore implements AnswerStore {
 /** Where the Player file and Squad week keep their last answers so they open offline. */
 export const ANSWER_STORE = new InjectionToken<AnswerStore>('ANSWER_STORE', {
   providedIn: 'root',
-  factory: () => new MemoryAnswerStore(),
+  factory: () => inject(AnalysisCache),
 });
 
 /**
