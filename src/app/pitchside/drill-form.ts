@@ -1,5 +1,6 @@
 import { ChangeDetectionStrategy, Component, OnInit, inject, input, output, signal } from '@angular/core';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { DrillSuggestion } from '../core/drill-suggestion';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -21,7 +22,7 @@ import { TECHNIQUE_LABELS, TECHNIQUE_ORDER, backspinLabel, sidespinLabel } from 
   imports: [ReactiveFormsModule, MatButtonModule, MatButtonToggleModule, MatFormFieldModule, MatInputModule, StepControl],
   template: `
     <form [formGroup]="form" (ngSubmit)="submit()" class="drill-form">
-      <h2 class="drill-form__title">{{ previous() ? 'Next drill' : 'First drill' }}</h2>
+      <h2 class="drill-form__title">{{ suggested() ? 'Suggested drill (from Next targets)' : previous() ? 'Next drill' : 'First drill' }}</h2>
       <mat-button-toggle-group formControlName="technique" aria-label="Technique" class="drill-form__techniques" hideSingleSelectionIndicator>
         @for (technique of techniques; track technique) {
           <mat-button-toggle [value]="technique">{{ techniqueLabels[technique] }}</mat-button-toggle>
@@ -120,9 +121,19 @@ export class DrillForm implements OnInit {
     label: ['', zodValidator(drillDataSchema.shape.label)],
   });
 
+  private readonly suggestion = inject(DrillSuggestion);
+  /** Whether the form was prefilled from a Next-targets suggestion. */
+  protected readonly suggested = signal(false);
+
   ngOnInit(): void {
     const previous = this.previous();
-    if (previous) {
+    const suggested = this.suggestion.pending();
+    if (suggested) {
+      this.form.patchValue({ technique: suggested.technique, targetDistanceM: suggested.targetDistanceM, targetRadiusM: suggested.targetRadiusM, label: 'Next target' });
+      this.backspinStep.set(previous?.backspinStep ?? 0);
+      this.sidespinStep.set(previous?.sidespinStep ?? 0);
+      this.suggested.set(true);
+    } else if (previous) {
       this.form.patchValue({
         technique: previous.technique,
         targetDistanceM: previous.targetDistanceM,
@@ -139,6 +150,7 @@ export class DrillForm implements OnInit {
       return;
     }
     const value = this.form.getRawValue();
+    if (this.suggested()) this.suggestion.clear();
     this.submitted.emit({
       technique: value.technique,
       targetDistanceM: Number(value.targetDistanceM),

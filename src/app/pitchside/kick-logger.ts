@@ -5,6 +5,7 @@ import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
+import { DrillSuggestion } from '../core/drill-suggestion';
 import { Router } from '@angular/router';
 import { kickDataSchema, type Outcome } from '../../../shared/schemas/sync';
 import { KickStore } from '../core/kick-store';
@@ -66,7 +67,8 @@ export class KickLogger {
   protected readonly limit = DEFAULT_REP_LIMIT_PER_SESSION;
 
   protected readonly chosenDrillId = signal<string | null>(null);
-  protected readonly drillPickerOpen = signal(false);
+  /** Open when a Next-targets suggestion is waiting, so adding it is one tap. */
+  protected readonly drillPickerOpen = signal(inject(DrillSuggestion).pending() !== null);
   protected readonly selectedPlayerId = signal<string | null>(null);
   protected readonly backspinStep = signal(0);
   protected readonly sidespinStep = signal(0);

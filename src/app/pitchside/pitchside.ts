@@ -1,7 +1,8 @@
-import { ChangeDetectionStrategy, Component, computed, inject, input, signal, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal, viewChild } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
+import { DrillSuggestion } from '../core/drill-suggestion';
 import { RosterStore } from '../core/roster-store';
 import { SessionStore } from '../core/session-store';
 import { SyncQueue } from '../core/sync-queue';
@@ -29,6 +30,12 @@ export class Pitchside {
 
   /** The session to log, from the route (`:sessionId`); absent on the start page. */
   readonly sessionId = input<string | undefined>(undefined);
+  /** A drill suggested by Next targets (query parameters), added with one tap in the drill form. */
+  readonly drillTechnique = input<string | undefined>(undefined);
+  readonly drillTargetM = input<string | undefined>(undefined);
+  readonly drillRadiusM = input<string | undefined>(undefined);
+
+  protected readonly suggestion = inject(DrillSuggestion);
 
   private readonly id = computed(() => this.sessionId() ?? null);
   private readonly logger = viewChild(KickLogger);
@@ -60,6 +67,7 @@ export class Pitchside {
   constructor() {
     // Opening Pitchside is a good moment to sync: the coach is about to rely on the data.
     inject(SyncQueue).syncNow();
+    effect(() => this.suggestion.offer(this.drillTechnique(), this.drillTargetM(), this.drillRadiusM()));
   }
 
   protected fixKick(kickId: string): void {
