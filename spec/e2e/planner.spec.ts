@@ -140,6 +140,36 @@ describe('set-piece planner (end to end, Chromium)', () => {
     }
   }, 240_000);
 
+  it('reopens on the last spot with the kept ranking when the server cannot be reached', async () => {
+    const offlineServer = await startE2eServer();
+    const { context, close } = await launchContext();
+    try {
+      const page = await context.newPage();
+      await openPlanner(page, offlineServer);
+      // The service worker must control the page so the shell loads without the server.
+      await page.evaluate(async () => {
+        await navigator.serviceWorker.ready;
+      });
+      // Every profile in and the ranking settled, then a second's rest: the ranking is kept.
+      await page.waitForFunction(() => !document.body.textContent?.includes('still computing') && !document.querySelector('mat-progress-bar'), undefined, {
+        timeout: 120_000,
+      });
+      const online = await page.locator('table tbody tr').allInnerTexts();
+      await page.waitForTimeout(2500);
+      await offlineServer.stop();
+      await context.setOffline(true);
+      await page.reload();
+      await page.getByRole('heading', { name: 'Set-piece planner' }).waitFor({ timeout: 30_000 });
+      await page.getByText('Ranking kept on this device').waitFor({ timeout: 30_000 });
+      expect(await page.locator('table tbody tr').allInnerTexts()).toEqual(online);
+      expect(await page.locator('g.ll-goal-mouth__cloud path').count()).toBeGreaterThan(0);
+      await page.screenshot({ path: join(SHOTS, 'planner-offline.png') });
+    } finally {
+      await close();
+      offlineServer.cleanup();
+    }
+  }, 240_000);
+
   it('opens the Flight sandbox from a permalink with two kicks overlaid in both views', async () => {
     const { context, close } = await launchContext({ width: 360, height: 740 });
     try {

@@ -12,5 +12,5 @@ export interface PlannerCache {
   put<T>(key: string, kind: string, value: T): Promise<void>;
 }
 
-/** The planner's offline cache. */
+/** The planner's offline cache (the planner screen provides the app's `AnalysisCache` under it). */
 export const PLANNER_CACHE = new InjectionToken<PlannerCache>('PLANNER_CACHE');

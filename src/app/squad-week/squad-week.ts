@@ -1,3 +1,5 @@
+import { DigestRun } from '../admin/digest-run';
+import { AuthSession } from '../core/auth-session';
 import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
@@ -45,6 +47,7 @@ const NO_TARGETS: NextTargets = { byPlayer: new Map(), otherwise: { status: 'com
     MatSelectModule,
     MatSlideToggleModule,
     CalibrationChart,
+    DigestRun,
     LoadCaution,
     LoadFailure,
     SquadWeekTable,
@@ -56,6 +59,9 @@ const NO_TARGETS: NextTargets = { byPlayer: new Map(), otherwise: { status: 'com
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SquadWeek {
+  /** Whether the signed-in user may send the weekly digests now (admins and head coaches). */
+  private readonly auth = inject(AuthSession);
+  protected readonly canSendDigests = computed(() => ['admin', 'head_coach'].includes(this.auth.role() ?? ''));
   private readonly api = inject(SquadWeekApi);
   private readonly targets = inject(SquadNextTargets);
   private readonly router = inject(Router);
