@@ -131,6 +131,30 @@ describe('Family digest over SMTP', () => {
   });
 });
 
+describe('digests about adult players', () => {
+  let t: MailTestApp;
+  afterAll(() => t.close());
+
+  it('sends none about a player over 18 until the player opts in themselves', async () => {
+    t = await createMailTestApp();
+    const adult = t.db.select({ p: players, u: users }).from(players).innerJoin(users, eq(users.id, players.userId)).all().find((r) => r.u.email !== DEMO_ACCOUNTS.player && r.u.role === 'player')!;
+    expect(adultOn(adult.p.birthDate, LAST_WEEK)).toBeTrue();
+    const guardian = t.db.select().from(users).where(eq(users.email, DEMO_ACCOUNTS.guardian)).get()!;
+    t.db.insert(guardianLinks).values({ id: '00000000-0000-4000-8000-0000000000e1', guardianUserId: guardian.id, playerId: adult.p.id, consentAt: '2026-11-01T10:00:00.000Z', consentRecordedBy: guardian.id, consentTextVersion: CONSENT_TEXT.version, digestOptIn: true }).run();
+    const aboutAdult = () => t.db.select().from(mailOutbox).all().filter((m) => m.dedupeKey.startsWith('family_digest:00000000-0000-4000-8000-0000000000e1'));
+    await t.digests.run({ clubId: guardian.clubId, weekStart: LAST_WEEK });
+    expect(aboutAdult().length).toBe(0);
+    const player = await signIn(t.app, adult.u.email);
+    expect((await request(t.app).get('/api/me/digest-opt-in').set('Authorization', `Bearer ${player.accessToken}`)).body).toEqual({ optIn: false });
+    const bad = await request(t.app).put('/api/me/digest-opt-in').set('Authorization', `Bearer ${player.accessToken}`).send({ optIn: 'yes' });
+    expect(bad.status).toBe(400);
+    expect((await request(t.app).put('/api/me/digest-opt-in').set('Authorization', `Bearer ${player.accessToken}`).send({ optIn: true })).body).toEqual({ optIn: true });
+    const nextWeek = new Date(Date.parse(LAST_WEEK) + 7 * 86_400_000).toISOString().slice(0, 10);
+    await t.digests.run({ clubId: guardian.clubId, weekStart: nextWeek });
+    expect(aboutAdult().length).toBe(1);
+  }, 60_000);
+});
+
 describe('consent and digest opt-in', () => {
   let t: MailTestApp;
   let guardian: string;

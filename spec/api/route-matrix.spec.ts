@@ -26,6 +26,8 @@ const MATRIX: Record<string, Who[] | 'public'> = {
   'POST /api/auth/reset-password': 'public',
   'POST /api/digests/unsubscribe': 'public',
   'GET /api/me': ALL,
+  'GET /api/me/digest-opt-in': ['player'],
+  'PUT /api/me/digest-opt-in': ['player'],
   'GET /api/squads': ALL,
   'GET /api/squads/:id/week': STAFF,
   'GET /api/squads/:id/profiles': STAFF,

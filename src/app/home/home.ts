@@ -1,3 +1,4 @@
+import { DigestSelfOptIn } from './digest-self-opt-in';
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { MatCardModule } from '@angular/material/card';
@@ -25,7 +26,7 @@ type HomeList =
  */
 @Component({
   selector: 'll-home',
-  imports: [MatCardModule, MatIconModule, MatProgressBarModule, LoadFailure],
+  imports: [MatCardModule, MatIconModule, MatProgressBarModule, LoadFailure, DigestSelfOptIn],
   templateUrl: './home.html',
   styleUrl: './home.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
