@@ -1,3 +1,4 @@
+import { signInThroughUi } from './support/sign-in';
 /**
  * Player file and Squad week end to end: a real server with the demo scenario, the production
  * build, Chromium. The head coach reviews the demo's last week; a player opens their own file
@@ -17,14 +18,7 @@ const HEAD_COACH = 'head.coach@kestrel-vale.test';
 const PLAYER = 'player@kestrel-vale.test';
 const SHOTS = join(tmpdir(), 'loftline-e2e-analysis');
 
-async function signIn(page: Page, baseUrl: string, email: string): Promise<void> {
-  await page.goto(baseUrl + '/');
-  await page.waitForURL(/\/sign-in/);
-  await page.getByLabel('E-mail', { exact: true }).fill(email);
-  await page.getByLabel('Password', { exact: true }).fill(PASSWORD);
-  await page.getByRole('button', { name: /sign in/i }).click();
-  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
-}
+const signIn = signInThroughUi;
 
 /** Signs in through the API and returns the access token (for looking up ids the spec needs). */
 async function apiToken(baseUrl: string, email: string): Promise<string> {

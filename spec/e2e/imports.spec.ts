@@ -1,3 +1,4 @@
+import { signInThroughUi } from './support/sign-in';
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
@@ -8,14 +9,7 @@ import { startE2eServer, type E2eServer } from './support/server';
 const PASSWORD = 'loftline-demo';
 const FIXTURES = resolve('spec/e2e/fixtures');
 
-async function signIn(page: Page, baseUrl: string, email: string): Promise<void> {
-  await page.goto(baseUrl + '/');
-  await page.waitForURL(/\/sign-in/);
-  await page.getByLabel('E-mail', { exact: true }).fill(email);
-  await page.getByLabel('Password', { exact: true }).fill(PASSWORD);
-  await page.getByRole('button', { name: /sign in/i }).click();
-  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
-}
+const signIn = signInThroughUi;
 
 async function choose(page: Page, combobox: string, option: string): Promise<void> {
   await page.getByRole('combobox', { name: combobox }).click();

@@ -1,3 +1,4 @@
+import { signInThroughUi } from './support/sign-in';
 /**
  * Set-piece planner and Flight sandbox end to end: the head coach signs in on the production build
  * against a real server, opens the planner, waits for the squad's ranking (the server may still be
@@ -15,14 +16,7 @@ const PASSWORD = 'loftline-demo';
 const HEAD_COACH = 'head.coach@kestrel-vale.test';
 const SHOTS = join(tmpdir(), 'loftline-e2e-shots');
 
-async function signIn(page: Page, baseUrl: string, email: string): Promise<void> {
-  await page.goto(baseUrl + '/');
-  await page.waitForURL(/\/sign-in/);
-  await page.getByLabel('E-mail', { exact: true }).fill(email);
-  await page.getByLabel('Password', { exact: true }).fill(PASSWORD);
-  await page.getByRole('button', { name: /sign in/i }).click();
-  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
-}
+const signIn = signInThroughUi;
 
 /**
  * Screenshot an element and count the distinct colours in it (decoded by the browser itself), so

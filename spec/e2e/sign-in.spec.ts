@@ -1,17 +1,11 @@
+import { signInThroughUi } from './support/sign-in';
 import type { Page } from 'playwright-core';
 import { launchContext } from './support/browser';
 import { startE2eServer, type E2eServer } from './support/server';
 
 const PASSWORD = 'loftline-demo';
 
-async function signIn(page: Page, baseUrl: string, email: string): Promise<void> {
-  await page.goto(baseUrl + '/');
-  await page.waitForURL(/\/sign-in/);
-  await page.getByLabel('E-mail', { exact: true }).fill(email);
-  await page.getByLabel('Password', { exact: true }).fill(PASSWORD);
-  await page.getByRole('button', { name: /sign in/i }).click();
-  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
-}
+const signIn = signInThroughUi;
 
 describe('signing in (end to end, Chromium)', () => {
   let server: E2eServer;
