@@ -17,9 +17,10 @@ describe('navItemsFor', () => {
     expect(navItemsFor(null)).toEqual([]);
   });
 
-  it('offers Home to every role', () => {
-    for (const role of ['admin', 'head_coach', 'assistant_coach', 'player', 'guardian'] as const) {
+  it('offers Home to every role but the guardian, whose home is Guardian home', () => {
+    for (const role of ['admin', 'head_coach', 'assistant_coach', 'player'] as const) {
       expect(navItemsFor(role, NAV_ITEMS).map((item) => item.path)).toContain('/home');
     }
+    expect(navItemsFor('guardian', NAV_ITEMS).map((item) => item.path)).toEqual(['/guardian']);
   });
 });

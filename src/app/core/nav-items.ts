@@ -18,7 +18,8 @@ export interface NavItem {
  * wide screens and in the bottom bar on a phone.
  */
 export const NAV_ITEMS: readonly NavItem[] = [
-  { path: '/home', label: 'Home', icon: 'home', roles: ROLES },
+  // A guardian's home is Guardian home (Home redirects there), so they get one entry, not two.
+  { path: '/home', label: 'Home', icon: 'home', roles: ROLES.filter((r) => r !== 'guardian') },
   { path: '/pitchside', label: 'Pitchside', icon: 'sports_soccer', roles: STAFF_ROLES },
   { path: '/planner', label: 'Set-piece planner', icon: 'strategy', roles: STAFF_ROLES },
   { path: '/sandbox', label: 'Flight sandbox', icon: 'science', roles: [...STAFF_ROLES, 'player'] },
