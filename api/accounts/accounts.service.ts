@@ -2,6 +2,7 @@
  * Invites, invitation acceptance and password reset. Responses never reveal whether an
  * e-mail has an account (the forgot-password answer is always the same).
  */
+import { audit } from '../audit';
 import bcrypt from 'bcryptjs';
 import { randomUUID } from 'node:crypto';
 import { and, eq, inArray } from 'drizzle-orm';
@@ -9,7 +10,7 @@ import type { InviteRequest } from '../../shared/schemas/mail';
 import type { AuthUser } from '../auth/passport';
 import type { AppConfig } from '../config';
 import type { Db } from '../db/client';
-import { auditLog, clubs, guardianLinks, players, squads, squadStaff, users } from '../db/schema';
+import { clubs, guardianLinks, players, squads, squadStaff, users } from '../db/schema';
 import { Invalid, NotFound } from '../errors';
 import { inviteMail, resetMail } from '../mail/templates';
 import type { Mailer } from '../mail/mailer';
@@ -52,7 +53,7 @@ export class AccountsService {
       const club = this.db.select({ name: clubs.name }).from(clubs).where(eq(clubs.id, admin.clubId)).get();
       const mail = inviteMail({ name: req.displayName, clubName: club?.name ?? 'your club', inviter: admin.displayName, link: `${this.config.publicUrl}/accept-invite?token=${token}` });
       this.mailer.queue({ clubId: admin.clubId, kind: 'invite', dedupeKey: `invite:${userId}:${now}`, to: req.email, ...mail });
-      this.db.insert(auditLog).values({ id: randomUUID(), clubId: admin.clubId, userId: admin.id, action: 'invite.created', entity: 'user', entityId: userId, detailJson: JSON.stringify({ role: req.role }) }).run();
+      audit(this.db, { clubId: admin.clubId, userId: admin.id, action: 'invite.created', entity: 'user', entityId: userId, detail: { role: req.role } });
       return { userId, email: req.email, expiresAt };
     });
     void this.mailer.flush();
@@ -75,7 +76,7 @@ export class AccountsService {
       const { id, userId } = checkAccountToken(this.db, token, 'invite');
       consumeAccountToken(this.db, id);
       this.db.update(users).set({ passwordHash: hash, updatedAt: new Date().toISOString() }).where(eq(users.id, userId)).run();
-      this.db.insert(auditLog).values({ id: randomUUID(), userId, action: 'invite.accepted', entity: 'user', entityId: userId }).run();
+      audit(this.db, { userId, action: 'invite.accepted', entity: 'user', entityId: userId });
       return userId;
     });
   }
@@ -98,7 +99,7 @@ export class AccountsService {
       const { id, userId } = checkAccountToken(this.db, token, 'reset');
       consumeAccountToken(this.db, id);
       this.db.update(users).set({ passwordHash: hash, updatedAt: new Date().toISOString() }).where(eq(users.id, userId)).run();
-      this.db.insert(auditLog).values({ id: randomUUID(), userId, action: 'password.reset', entity: 'user', entityId: userId }).run();
+      audit(this.db, { userId, action: 'password.reset', entity: 'user', entityId: userId });
     });
   }
 }

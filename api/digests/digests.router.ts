@@ -1,13 +1,13 @@
 /** `/api/digests`: run the weekly mail now (admin, head coach); the one-click unsubscribe (public). */
+import { audit } from '../audit';
 import { eq } from 'drizzle-orm';
 import { Router } from 'express';
 import * as z from 'zod';
-import { randomUUID } from 'node:crypto';
 import type { RequestHandler } from 'express';
 import { requireRole } from '../auth/passport';
 import type { AppConfig } from '../config';
 import type { Db } from '../db/client';
-import { auditLog, guardianLinks, players } from '../db/schema';
+import { guardianLinks, players } from '../db/schema';
 import { HttpError, parseOrThrow } from '../errors';
 import { firstNameOf } from '../guardians/guardians.service';
 import type { DigestJob } from './digests.service';
@@ -25,7 +25,7 @@ export function unsubscribeRouter(db: Db, config: AppConfig): Router {
     if (!link) throw new HttpError(400, 'unsubscribe_invalid', 'This unsubscribe link is not valid or has expired; sign in to change your digest settings');
     if (link.digestOptIn) {
       db.update(guardianLinks).set({ digestOptIn: false, updatedAt: new Date().toISOString() }).where(eq(guardianLinks.id, link.id)).run();
-      db.insert(auditLog).values({ id: randomUUID(), userId: link.guardianUserId, action: 'digest.unsubscribed', entity: 'guardian_link', entityId: link.id }).run();
+      audit(db, { userId: link.guardianUserId, action: 'digest.unsubscribed', entity: 'guardian_link', entityId: link.id });
     }
     const player = db.select({ name: players.displayName }).from(players).where(eq(players.id, link.playerId)).get();
     res.json({ unsubscribed: true, firstName: player ? firstNameOf(player.name) : '' });

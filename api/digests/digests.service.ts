@@ -12,28 +12,16 @@ import { clubs, digestRuns, guardianLinks, players, squads, squadStaff, users } 
 import { firstNameOf } from '../guardians/guardians.service';
 import type { Mailer } from '../mail/mailer';
 import { familyDigestMail, squadWeekMail } from '../mail/templates';
-import { isoWeekStart } from '../squads/week.service';
+import { addDays, isAdultOn, isoWeekStart } from '../../shared/dates';
 import { barChartPng } from './chart-png';
 import { unsubscribeToken } from './unsubscribe-token';
 
-const DAY_MS = 86_400_000;
 /** Weeks shown in the digest chart. */
 const CHART_WEEKS = 6;
-
-function addDays(date: string, days: number): string {
-  return new Date(Date.parse(date + 'T00:00:00Z') + days * DAY_MS).toISOString().slice(0, 10);
-}
 
 /** Monday of the last complete ISO week before `now`. */
 export function lastCompleteWeek(now: Date): string {
   return addDays(isoWeekStart(now.toISOString().slice(0, 10)), -7);
-}
-
-function isAdultAt(birthDate: string | null, day: string): boolean {
-  if (!birthDate) return true; // no birth date recorded: treat as adult, so only a self opt-in sends anything
-  const b = new Date(birthDate + 'T00:00:00Z');
-  const eighteenth = new Date(Date.UTC(b.getUTCFullYear() + 18, b.getUTCMonth(), b.getUTCDate())).toISOString().slice(0, 10);
-  return eighteenth <= day;
 }
 
 /** Runs the weekly digests of one club (or every club) for the week starting `weekStart`. */
@@ -79,7 +67,7 @@ export class DigestJob {
     let skipped = 0;
     for (const { link, player, guardian } of links) {
       const consenting = link.consentAt !== null && link.consentWithdrawnAt === null && link.digestOptIn;
-      const allowedByAge = !isAdultAt(player.birthDate, weekEnd) || player.digestSelfOptIn;
+      const allowedByAge = !isAdultOn(player.birthDate, weekEnd) || player.digestSelfOptIn;
       if (!consenting || !allowedByAge || player.deletedAt || guardian.disabledAt) {
         skipped++;
         continue;

@@ -4,14 +4,14 @@
  * account; `remove` deletes the kicks too. Guardian links, profiles and the account go either
  * way. Written to the audit log; the name must be typed to confirm.
  */
-import { randomUUID } from 'node:crypto';
+import { audit } from '../audit';
 import { eq } from 'drizzle-orm';
 import { Router } from 'express';
 import * as z from 'zod';
 import { requireRole } from '../auth/passport';
 import type { Db } from '../db/client';
 import { nextChangeSeq } from '../db/client';
-import { auditLog, guardianLinks, kicks, playerProfiles, players, refreshTokens, users } from '../db/schema';
+import { guardianLinks, kicks, playerProfiles, players, refreshTokens, users } from '../db/schema';
 import { Invalid, NotFound, parseOrThrow } from '../errors';
 import { scopeOf } from '../scope/scope.middleware';
 
@@ -47,7 +47,7 @@ export function erasureRouter(db: Db): Router {
         db.update(users).set({ disabledAt: now, email: `erased-${player.userId}@erased.invalid`, displayName: 'Erased account', passwordHash: null }).where(eq(users.id, player.userId)).run();
       }
       db.update(players).set({ displayName: 'Erased player', shirtNumber: null, birthDate: null, deletedAt: now, updatedAt: now }).where(eq(players.id, id)).run();
-      db.insert(auditLog).values({ id: randomUUID(), clubId: admin.clubId, userId: admin.id, action: `erasure.${mode}`, entity: 'player', entityId: id, detailJson: JSON.stringify({ kicks: n }) }).run();
+      audit(db, { clubId: admin.clubId, userId: admin.id, action: `erasure.${mode}`, entity: 'player', entityId: id, detail: { kicks: n } });
       return n;
     });
     res.json({ erased: true, kicksAffected });

@@ -2,13 +2,13 @@
  * `/api/exports`: kicks as CSV (RFC 4180) for a squad or a player and a date range, and a
  * player's full data as JSON for a data-access request (admin). Every export is audited.
  */
-import { randomUUID } from 'node:crypto';
+import { audit } from '../audit';
 import { eq } from 'drizzle-orm';
 import { Router } from 'express';
 import * as z from 'zod';
 import { requireRole } from '../auth/passport';
 import type { Db } from '../db/client';
-import { auditLog, guardianLinks, kicks, players, playerProfiles, squads, trainingSessions, users } from '../db/schema';
+import { guardianLinks, kicks, players, playerProfiles, squads, trainingSessions, users } from '../db/schema';
 import { Forbidden, NotFound, parseOrThrow } from '../errors';
 import { getPlayer } from '../players/players.service';
 import { scopeOf } from '../scope/scope.middleware';
@@ -45,7 +45,7 @@ export function exportsRouter(db: Db): Router {
       )
       .raw()
       .all({ squadId: q.squadId ?? null, playerId: q.playerId ?? null, from: q.from ?? null, to: q.to ?? null }) as unknown[][];
-    db.insert(auditLog).values({ id: randomUUID(), clubId: scope.user.clubId, userId: scope.user.id, action: 'export.kicks', entity: q.squadId ? 'squad' : 'player', entityId: q.squadId ?? q.playerId ?? null, detailJson: JSON.stringify({ from: q.from, to: q.to, rows: rows.length }) }).run();
+    audit(db, { clubId: scope.user.clubId, userId: scope.user.id, action: 'export.kicks', entity: q.squadId ? 'squad' : 'player', entityId: q.squadId ?? q.playerId ?? null, detail: { from: q.from, to: q.to, rows: rows.length } });
     res.setHeader('Content-Type', 'text/csv; charset=utf-8; header=present');
     res.setHeader('Content-Disposition', `attachment; filename="loftline-kicks-${q.from ?? 'all'}-${q.to ?? 'now'}.csv"`);
     res.send(toCsv(KICK_EXPORT_COLUMNS, rows));
@@ -69,7 +69,7 @@ export function exportsRouter(db: Db): Router {
     const sessionIds = [...new Set(kickRows.map((k) => k.sessionId))];
     const sessions = sessionIds.map((s) => db.select().from(trainingSessions).where(eq(trainingSessions.id, s)).get()).filter(Boolean);
     const profiles = db.select().from(playerProfiles).where(eq(playerProfiles.playerId, id)).all();
-    db.insert(auditLog).values({ id: randomUUID(), clubId: scope.user.clubId, userId: scope.user.id, action: 'export.player_data', entity: 'player', entityId: id }).run();
+    audit(db, { clubId: scope.user.clubId, userId: scope.user.id, action: 'export.player_data', entity: 'player', entityId: id });
     res.setHeader('Content-Disposition', `attachment; filename="loftline-player-${id}.json"`);
     res.json({ exportedAt: new Date().toISOString(), player, squad, account, guardianLinks: links, sessions, kicks: kickRows, profiles });
   });

@@ -3,13 +3,14 @@
  * and opt-in are separate: opting in needs active consent; withdrawing consent also opts out.
  * Every change is written to the audit log.
  */
+import { audit } from '../audit';
 import { randomUUID } from 'node:crypto';
 import { and, eq, isNull } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/sqlite-core';
 import type { ChildSummary, GuardianLinkView } from '../../shared/schemas/mail';
 import type { AuthUser } from '../auth/passport';
 import type { Db } from '../db/client';
-import { auditLog, guardianLinks, players, squads, users } from '../db/schema';
+import { guardianLinks, players, squads, users } from '../db/schema';
 import { Forbidden, HttpError, Invalid, NotFound } from '../errors';
 import { CONSENT_TEXT } from './consent-text';
 
@@ -25,8 +26,8 @@ export function firstNameOf(displayName: string): string {
 export class GuardiansService {
   constructor(private readonly db: Db) {}
 
-  private audit(user: AuthUser, action: string, entityId: string, detail?: object): void {
-    this.db.insert(auditLog).values({ id: randomUUID(), clubId: user.clubId, userId: user.id, action, entity: 'guardian_link', entityId, detailJson: detail ? JSON.stringify(detail) : null }).run();
+  private record(user: AuthUser, action: string, entityId: string, detail?: object): void {
+    audit(this.db, { clubId: user.clubId, userId: user.id, action, entity: 'guardian_link', entityId, detail });
   }
 
   /** Links visible to the caller: all of the club for an admin, their own for a guardian. */
@@ -80,7 +81,7 @@ export class GuardiansService {
     if (existing) throw new HttpError(409, 'already_linked', 'This guardian is already linked to this player');
     const id = randomUUID();
     this.db.insert(guardianLinks).values({ id, guardianUserId, playerId, relationship }).run();
-    this.audit(admin, 'guardian_link.created', id, { guardianUserId, playerId });
+    this.record(admin, 'guardian_link.created', id, { guardianUserId, playerId });
     return this.one(admin, id);
   }
 
@@ -88,7 +89,7 @@ export class GuardiansService {
   remove(admin: AuthUser, id: string): void {
     this.one(admin, id);
     this.db.delete(guardianLinks).where(eq(guardianLinks.id, id)).run();
-    this.audit(admin, 'guardian_link.removed', id);
+    this.record(admin, 'guardian_link.removed', id);
   }
 
   private ownLink(user: AuthUser, id: string): GuardianLinkView {
@@ -105,10 +106,10 @@ export class GuardiansService {
         throw new Invalid('The consent text has changed; read the current text and consent again', [{ field: 'textVersion', message: `Current version is ${CONSENT_TEXT.version}` }]);
       }
       this.db.update(guardianLinks).set({ consentAt: now, consentRecordedBy: user.id, consentTextVersion: consent.textVersion, consentWithdrawnAt: null, updatedAt: now }).where(eq(guardianLinks.id, id)).run();
-      this.audit(user, 'consent.given', id, { textVersion: consent.textVersion });
+      this.record(user, 'consent.given', id, { textVersion: consent.textVersion });
     } else {
       this.db.update(guardianLinks).set({ consentWithdrawnAt: now, digestOptIn: false, updatedAt: now }).where(eq(guardianLinks.id, id)).run();
-      this.audit(user, 'consent.withdrawn', id);
+      this.record(user, 'consent.withdrawn', id);
     }
     return this.one(user, id);
   }
@@ -120,7 +121,7 @@ export class GuardiansService {
       throw new HttpError(400, 'consent_required', 'Give consent first: the digest is only sent with recorded consent');
     }
     this.db.update(guardianLinks).set({ digestOptIn: optIn, updatedAt: new Date().toISOString() }).where(eq(guardianLinks.id, id)).run();
-    this.audit(user, optIn ? 'digest.opted_in' : 'digest.opted_out', id);
+    this.record(user, optIn ? 'digest.opted_in' : 'digest.opted_out', id);
     return this.one(user, id);
   }
 

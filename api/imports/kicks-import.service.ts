@@ -4,6 +4,7 @@
  * creates one session and drill for the upload and its kicks, each with an id derived from its
  * natural key (player, time, measurements), so importing the same rows again adds nothing.
  */
+import { audit } from '../audit';
 import { createHash, randomUUID } from 'node:crypto';
 import { and, eq, isNull } from 'drizzle-orm';
 import * as z from 'zod';
@@ -12,7 +13,7 @@ import { TECHNIQUES, type Outcome } from '../../shared/schemas/sync';
 import { ballOf } from '../analysis/flight-inputs';
 import { nextChangeSeq, type Db } from '../db/client';
 import { cachedStatement } from '../db/statements';
-import { auditLog, drills, players, squads, trainingSessions, uploads } from '../db/schema';
+import { drills, players, squads, trainingSessions, uploads } from '../db/schema';
 import { Forbidden, Invalid, parseOrThrow } from '../errors';
 import type { Scope } from '../scope/scope';
 import { readCsv } from './csv';
@@ -175,7 +176,7 @@ export function importKicks(db: Db, scope: Scope, file: { name: string; buffer: 
     }
     const s: KicksSummary = { kicksCreated: fresh.length, kicksSkipped: rows.length - fresh.length, sessionId };
     db.insert(uploads).values({ id: uploadId, clubId: squad.clubId, uploadedBy: scope.user.id, kind: 'measured_kicks', filename: file.name, sizeBytes: file.buffer.length, contentHash: hash, content: file.buffer.toString('utf8'), status: 'committed', committedAt: new Date().toISOString(), summaryJson: JSON.stringify(s) }).run();
-    db.insert(auditLog).values({ id: randomUUID(), clubId: squad.clubId, userId: scope.user.id, action: 'import.kicks', entity: 'upload', entityId: uploadId, detailJson: JSON.stringify(s) }).run();
+    audit(db, { clubId: squad.clubId, userId: scope.user.id, action: 'import.kicks', entity: 'upload', entityId: uploadId, detail: s });
     return s;
   });
   return { dryRun, uploadId, alreadyImported: false, rows: table.rows.length, errors: [], summary };

@@ -3,12 +3,13 @@
  * e-mails from one CSV. Natural keys make a re-import update rather than duplicate: a squad by
  * name, a player by squad and name, a guardian by e-mail, a link by guardian and player.
  */
+import { audit } from '../audit';
 import { createHash, randomUUID } from 'node:crypto';
 import { and, eq } from 'drizzle-orm';
 import * as z from 'zod';
 import type { AuthUser } from '../auth/passport';
 import type { Db } from '../db/client';
-import { auditLog, guardianLinks, players, squads, uploads, users } from '../db/schema';
+import { guardianLinks, players, squads, uploads, users } from '../db/schema';
 import { readCsv } from './csv';
 import { ImportInvalid, type ImportResult, type RowError } from './import-types';
 
@@ -109,7 +110,7 @@ export function importRoster(db: Db, admin: AuthUser, file: { name: string; buff
   const summary = db.transaction(() => {
     const s = apply(db, admin.clubId, rows);
     db.insert(uploads).values({ id: uploadId, clubId: admin.clubId, uploadedBy: admin.id, kind: 'roster', filename: file.name, sizeBytes: file.buffer.length, contentHash: hash, content: file.buffer.toString('utf8'), status: 'committed', committedAt: new Date().toISOString(), summaryJson: JSON.stringify(s) }).run();
-    db.insert(auditLog).values({ id: randomUUID(), clubId: admin.clubId, userId: admin.id, action: 'import.roster', entity: 'upload', entityId: uploadId, detailJson: JSON.stringify(s) }).run();
+    audit(db, { clubId: admin.clubId, userId: admin.id, action: 'import.roster', entity: 'upload', entityId: uploadId, detail: s });
     return s;
   });
   return { dryRun, uploadId, alreadyImported: false, rows: rows.length, errors: [], summary };

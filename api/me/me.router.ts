@@ -1,13 +1,13 @@
 /** `/api/me`: who the caller is, for the app shell. */
+import { audit } from '../audit';
 import { eq } from 'drizzle-orm';
 import { Router } from 'express';
 import type { MeResponse } from '../../shared/schemas/auth';
 import type { Db } from '../db/client';
 import * as z from 'zod';
 import { requireRole } from '../auth/passport';
-import { auditLog, clubs, players } from '../db/schema';
+import { clubs, players } from '../db/schema';
 import { NotFound, parseOrThrow } from '../errors';
-import { randomUUID } from 'node:crypto';
 import { scopeOf } from '../scope/scope.middleware';
 
 /** Builds the me router (mounted behind authentication and scope). */
@@ -35,7 +35,7 @@ export function meRouter(db: Db): Router {
     const { optIn } = parseOrThrow(z.object({ optIn: z.boolean({ error: 'optIn must be true or false' }) }), req.body, 'Digest opt-in');
     const own = ownPlayer(db, scope.ownPlayerIds);
     db.update(players).set({ digestSelfOptIn: optIn, updatedAt: new Date().toISOString() }).where(eq(players.id, own.id)).run();
-    db.insert(auditLog).values({ id: randomUUID(), clubId: scope.user.clubId, userId: scope.user.id, action: optIn ? 'digest.self_opted_in' : 'digest.self_opted_out', entity: 'player', entityId: own.id }).run();
+    audit(db, { clubId: scope.user.clubId, userId: scope.user.id, action: optIn ? 'digest.self_opted_in' : 'digest.self_opted_out', entity: 'player', entityId: own.id });
     res.json({ optIn });
   });
   return router;

@@ -6,6 +6,7 @@
 import type { CarryBasis, ProgressWeek } from '../../shared/schemas/analysis';
 import type { Outcome, Technique } from '../../shared/schemas/sync';
 import { OUTCOMES } from '../../shared/schemas/sync';
+import { addDays } from '../../shared/dates';
 import type { Db } from '../db/client';
 
 /** Filters for a progress query. */
@@ -46,7 +47,7 @@ export function playerProgress(db: Db, playerId: string, filter: ProgressFilter)
   const params = {
     playerId,
     from: filter.from ?? null,
-    toExclusive: filter.to ? nextDay(filter.to) : null,
+    toExclusive: filter.to ? addDays(filter.to, 1) : null,
     technique: filter.technique ?? null,
   };
   const carry = filter.carry === 'still-air' ? 'k.still_air_carry_m' : 'k.carry_m';
@@ -93,10 +94,4 @@ export function playerProgress(db: Db, playerId: string, filter: ProgressFilter)
       carrySdM: variance === null ? null : Math.sqrt(variance),
     };
   });
-}
-
-function nextDay(date: string): string {
-  const d = new Date(date + 'T00:00:00Z');
-  d.setUTCDate(d.getUTCDate() + 1);
-  return d.toISOString().slice(0, 10);
 }

@@ -9,6 +9,7 @@ import type { CalibrationPoint, CarryBasis, SquadWeek, SquadWeekPlayer, ZoneHitR
 import type { Technique } from '../../shared/schemas/sync';
 import type { ProfileCache } from '../analysis/profile-cache';
 import type { Db } from '../db/client';
+import { addDays, isoWeekStart } from '../../shared/dates';
 import { clubs, squads } from '../db/schema';
 import { NotFound } from '../errors';
 import type { Scope } from '../scope/scope';
@@ -18,19 +19,8 @@ export const MIN_REPS_FOR_BEST = 5;
 /** Width of the target-distance bands of the zone hit-rate chart, metres. */
 export const ZONE_BAND_M = 5;
 
-/** Monday (UTC) of the ISO week containing `date` (YYYY-MM-DD). */
-export function isoWeekStart(date: string): string {
-  const d = new Date(date + 'T00:00:00Z');
-  const shift = (d.getUTCDay() + 6) % 7;
-  d.setUTCDate(d.getUTCDate() - shift);
-  return d.toISOString().slice(0, 10);
-}
-
-function addDays(date: string, days: number): string {
-  const d = new Date(date + 'T00:00:00Z');
-  d.setUTCDate(d.getUTCDate() + days);
-  return d.toISOString().slice(0, 10);
-}
+/** Monday (UTC) of the ISO week containing `date`; re-exported for callers of the week API. */
+export { isoWeekStart };
 
 interface TechRow {
   player_id: string;

@@ -46,8 +46,8 @@ export type { LaunchSpeedQuery } from './inverse';
 export { fitProfile } from './profile';
 export { DEFAULT_PRIORS } from './profile-types';
 export type { KickProfile, LoggedKick, ProfileObservationCounts, ProfilePrior } from './profile-types';
-export { DEFAULT_WALL_HEIGHT_M, setPieceCheck } from './set-piece';
-export type { SetPieceInput, SetPieceResult, SetPieceShares } from './set-piece';
+export { DEFAULT_WALL_HEIGHT_M, GOAL_CROSSING, setPieceCheck, setPieceCloud, setPieceGeometry } from './set-piece';
+export type { GoalCrossingKind, GoalMouthCloud, SetPieceCloudResult, SetPieceInput, SetPieceResult, SetPieceShares } from './set-piece';
 export { simulateKick } from './simulate';
 export type {
   AeroSpec,

@@ -70,22 +70,63 @@ export interface SetPieceResult {
   goalCrossingHeightM: DistributionSummary | null;
 }
 
+/** How a sampled kick crossed the goal line, as a small code (compact in worker messages). */
+export const GOAL_CROSSING = { in: 0, over: 1, wide: 2 } as const;
+/** One of the GOAL_CROSSING codes. */
+export type GoalCrossingKind = (typeof GOAL_CROSSING)[keyof typeof GOAL_CROSSING];
+
+/** Where each sample that cleared the wall crossed the goal line (goal-frame y, height of the centre), mm-rounded. */
+export interface GoalMouthCloud {
+  yM: number[];
+  zM: number[];
+  kind: GoalCrossingKind[];
+}
+
+/** A set-piece check with its goal-mouth cloud, for drawing. */
+export interface SetPieceCloudResult extends SetPieceResult {
+  cloud: GoalMouthCloud;
+}
+
+/**
+ * Aim geometry in the goal frame: `phi` the aim direction, `psi` the direction to the goal's
+ * centre, and the two vertical planes the flight is crossed with (the wall, the goal line).
+ */
+export function setPieceGeometry(ballX: number, ballY: number, aimYM: number): { phi: number; psi: number; planes: VerticalPlane[] } {
+  const phi = Math.atan2(aimYM - ballY, ballX); // aim direction, to the left of straight at the goal line
+  const psi = Math.atan2(-ballY, ballX); // direction to the centre of the goal
+  return {
+    phi,
+    psi,
+    planes: [
+      { nx: Math.cos(phi - psi), ny: Math.sin(psi - phi), d: WALL_DISTANCE_M },
+      { nx: Math.cos(phi), ny: -Math.sin(phi), d: ballX },
+    ],
+  };
+}
+
+const round3 = (v: number): number => Math.round(v * 1000) / 1000;
+
 /** Run the set-piece check: seeded Monte Carlo of the profile against wall and goal. */
 export function setPieceCheck(input: SetPieceInput): SetPieceResult {
+  return runSetPiece(input, null);
+}
+
+/** The same check, also returning where each kick that cleared the wall crossed the goal line. */
+export function setPieceCloud(input: SetPieceInput): SetPieceCloudResult {
+  const cloud: GoalMouthCloud = { yM: [], zM: [], kind: [] };
+  return { ...runSetPiece(input, cloud), cloud };
+}
+
+function runSetPiece(input: SetPieceInput, cloud: GoalMouthCloud | null): SetPieceResult {
   if (input === null || typeof input !== 'object') throw new RangeError('set-piece input must be an object');
   const ballX = requireInHalfOpen('ballX', input.ballX, 0, 60, 'm');
   const ballY = requireInRange('ballY', input.ballY, -40, 40, 'm');
   const wallHeightM = requireInHalfOpen('wallHeightM', input.wallHeightM ?? DEFAULT_WALL_HEIGHT_M, 0, 3, 'm');
   const aimYM = requireInRange('aimYM', input.aimYM ?? 0, -10, 10, 'm');
-  const phi = Math.atan2(aimYM - ballY, ballX); // aim direction, to the left of straight at the goal line
-  const psi = Math.atan2(-ballY, ballX); // direction to the centre of the goal
+  const { phi, psi, planes } = setPieceGeometry(ballX, ballY, aimYM);
   if (ballX - WALL_DISTANCE_M * Math.cos(psi) < 0.5) {
     throw new RangeError(`ballX: a wall ${WALL_DISTANCE_M} m from the ball would stand on or behind the goal line`);
   }
-  const planes: VerticalPlane[] = [
-    { nx: Math.cos(phi - psi), ny: Math.sin(psi - phi), d: WALL_DISTANCE_M },
-    { nx: Math.cos(phi), ny: -Math.sin(phi), d: ballX },
-  ];
   const conditions = resolveConditions(input.conditions ?? {});
   const r = conditions.radiusM;
   const launches = sampleLaunches(input.profile, input.samples, input.seed);
@@ -111,9 +152,22 @@ export function setPieceCheck(input: SetPieceInput): SetPieceResult {
     }
     goalHeights.push(goal.z + r);
     const y = ballY + goal.x * Math.sin(phi) + goal.y * Math.cos(phi);
-    if (Math.abs(y) + r >= GOAL_WIDTH_M / 2) counts.wide++;
-    else if (goal.z + 2 * r >= GOAL_HEIGHT_M) counts.over++;
-    else counts.onTarget++;
+    let kind: GoalCrossingKind;
+    if (Math.abs(y) + r >= GOAL_WIDTH_M / 2) {
+      counts.wide++;
+      kind = GOAL_CROSSING.wide;
+    } else if (goal.z + 2 * r >= GOAL_HEIGHT_M) {
+      counts.over++;
+      kind = GOAL_CROSSING.over;
+    } else {
+      counts.onTarget++;
+      kind = GOAL_CROSSING.in;
+    }
+    if (cloud) {
+      cloud.yM.push(round3(y));
+      cloud.zM.push(round3(goal.z + r));
+      cloud.kind.push(kind);
+    }
   }
   const n = launches.length;
   return {
