@@ -25,6 +25,12 @@ export const clubs = sqliteTable('clubs', {
   digestTime: text('digest_time').notNull().default('07:00'),
   /** Optional club-tuned spin-step rates (JSON), overriding the flight model's defaults. */
   spinStepsJson: text('spin_steps_json'),
+  /**
+   * Hang-time stopwatch: mean of (tapped time − true flight time), seconds, and its spread. Two human
+   * taps add reaction delays (common practice: about 0.2 s in all); a club can calibrate both from video.
+   */
+  timingBiasS: real('timing_bias_s').notNull().default(0.2),
+  timingSdS: real('timing_sd_s').notNull().default(0.08),
   createdAt: createdAt(),
   updatedAt: updatedAt(),
 });
@@ -241,6 +247,8 @@ export const kicks = sqliteTable(
     measuredSpeedMs: real('measured_speed_ms'),
     launchAngleDeg: real('launch_angle_deg'),
     measuredSpinRps: real('measured_spin_rps'),
+    /** Hang time as tapped on the Pitchside stopwatch (foot contact → first bounce), seconds, uncorrected. */
+    hangTimeS: real('hang_time_s'),
     recordedAt: text('recorded_at').notNull(),
     recordedBy: text('recorded_by').references(() => users.id),
     deviceId: text('device_id'),
@@ -273,8 +281,12 @@ export const playerProfiles = sqliteTable(
     profileJson: text('profile_json'),
     /** Landing cloud at standard conditions (JSON `{ xM, yM }`), for hit probabilities and calibration. */
     cloudJson: text('cloud_json'),
+    /** Hit probability by target distance and radius at standard conditions (JSON `ReachCurve`). */
+    reachCurveJson: text('reach_curve_json'),
     reliableReachM: real('reliable_reach_m'),
     reachRadiusM: real('reach_radius_m').notNull(),
+    /** Version of the profile model that wrote the row; rows of an older model are recomputed. */
+    modelVersion: integer('model_version').notNull().default(1),
     computedAt: text('computed_at').notNull(),
   },
   (t) => [primaryKey({ columns: [t.playerId, t.technique] })],
