@@ -86,7 +86,9 @@ export class ProfileCache {
       repetitions: profile?.repetitions ?? 0,
       profileJson: profile ? JSON.stringify(profile) : null,
       cloudJson: cloud ? JSON.stringify(cloud) : null,
+      reachCurveJson: null,
       reliableReachM: reach,
+      modelVersion: 1,
       reachRadiusM,
       computedAt: new Date().toISOString(),
     };
