@@ -115,7 +115,7 @@ function drillSpin(prng: Prng, technique: Technique): { backspinStep: number; si
     case 'chipped':
       return { backspinStep: prng.weighted([1, 2], [1, 2]), sidespinStep: 0 };
     case 'driven':
-      return { backspinStep: prng.pick([0, -1]), sidespinStep: 0 };
+      return { backspinStep: prng.pick([1, 0]), sidespinStep: 0 };
     case 'curled':
       return { backspinStep: 0, sidespinStep: prng.pick([-2, -1, 1, 2]) };
   }

@@ -5,26 +5,27 @@
  * small slices so the event loop is never blocked for long.
  */
 import { and, eq } from 'drizzle-orm';
-import { fitProfile, reachEnvelope, reliableReachM, type KickProfile } from '../../shared/flight/index';
+import { CURVE_SAMPLES, fitProfile, reachCurve, reliableReachM, type KickProfile, type ReachCurve } from '../../shared/flight/index';
 import type { ProfileEntry } from '../../shared/schemas/analysis';
 import type { Technique } from '../../shared/schemas/sync';
 import type { Db } from '../db/client';
 import { playerProfiles } from '../db/schema';
 import { loggedKickOf, standardConditions, type SessionConditions, type StoredKick } from './flight-inputs';
 
-/** Monte Carlo samples of the cached standard-conditions envelope. */
-export const PROFILE_ENVELOPE_SAMPLES = 1000;
+/** Monte Carlo samples of the cached standard-conditions reach curve (the client draws with the same). */
+export const PROFILE_ENVELOPE_SAMPLES = CURVE_SAMPLES;
 /** Fixed seed: the same kicks always give the same cached numbers. */
 export const PROFILE_ENVELOPE_SEED = 20_260_101;
+/**
+ * Version of the profile model. 2: launch speed relative to the speed each target needs, with a
+ * ceiling, and reach curves per distance (rows of version 1 pooled every target into one speed spread).
+ */
+export const PROFILE_MODEL_VERSION = 2;
 /** Target radius used for reliable reach when a player's logs give none (common practice). */
 export const DEFAULT_REACH_RADIUS_M = 3;
 
 type CachedRow = typeof playerProfiles.$inferSelect;
 
-/** The landing cloud kept with a profile. */
-export interface CachedCloud {
-  cloud: { xM: number[]; yM: number[] };
-}
 
 /** Computes, caches and serves launch profiles. */
 export class ProfileCache {
@@ -49,7 +50,7 @@ export class ProfileCache {
   /** Whether the cache is missing or behind the player's kicks. */
   isStale(playerId: string, technique: Technique): boolean {
     const row = this.cached(playerId, technique);
-    return !row || row.kicksSeq < this.kicksSeq(playerId, technique);
+    return !row || row.modelVersion < PROFILE_MODEL_VERSION || row.kicksSeq < this.kicksSeq(playerId, technique);
   }
 
   /** Fits and stores one profile now. */
@@ -70,14 +71,13 @@ export class ProfileCache {
     const radii = rows.map((r) => r.targetRadiusM).sort((a, b) => a - b);
     const reachRadiusM = radii.length ? radii[Math.floor(radii.length / 2)]! : DEFAULT_REACH_RADIUS_M;
     let profile: KickProfile | null = null;
-    let cloud: CachedCloud['cloud'] | null = null;
+    let curve: ReachCurve | null = null;
     let reach: number | null = null;
     if (rows.length > 0) {
       profile = fitProfile(rows.map((r) => loggedKickOf(r, r)));
       const ballSize = rows[0]!.ballSize;
-      const envelope = reachEnvelope(profile, standardConditions(ballSize), { samples: PROFILE_ENVELOPE_SAMPLES, seed: PROFILE_ENVELOPE_SEED });
-      cloud = envelope.cloud;
-      reach = reliableReachM(envelope, reachRadiusM);
+      curve = reachCurve(profile, standardConditions(ballSize), { samples: PROFILE_ENVELOPE_SAMPLES, seed: PROFILE_ENVELOPE_SEED });
+      reach = reliableReachM(curve, reachRadiusM);
     }
     const row: CachedRow = {
       playerId,
@@ -85,10 +85,10 @@ export class ProfileCache {
       kicksSeq: seq,
       repetitions: profile?.repetitions ?? 0,
       profileJson: profile ? JSON.stringify(profile) : null,
-      cloudJson: cloud ? JSON.stringify(cloud) : null,
-      reachCurveJson: null,
+      cloudJson: null,
+      reachCurveJson: curve ? JSON.stringify(curve) : null,
       reliableReachM: reach,
-      modelVersion: 1,
+      modelVersion: PROFILE_MODEL_VERSION,
       reachRadiusM,
       computedAt: new Date().toISOString(),
     };
@@ -109,7 +109,7 @@ export class ProfileCache {
   /** The cached entry without computing; stale or missing ones are queued for the refresher. */
   peek(playerId: string, technique: Technique): ProfileEntry {
     const row = this.cached(playerId, technique);
-    const stale = !row || row.kicksSeq < this.kicksSeq(playerId, technique);
+    const stale = !row || row.modelVersion < PROFILE_MODEL_VERSION || row.kicksSeq < this.kicksSeq(playerId, technique);
     if (stale) this.enqueue(playerId, technique);
     if (!row) {
       return { playerId, technique, profile: null, repetitions: 0, reliableReachM: null, reachRadiusM: DEFAULT_REACH_RADIUS_M, computedAt: null, pending: true };
@@ -117,10 +117,10 @@ export class ProfileCache {
     return toEntry(row, stale);
   }
 
-  /** The cached landing cloud (standard conditions), if any. */
-  cloud(playerId: string, technique: Technique): CachedCloud | null {
+  /** The cached reach curve (standard conditions) of the current model, if any. */
+  curve(playerId: string, technique: Technique): ReachCurve | null {
     const row = this.cached(playerId, technique);
-    return row?.cloudJson ? { cloud: JSON.parse(row.cloudJson) as CachedCloud['cloud'] } : null;
+    return row?.reachCurveJson && row.modelVersion >= PROFILE_MODEL_VERSION ? (JSON.parse(row.reachCurveJson) as ReachCurve) : null;
   }
 
   /** Queues a recomputation for the background refresher. */
@@ -135,7 +135,7 @@ export class ProfileCache {
       .prepare(
         `SELECT k.player_id AS playerId, k.technique AS technique, MAX(k.change_seq) AS s, p.kicks_seq AS cached
            FROM kicks k LEFT JOIN player_profiles p ON p.player_id = k.player_id AND p.technique = k.technique
-          GROUP BY k.player_id, k.technique HAVING cached IS NULL OR cached < s`,
+          GROUP BY k.player_id, k.technique HAVING cached IS NULL OR cached < s OR MAX(p.model_version) < ${PROFILE_MODEL_VERSION}`,
       )
       .all() as { playerId: string; technique: Technique }[];
     for (const p of pairs) this.queue.add(`${p.playerId}|${p.technique}`);

@@ -4,7 +4,7 @@
  * squad in the two weeks (training_sessions_squad_started_idx, then kicks_session_idx).
  */
 import { and, eq, isNull } from 'drizzle-orm';
-import { hitProbability } from '../../shared/flight/index';
+import { curveHitProbability } from '../../shared/flight/index';
 import type { CalibrationPoint, CarryBasis, SquadWeek, SquadWeekPlayer, ZoneHitRate } from '../../shared/schemas/analysis';
 import type { Technique } from '../../shared/schemas/sync';
 import type { ProfileCache } from '../analysis/profile-cache';
@@ -141,8 +141,8 @@ export function squadWeek(db: Db, profiles: ProfileCache, scope: Scope, squadId:
 }
 
 /**
- * Predicted hit rate (mean over the week's repetitions of the envelope's hit probability for
- * each repetition's target, at standard conditions) against the observed share on target.
+ * Predicted hit rate (mean over the week's repetitions of the reach curve's hit probability for
+ * kicks aimed at each repetition's target, at standard conditions) against the observed share on target.
  */
 function calibrationOf(
   profiles: ProfileCache,
@@ -153,10 +153,10 @@ function calibrationOf(
   for (const t of targets) byTechnique.set(t.technique, [...(byTechnique.get(t.technique) ?? []), t]);
   const points: CalibrationPoint[] = [];
   for (const [technique, list] of byTechnique) {
-    const cached = profiles.cloud(playerId, technique);
-    if (!cached || cached.cloud.xM.length === 0) continue;
+    const curve = profiles.curve(playerId, technique);
+    if (!curve || curve.distancesM.length === 0) continue;
     const reps = list.reduce((a, t) => a + t.n, 0);
-    const predicted = list.reduce((a, t) => a + t.n * hitProbability(cached, t.d, t.r), 0) / reps;
+    const predicted = list.reduce((a, t) => a + t.n * curveHitProbability(curve, t.d, t.r), 0) / reps;
     const observed = list.reduce((a, t) => a + t.hits, 0) / reps;
     points.push({ technique, reps, predictedHitRate: predicted, observedHitRate: observed });
   }

@@ -1,17 +1,16 @@
 /**
- * Reach envelope: a seeded Monte Carlo of a fitted profile under given conditions —
- * where a player's kicks of one technique will land, with percentiles, a covariance ellipse, hit
- * probabilities and reliable reach. The result is plain JSON so it can cross the worker boundary and
- * `hitProbability` / `reliableReachM` can be evaluated on it later for any target.
+ * Reach envelope: a seeded Monte Carlo of a fitted profile under given conditions — where a player's
+ * kicks of one technique aimed at one distance will land, with percentiles, a covariance ellipse and the
+ * hit probability of that target — plus the reach curve (reach-curve.ts) behind reliable reach and hit
+ * probabilities at other distances. Plain JSON, so it can cross the worker boundary.
  */
 
-import { DEFAULT_SOLVER_SETTINGS, integrateFlight } from './integrate';
-import { buildModel, resolveConditions } from './model';
 import type { KickProfile } from './profile-types';
-import { SeededRandom } from './random';
+import { AimedSamples, curveReliableReachM, type ReachCurve } from './reach-curve';
+import { checkedProfile } from './sampling';
 import { type DistributionSummary, summarise } from './stats';
 import type { FlightConditions, Technique } from './types';
-import { requireFinite, requireInHalfOpen, requireInRange, requireInteger } from './validate';
+import { requireFinite, requireInHalfOpen, requireInteger } from './validate';
 
 export type { DistributionSummary } from './stats';
 
@@ -43,13 +42,22 @@ export interface EnvelopeOptions {
   target?: EnvelopeTarget;
   /** Target radius for reliable reach (default: the target's radius, else 3 m). */
   reliableReachRadiusM?: number;
+  /** Distance the sampled kicks are aimed at (default: the target's, else the profile's typical target). */
+  aimDistanceM?: number;
+  /** Whether to compute the reach curve behind reliable reach (default true; it uses the same samples). */
+  withCurve?: boolean;
 }
+
+/** Samples of the reach curves the server caches and the client draws: both sides use this and the same seed. */
+export const CURVE_SAMPLES = 1000;
 
 /** Monte Carlo reach envelope. JSON-serialisable. */
 export interface ReachEnvelope {
   technique: Technique;
   samples: number;
   seed: number;
+  /** Distance the sampled kicks were aimed at, m. */
+  aimDistanceM: number;
   /** Share of sampled kicks that landed within the 30 s cap. */
   landedShare: number;
   /** Carry (horizontal distance from the kick spot to landing). */
@@ -60,6 +68,8 @@ export interface ReachEnvelope {
   /** Every sampled landing point (x along the aim, y to the left), rounded to 1 mm. */
   cloud: { xM: number[]; yM: number[] };
   hit: (Required<EnvelopeTarget> & { probability: number }) | null;
+  /** Hit probability of kicks aimed at each distance (null when asked for none). */
+  curve: ReachCurve | null;
   reliableReach: { targetRadiusM: number; minProbability: number; distanceM: number | null };
 }
 
@@ -102,55 +112,7 @@ function ellipseOf(xs: readonly number[], ys: readonly number[]): LandingEllipse
   };
 }
 
-/** Validate the parts of a profile the Monte Carlo uses (it may have come through JSON). */
-function checkProfile(p: KickProfile): void {
-  if (p === null || typeof p !== 'object') throw new RangeError('profile must be an object');
-  requireInHalfOpen('profile.meanSpeedMs', p.meanSpeedMs, 0, 60, 'm/s');
-  requireInRange('profile.sdSpeedMs', p.sdSpeedMs, 0, 30, 'm/s');
-  requireInRange('profile.meanSpeedSeMs', p.meanSpeedSeMs, 0, 30, 'm/s');
-  requireInRange('profile.meanAzimuthDeg', p.meanAzimuthDeg, -45, 45, '°');
-  requireInRange('profile.sdAzimuthDeg', p.sdAzimuthDeg, 0, 30, '°');
-  requireInRange('profile.meanAzimuthSeDeg', p.meanAzimuthSeDeg, 0, 30, '°');
-  requireInHalfOpen('profile.elevationDeg', p.elevationDeg, 0, 90, '°');
-  requireInRange('profile.sdElevationDeg', p.sdElevationDeg, 0, 30, '°');
-  requireInRange('profile.backspinRps', p.backspinRps, -30, 30, 'rev/s');
-  requireInRange('profile.sidespinRps', p.sidespinRps, -30, 30, 'rev/s');
-  requireInRange('profile.sdBackspinRps', p.sdBackspinRps, 0, 30, 'rev/s');
-  requireInRange('profile.sdSidespinRps', p.sdSidespinRps, 0, 30, 'rev/s');
-}
-
-function clamp(v: number, lo: number, hi: number): number {
-  return v < lo ? lo : v > hi ? hi : v;
-}
-
-/** One sampled launch: predictive draws (parameter uncertainty included) for speed and aim. */
-export interface SampledLaunch {
-  speed: number;
-  elevationDeg: number;
-  azimuthDeg: number;
-  backspinRps: number;
-  sidespinRps: number;
-}
-
-/** Draw `samples` launches from a profile with a seeded stream; shared by envelopes and set-piece checks. */
-export function sampleLaunches(p: KickProfile, samples: number, seed: number): SampledLaunch[] {
-  checkProfile(p);
-  requireInteger('samples', samples, 1, 200000);
-  const rng = new SeededRandom(seed);
-  const sdSpeed = Math.hypot(p.sdSpeedMs, p.meanSpeedSeMs);
-  const sdAim = Math.hypot(p.sdAzimuthDeg, p.meanAzimuthSeDeg);
-  const out: SampledLaunch[] = [];
-  for (let i = 0; i < samples; i++) {
-    out.push({
-      speed: clamp(p.meanSpeedMs + sdSpeed * rng.normal(), 1, 60),
-      elevationDeg: clamp(p.elevationDeg + p.sdElevationDeg * rng.normal(), 0.5, 89.5),
-      azimuthDeg: clamp(p.meanAzimuthDeg + sdAim * rng.normal(), -45, 45),
-      backspinRps: clamp(p.backspinRps + p.sdBackspinRps * rng.normal(), -30, 30),
-      sidespinRps: clamp(p.sidespinRps + p.sdSidespinRps * rng.normal(), -30, 30),
-    });
-  }
-  return out;
-}
+export { sampleLaunches, type SampledLaunch } from './sampling';
 
 /**
  * Monte Carlo reach envelope of `profile` under `conditions` ({} = defaults). Same seed → identical
@@ -158,30 +120,38 @@ export function sampleLaunches(p: KickProfile, samples: number, seed: number): S
  * their means (a predictive envelope), and launch angle and spin from the spreads the fit saw.
  */
 export function reachEnvelope(
-  profile: KickProfile,
+  given: KickProfile,
   conditions: FlightConditions,
   options: EnvelopeOptions,
 ): ReachEnvelope {
   if (options === null || typeof options !== 'object')
     throw new RangeError('options must be an object with samples and seed');
-  const launches = sampleLaunches(profile, options.samples, options.seed);
-  const resolved = resolveConditions(conditions ?? {});
+  const profile = checkedProfile(given);
+  requireInteger('samples', options.samples, 1, 200000);
+  const aimDistanceM = requireInHalfOpen(
+    'aimDistanceM',
+    options.aimDistanceM ?? options.target?.distanceM ?? profile.aimedSpeed.typicalTargetM,
+    0,
+    200,
+    'm',
+  );
+  const aimed = new AimedSamples(profile, conditions ?? {}, options.samples, options.seed);
   const xs: number[] = [];
   const ys: number[] = [];
   const carry: number[] = [];
   let landed = 0;
-  for (const launch of launches) {
-    const f = integrateFlight(buildModel(resolved, launch), { settings: DEFAULT_SOLVER_SETTINGS });
-    if (f.landed) landed++;
-    xs.push(Math.round(f.landing.x * 1000) / 1000);
-    ys.push(Math.round(f.landing.y * 1000) / 1000);
-    carry.push(f.carryM);
+  for (const p of aimed.flownAt(aimDistanceM)) {
+    if (p.landed) landed++;
+    xs.push(Math.round(p.x * 1000) / 1000);
+    ys.push(Math.round(p.y * 1000) / 1000);
+    carry.push(p.carryM);
   }
   const partial = {
     technique: profile.technique,
     samples: options.samples,
     seed: options.seed,
-    landedShare: landed / launches.length,
+    aimDistanceM,
+    landedShare: landed / options.samples,
     carryM: summarise(carry),
     lateralM: summarise(ys),
     ellipse: ellipseOf(xs, ys),
@@ -199,13 +169,15 @@ export function reachEnvelope(
     };
   }
   const radius = options.reliableReachRadiusM ?? options.target?.radiusM ?? DEFAULT_REACH_RADIUS_M;
+  const curve = options.withCurve === false ? null : aimed.curve(options.seed);
   return {
     ...partial,
     hit,
+    curve,
     reliableReach: {
       targetRadiusM: radius,
       minProbability: RELIABLE_REACH_PROBABILITY,
-      distanceM: reliableReachM(partial, radius),
+      distanceM: curve ? reliableReachM(curve, radius) : null,
     },
   };
 }
@@ -239,42 +211,15 @@ export function hitProbability(
 }
 
 /**
- * Reliable reach: the longest target distance on the aim line, on a 0.1 m grid, hit with
- * at least `minProbability` (default 60 %) for a target of `targetRadiusM`; null if none is.
+ * Reliable reach: the longest target distance, to 0.1 m, that kicks aimed at it hit with at least
+ * `minProbability` (default 60 %) for a target of `targetRadiusM`; null if none is. Read off a reach
+ * curve, because launch speed follows the target: one landing cloud cannot answer for every distance.
  */
 export function reliableReachM(
-  envelope: EnvelopeCloud,
+  curve: ReachCurve,
   targetRadiusM: number,
   minProbability = RELIABLE_REACH_PROBABILITY,
 ): number | null {
   requireInHalfOpen('targetRadiusM', targetRadiusM, 0, 100, 'm');
-  requireInHalfOpen('minProbability', minProbability, 0, 1);
-  const { xM, yM } = envelope.cloud;
-  const n = xM.length;
-  if (n === 0) throw new RangeError('envelope has no samples');
-  const order = xM.map((_, i) => i).sort((a, b) => xM[a]! - xM[b]!);
-  const sortedX = order.map((i) => xM[i]!);
-  const lowerBound = (x: number): number => {
-    let lo = 0;
-    let hi = n;
-    while (lo < hi) {
-      const mid = (lo + hi) >> 1;
-      if (sortedX[mid]! < x) lo = mid + 1;
-      else hi = mid;
-    }
-    return lo;
-  };
-  const r2 = targetRadiusM * targetRadiusM;
-  const needed = Math.ceil(minProbability * n - 1e-9);
-  for (let k = Math.ceil((sortedX[n - 1]! + targetRadiusM) * 10); k >= 1; k--) {
-    const d = k / 10;
-    let hits = 0;
-    for (let j = lowerBound(d - targetRadiusM); j < n && sortedX[j]! <= d + targetRadiusM; j++) {
-      const dc = sortedX[j]! - d;
-      const dl = yM[order[j]!]!;
-      if (dc * dc + dl * dl <= r2) hits++;
-    }
-    if (hits >= needed) return d;
-  }
-  return null;
+  return curveReliableReachM(curve, targetRadiusM, minProbability);
 }

@@ -36,7 +36,10 @@ export {
   WALL_DISTANCE_M,
 } from './constants';
 export type { BallSize } from './constants';
-export { hitProbability, reachEnvelope, reliableReachM, RELIABLE_REACH_PROBABILITY } from './envelope';
+export { CURVE_SAMPLES, hitProbability, reachEnvelope, reliableReachM, RELIABLE_REACH_PROBABILITY } from './envelope';
+export { curveHitProbability, CURVE_RADII_M, reachCurve } from './reach-curve';
+export type { CurveOptions, ReachCurve } from './reach-curve';
+export type { AimedSpeedFit } from './aimed-speed';
 export type { EnvelopeCloud, EnvelopeOptions, EnvelopeTarget, LandingEllipse, ReachEnvelope } from './envelope';
 export type { DistributionSummary } from './stats';
 export { DEFAULT_SOLVER_SETTINGS, TIGHT_SOLVER_SETTINGS } from './integrate';
@@ -44,7 +47,7 @@ export type { SolverSettings } from './integrate';
 export { INVERSE_MAX_SPEED_MS, INVERSE_MIN_SPEED_MS, solveLaunchSpeed } from './inverse';
 export type { LaunchSpeedQuery } from './inverse';
 export { fitProfile } from './profile';
-export { DEFAULT_PRIORS } from './profile-types';
+export { CEILING_PRIOR_LOG_SD, DEFAULT_CEILINGS_MS, DEFAULT_PRIORS } from './profile-types';
 export type { KickProfile, LoggedKick, ProfileObservationCounts, ProfilePrior } from './profile-types';
 export { DEFAULT_WALL_HEIGHT_M, GOAL_CROSSING, setPieceCheck, setPieceCloud, setPieceGeometry } from './set-piece';
 export type { GoalCrossingKind, GoalMouthCloud, SetPieceCloudResult, SetPieceInput, SetPieceResult, SetPieceShares } from './set-piece';

@@ -1,9 +1,11 @@
 /**
  * Turning coarse Pitchside logs into censored observations of launch speed and aim, through the
- * forward model and its inverse. Convention for outcomes (how Pitchside asks coaches to log):
- * `short`/`long` describe carry and take precedence; `left`/`right` mean the carry was within the target
- * radius band but the ball missed sideways; `on_target` means both were within the radius; `over` means
- * the ball was still in the air at the target line (carry > target distance); `blocked` says nothing.
+ * forward model and its inverse. Convention for outcomes (how Pitchside asks coaches to log): a miss is
+ * called by its larger error — `short`/`long` when the carry error is at least the lateral one, so the
+ * carry missed by at least r/√2 for a target of radius r; `left`/`right` when the lateral error is the
+ * larger, so the ball landed at least r/√2 to that side and (taken as) within the radius band in carry;
+ * `on_target` means within the radius; `over` means the ball was still in the air at the target line
+ * (carry > target distance); `blocked` says nothing.
  */
 
 import { DEFAULT_ELEVATION_DEG, SIDESPIN_STEP_RPS, SPIN_STEP_RPS, TECHNIQUES } from './constants';
@@ -146,15 +148,16 @@ export function speedObservation(kick: PreparedKick, bounds: SpeedBounds): Censo
   }
   const d = kick.targetDistanceM;
   const r = kick.targetRadiusM;
+  const m = r * Math.SQRT1_2;
   switch (kick.outcome) {
     case 'on_target':
     case 'left':
     case 'right':
       return { lo: bounds.speedFor(kick, d - r), hi: bounds.speedFor(kick, d + r) };
     case 'short':
-      return d - r > 0 ? { lo: Number.NEGATIVE_INFINITY, hi: bounds.speedFor(kick, d - r) } : null;
+      return d - m > 0 ? { lo: Number.NEGATIVE_INFINITY, hi: bounds.speedFor(kick, d - m) } : null;
     case 'long':
-      return { lo: bounds.speedFor(kick, d + r), hi: Number.POSITIVE_INFINITY };
+      return { lo: bounds.speedFor(kick, d + m), hi: Number.POSITIVE_INFINITY };
     case 'over':
       return { lo: bounds.speedFor(kick, d), hi: Number.POSITIVE_INFINITY };
     case 'blocked':
@@ -163,25 +166,26 @@ export function speedObservation(kick: PreparedKick, bounds: SpeedBounds): Censo
 }
 
 /**
- * The aim (launch azimuth, degrees) observation a repetition gives, or null. Lateral offsets map to
- * azimuth through the kick's own reference flight: in still air a kick turned by an azimuth a lands at
- * its reference landing point turned by a, so lateral = ρ sin(a + φ₀). With wind this is an approximation.
+ * The aim error (launch azimuth, degrees, relative to the aim that brings this kick's own curl back onto
+ * the target line) a repetition gives, or null. Players aim off for the curl they put on the ball, so
+ * the lateral offset maps to an aim error through the kick's reference flight: in still air a kick
+ * turned by an angle lands at its reference landing point turned by it, so lateral = ρ sin(a) once the
+ * curl angle φ₀ is aimed off. With wind this is an approximation.
  */
 export function aimObservation(kick: PreparedKick, speedMs: number): Censored | null {
   const r = kick.targetRadiusM;
   let lateral: Censored | null = null;
   if (kick.lateralM !== null) lateral = { lo: kick.lateralM, hi: kick.lateralM };
   else if (kick.outcome === 'on_target') lateral = { lo: -r, hi: r };
-  else if (kick.outcome === 'left') lateral = { lo: r, hi: Number.POSITIVE_INFINITY };
-  else if (kick.outcome === 'right') lateral = { lo: Number.NEGATIVE_INFINITY, hi: -r };
+  else if (kick.outcome === 'left') lateral = { lo: r * Math.SQRT1_2, hi: Number.POSITIVE_INFINITY };
+  else if (kick.outcome === 'right') lateral = { lo: Number.NEGATIVE_INFINITY, hi: -r * Math.SQRT1_2 };
   if (lateral === null) return null;
   const ref = referenceFlight(kick, speedMs);
   const rho = Math.hypot(ref.landingX, ref.landingY);
   if (!(rho > 0.5)) return null;
-  const phi0 = Math.atan2(ref.landingY, ref.landingX);
   const toAzimuth = (lat: number): number => {
     if (lat === Number.POSITIVE_INFINITY || lat === Number.NEGATIVE_INFINITY) return lat;
-    return (Math.asin(Math.max(-1, Math.min(1, lat / rho))) - phi0) / DEG;
+    return Math.asin(Math.max(-1, Math.min(1, lat / rho))) / DEG;
   };
   return { lo: toAzimuth(lateral.lo), hi: toAzimuth(lateral.hi) };
 }

@@ -4,6 +4,7 @@
  * cached on the server.
  */
 
+import type { AimedSpeedFit } from './aimed-speed';
 import type { BackspinStep, FlightConditions, KickOutcome, SidespinStep, Technique } from './types';
 
 /** One logged repetition, as stored in `kicks` (optional device fields may be null). */
@@ -34,6 +35,8 @@ export interface ProfilePrior {
   sdAzimuthDeg: number;
   /** How many repetitions the prior is worth. */
   weightReps: number;
+  /** Prior speed ceiling, m/s (default: the technique's entry in DEFAULT_CEILINGS_MS). */
+  ceilingMs?: number;
 }
 
 /** How each repetition entered the fit. */
@@ -56,12 +59,19 @@ export interface KickProfile {
   repetitions: number;
   /** Repetitions that carried no usable information (e.g. blocked). */
   ignoredRepetitions: number;
+  /**
+   * Launch speed at the typical target (`aimedSpeed.typicalTargetM`), its spread and standard errors:
+   * a description of the player's usual ball, used where no target is given (set pieces). Envelopes
+   * for a target use `aimedSpeed`.
+   */
   meanSpeedMs: number;
   sdSpeedMs: number;
   /** Standard error of `meanSpeedMs` (from the curvature of the log-posterior). */
   meanSpeedSeMs: number;
   /** Standard error of `sdSpeedMs`. */
   sdSpeedSeMs: number;
+  /** How launch speed follows the target distance, with the player's ceiling (see aimed-speed.ts). */
+  aimedSpeed: AimedSpeedFit;
   /** Mean launch azimuth relative to the aim, degrees, + = left. */
   meanAzimuthDeg: number;
   sdAzimuthDeg: number;
@@ -83,6 +93,16 @@ export interface KickProfile {
   /** The prior the fit used. */
   prior: ProfilePrior;
 }
+
+/**
+ * Prior speed ceilings by technique, m/s: maximal instep kicks reach 26–35 m/s (Andersen & Dörge 2011,
+ * Scand. J. Med. Sci. Sports 21:79); lofted and curled balls are struck a little below that and chips
+ * well below (common practice). The fit moves them when repetitions fall short of far targets.
+ */
+export const DEFAULT_CEILINGS_MS: Readonly<Record<Technique, number>> = { driven: 30, lofted: 29, curled: 27, chipped: 22 };
+
+/** Spread of the prior on ln(ceiling): a factor of about e^0.2 ≈ 1.22 either way (common practice). */
+export const CEILING_PRIOR_LOG_SD = 0.2;
 
 /**
  * Default priors by technique (common practice, no source): 20–30 m/s is typical for

@@ -163,6 +163,47 @@ export function inverseHessian2(
   ];
 }
 
+/**
+ * Inverse of the finite-difference Hessian of an n-variable function at x (Gauss–Jordan with partial
+ * pivoting). Falls back to the inverse diagonal, floored, when the Hessian is not positive definite.
+ */
+export function inverseHessian(f: (x: number[]) => number, x: readonly number[], h: readonly number[]): number[][] {
+  const n = x.length;
+  const at = (d: number[]): number => f(x.map((v, i) => v + d[i]!));
+  const fx = f(x.slice());
+  const H: number[][] = Array.from({ length: n }, () => new Array<number>(n).fill(0));
+  for (let i = 0; i < n; i++) {
+    const e = (k: number, s: number): number[] => x.map((_, j) => (j === k ? s * h[k]! : 0));
+    H[i]![i] = (at(e(i, 1)) - 2 * fx + at(e(i, -1))) / (h[i]! * h[i]!);
+    for (let j = 0; j < i; j++) {
+      const d = (si: number, sj: number): number[] => x.map((_, k) => (k === i ? si * h[i]! : k === j ? sj * h[j]! : 0));
+      const v = (at(d(1, 1)) - at(d(1, -1)) - at(d(-1, 1)) + at(d(-1, -1))) / (4 * h[i]! * h[j]!);
+      H[i]![j] = v;
+      H[j]![i] = v;
+    }
+  }
+  const inverse = invertPositiveDefinite(H);
+  if (inverse) return inverse;
+  return H.map((row, i) => row.map((_, j) => (i === j ? 1 / Math.max(H[i]![i]!, 1e-6) : 0)));
+}
+
+/** Inverse of a symmetric matrix when it is positive definite (all pivots positive), else null. */
+function invertPositiveDefinite(m: readonly number[][]): number[][] | null {
+  const n = m.length;
+  const a = m.map((row, i) => [...row, ...row.map((_, j) => (i === j ? 1 : 0))]);
+  for (let c = 0; c < n; c++) {
+    const pivot = a[c]![c]!;
+    if (!(pivot > 0) || !Number.isFinite(pivot)) return null;
+    for (let k = 0; k < 2 * n; k++) a[c]![k]! /= pivot;
+    for (let r = 0; r < n; r++) {
+      if (r === c) continue;
+      const factor = a[r]![c]!;
+      for (let k = 0; k < 2 * n; k++) a[r]![k]! -= factor * a[c]![k]!;
+    }
+  }
+  return a.map((row) => row.slice(n));
+}
+
 /** Percentile p ∈ [0, 100] of ascending-sorted values, linear interpolation (Hyndman & Fan 1996, type 7). */
 export function percentileSorted(sorted: ArrayLike<number>, p: number): number {
   const n = sorted.length;

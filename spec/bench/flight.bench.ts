@@ -107,6 +107,7 @@ const profile: KickProfile = {
   sdSpeedMs: 2,
   meanSpeedSeMs: 0.3,
   sdSpeedSeMs: 0.25,
+  aimedSpeed: { offsetLogMean: 0, offsetLogSd: 0.08, offsetLogMeanSe: 0.012, offsetLogSdSe: 0.01, ceilingMs: 29, ceilingLogSe: 0.1, typicalTargetM: 40 },
   meanAzimuthDeg: 0.5,
   sdAzimuthDeg: 2,
   meanAzimuthSeDeg: 0.4,
@@ -123,7 +124,7 @@ const conditions = { air: { temperatureC: 12, altitudeM: 150 }, wind: { speedMs:
 const envelopeMs: number[] = [];
 for (let r = 0; r < 7; r++) {
   const t0 = performance.now();
-  sink += reachEnvelope(profile, conditions, { samples: 2000, seed: 11 + r, target: { distanceM: 40, radiusM: 3 } })
+  sink += reachEnvelope(profile, conditions, { samples: 2000, seed: 11 + r, target: { distanceM: 40, radiusM: 3 }, withCurve: false })
     .carryM.p50;
   envelopeMs.push(performance.now() - t0);
 }

@@ -1,63 +1,62 @@
-import { hitProbability } from '../../../shared/flight';
-import { NEXT_TARGET_BAND, bestTarget, describeNextTarget, drillLink, nextTarget } from './next-target';
+import { curveHitProbability, type ReachCurve } from '../../../shared/flight';
+import { NEXT_TARGET_BAND, bestTarget, describeNextTarget, drillLink, hitCurve, nextTarget } from './next-target';
 
-/** A cloud of landings on the aim line at the given carries. */
-function lineCloud(carries: number[]): { cloud: { xM: number[]; yM: number[] } } {
-  return { cloud: { xM: carries, yM: carries.map(() => 0) } };
-}
-
-/** n carries spread evenly over [from, to]. */
-function spread(from: number, to: number, n: number): number[] {
-  return Array.from({ length: n }, (_, i) => from + ((to - from) * i) / (n - 1));
+/** A reach curve (1 m steps to `lastM`) whose probability at every radius is `p(d)`. */
+function curveOf(lastM: number, p: (d: number) => number): ReachCurve {
+  const distancesM = Array.from({ length: lastM }, (_, i) => i + 1);
+  const radiiM = [1, 3, 5];
+  return { samples: 1000, seed: 1, distancesM, radiiM, probability: distancesM.map((d) => radiiM.map(() => p(d))) };
 }
 
 describe('nextTarget', () => {
   it('picks the far-side distance whose hit probability is nearest 55 %, on the 0.5 m grid', () => {
-    // 1000 carries evenly over 20–40 m: with a 3 m target the probability is 6/20 = 30 % in the
-    // middle, so use a 7 m radius: 14/20 = 70 % in the middle, falling off linearly past 33 m.
-    const envelope = lineCloud(spread(20, 40, 1000));
-    const result = nextTarget(envelope, 7);
+    // p falls linearly from 90 % at 10 m to 10 % at 50 m: p(d) = 0.9 − 0.02 (d − 10), so 55 % sits at d = 27.5 m.
+    const curve = curveOf(60, (d) => Math.max(0, Math.min(0.9, 0.9 - 0.02 * (d - 10))));
+    const result = nextTarget(curve, 3);
     expect(result.kind).toBe('target');
     if (result.kind !== 'target') return;
     expect(result.distanceM * 2).toBe(Math.round(result.distanceM * 2));
     expect(result.probability).toBeGreaterThanOrEqual(NEXT_TARGET_BAND.min);
     expect(result.probability).toBeLessThanOrEqual(NEXT_TARGET_BAND.max);
-    // Beyond the plateau (27–33 m), not before it.
-    expect(result.distanceM).toBeGreaterThan(33);
-    // p(d) = (40 − (d − 7)) / 20 for d in 33–47 m, so 55 % sits at d = 36; the grid holds 36.0.
-    expect(result.distanceM).toBe(36);
-    expect(result.probability).toBeCloseTo(hitProbability(envelope, 36, 7), 10);
+    expect(result.distanceM).toBe(27.5);
+    expect(result.probability).toBeCloseTo(curveHitProbability(curve, 27.5, 3), 10);
+  });
+
+  it('looks only beyond the most reliable distance', () => {
+    // Rising to 95 % at 20 m and falling after: 55 % is met at 12 m on the way up and at 28 m beyond the peak.
+    const curve = curveOf(50, (d) => Math.max(0, d <= 20 ? 0.95 - 0.05 * (20 - d) : 0.95 - 0.05 * (d - 20)));
+    const result = nextTarget(curve, 3);
+    expect(result.kind === 'target' && result.distanceM).toBe(28);
   });
 
   it('says when no distance reaches 50 %, with the best probability', () => {
-    const envelope = lineCloud(spread(0, 100, 1000));
-    const result = nextTarget(envelope, 3);
+    const result = nextTarget(curveOf(40, () => 0.08), 3);
     expect(result.kind).toBe('none');
     if (result.kind !== 'none') return;
-    expect(result.peakProbability).toBeLessThan(0.1);
+    expect(result.peakProbability).toBeCloseTo(0.08, 10);
     expect(describeNextTarget(result)).toContain('Try a larger target');
   });
 
   it('reports the nearest far-side distance when the probability jumps over the band', () => {
-    // All landings at exactly 30 m: 100 % up to 33 m, 0 % beyond — nothing in 50–60 %.
-    const result = nextTarget(lineCloud(Array.from({ length: 200 }, () => 30)), 3);
+    // 70 % up to 30 m, 20 % from 31 m: the grid point between interpolates to 45 %, outside the band.
+    const result = nextTarget(curveOf(40, (d) => (d <= 30 ? 0.7 : 0.2)), 3);
     expect(result.kind).toBe('none');
     if (result.kind !== 'none') return;
-    expect(result.peakProbability).toBe(1);
+    expect(result.peakProbability).toBeCloseTo(0.7, 10);
     expect(describeNextTarget(result)).toContain('None in the 50–60 % band');
   });
 
-  it('refuses an empty envelope', () => {
-    expect(() => nextTarget(lineCloud([]), 3)).toThrowError(RangeError);
+  it('refuses an empty curve', () => {
+    expect(() => hitCurve({ samples: 1, seed: 1, distancesM: [], radiiM: [3], probability: [] }, 3)).toThrowError(RangeError);
   });
 });
 
 describe('bestTarget', () => {
   it('finds the distance most likely to be hit', () => {
-    // Landings evenly over 20–40 m; with a 7 m target every distance from 27 to 33 m gives 70 %: the first is reported.
-    const best = bestTarget(lineCloud(spread(20, 40, 1000)), 7);
-    expect(best.distanceM).toBe(27);
-    expect(best.probability).toBeCloseTo(0.7, 2);
+    // A plateau of 70 % from 10 to 16 m: the first grid point on it is reported.
+    const best = bestTarget(curveOf(40, (d) => (d >= 10 && d <= 16 ? 0.7 : 0.3)), 3);
+    expect(best.distanceM).toBe(10);
+    expect(best.probability).toBeCloseTo(0.7, 10);
   });
 });
 

@@ -1,4 +1,4 @@
-import { type EnvelopeCloud, hitProbability } from '../../../shared/flight';
+import { curveHitProbability, type ReachCurve } from '../../../shared/flight';
 import type { Technique } from '../../../shared/schemas/sync';
 
 /** Hit probability band of a "next target": hard enough to stretch, easy enough to succeed. */
@@ -28,8 +28,8 @@ export type NextTargetResult =
  * side, and the short side of the envelope would give the same percentage for an easier ball.
  * Ties go to the longer distance.
  */
-export function nextTarget(envelope: EnvelopeCloud, radiusM: number): NextTargetResult {
-  const grid = hitCurve(envelope, radiusM);
+export function nextTarget(curve: ReachCurve, radiusM: number): NextTargetResult {
+  const grid = hitCurve(curve, radiusM);
   const peak = peakIndex(grid);
   let best: { distanceM: number; probability: number } | null = null;
   let nearest: { distanceM: number; probability: number } | null = null;
@@ -57,21 +57,16 @@ export function nextTarget(envelope: EnvelopeCloud, radiusM: number): NextTarget
   };
 }
 
-/** Predicted hit probability on the aim line at every 0.5 m out to the farthest landing plus the radius. */
-export function hitCurve(envelope: EnvelopeCloud, radiusM: number): { distanceM: number; probability: number }[] {
-  const xs = envelope.cloud.xM;
-  if (xs.length === 0) {
-    throw new RangeError('envelope has no samples');
+/** Predicted hit probability of kicks aimed at every 0.5 m out to the end of the reach curve. */
+export function hitCurve(curve: ReachCurve, radiusM: number): { distanceM: number; probability: number }[] {
+  const last = curve.distancesM[curve.distancesM.length - 1];
+  if (last === undefined) {
+    throw new RangeError('reach curve has no distances');
   }
-  let farthest = 0;
-  for (const x of xs) {
-    farthest = Math.max(farthest, x);
-  }
-  const steps = Math.max(1, Math.ceil((farthest + radiusM) / NEXT_TARGET_GRID_M));
   const grid: { distanceM: number; probability: number }[] = [];
-  for (let k = 1; k <= steps; k++) {
+  for (let k = 1; k * NEXT_TARGET_GRID_M <= last + 1e-9; k++) {
     const distanceM = k * NEXT_TARGET_GRID_M;
-    grid.push({ distanceM, probability: hitProbability(envelope, distanceM, radiusM) });
+    grid.push({ distanceM, probability: curveHitProbability(curve, distanceM, radiusM) });
   }
   return grid;
 }
@@ -87,8 +82,8 @@ function peakIndex(grid: readonly { probability: number }[]): number {
 }
 
 /** The distance on the grid a player is most likely to hit with a target of `radiusM`, and how likely. */
-export function bestTarget(envelope: EnvelopeCloud, radiusM: number): { distanceM: number; probability: number } {
-  const grid = hitCurve(envelope, radiusM);
+export function bestTarget(curve: ReachCurve, radiusM: number): { distanceM: number; probability: number } {
+  const grid = hitCurve(curve, radiusM);
   return grid[peakIndex(grid)]!;
 }
 

@@ -40,7 +40,7 @@ describe('ReachEnvelopes', () => {
     expect(analysis.envelope).toEqual(direct);
     expect(analysis.reliableReachM).toBe(direct.reliableReach.distanceM);
     expect(analysis.reliableReachM).not.toBeNull();
-    // A faster mean launch speed carries farther: the range brackets the central value.
+    // The range is taken over the central and the two shifted fits, so it brackets the central value.
     expect(analysis.reliableReachLowM!).toBeLessThanOrEqual(analysis.reliableReachM!);
     expect(analysis.reliableReachHighM!).toBeGreaterThanOrEqual(analysis.reliableReachM!);
     expect(analysis.reliableReachHighM! - analysis.reliableReachLowM!).toBeGreaterThan(0);

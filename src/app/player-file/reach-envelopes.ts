@@ -2,8 +2,10 @@ import { Injectable, inject } from '@angular/core';
 import { Observable, defer, forkJoin, from, map, of, switchMap, tap } from 'rxjs';
 import {
   BALL_SIZES,
+  CURVE_SAMPLES,
   type FlightConditions,
   type KickProfile,
+  type ReachCurve,
   type ReachEnvelope,
 } from '../../../shared/flight';
 import type { ProfileEntry } from '../../../shared/schemas/analysis';
@@ -14,11 +16,11 @@ import { ANSWER_STORE } from './cached-answer';
 import { type NextTargetResult, bestTarget, nextTarget } from './next-target';
 
 /**
- * Samples and seed of the standard-conditions envelope. They match the server's cached envelope
- * (the one behind `reliableReachM` in a profile answer), so the number the server reports and the
- * cloud drawn here agree to the decimetre.
+ * Samples and seed of the standard-conditions envelope and its reach curve. They match the server's
+ * cached curve (the one behind `reliableReachM` in a profile answer), so the number the server reports
+ * and the one computed here agree.
  */
-export const ENVELOPE_SAMPLES = 1000;
+export const ENVELOPE_SAMPLES = CURVE_SAMPLES;
 /** See {@link ENVELOPE_SAMPLES}. */
 export const ENVELOPE_SEED = 20_260_101;
 
@@ -31,16 +33,19 @@ export function standardConditions(ballSize: number): FlightConditions {
 /** What the Player file and Squad week show about one player's reach in one technique. */
 export interface ReachAnalysis {
   readonly technique: Technique;
+  /** Landing cloud of kicks aimed at the player's typical target distance. */
   readonly envelope: ReachEnvelope;
+  /** Hit probability of kicks aimed at each distance: behind reliable reach, drill targets and the next target. */
+  readonly curve: ReachCurve;
   /** Ball size of the standard conditions the envelope was computed in. */
   readonly ballSize: number;
   /** Target radius reliable reach and the next target use: the player's usual drill radius. */
   readonly radiusM: number;
   readonly reliableReachM: number | null;
   /**
-   * Reliable reach with the fitted mean launch speed one standard error lower and higher: how far
-   * the number could move on the evidence so far. Null when not asked for, or when no distance
-   * reaches the threshold at that speed.
+   * Lowest and highest reliable reach with the fitted mean launch-speed offset one standard error
+   * softer and harder: how far the number could move on the evidence so far. Low is null when not
+   * asked for, or when some shifted fit reaches no distance at the threshold.
    */
   readonly reliableReachLowM: number | null;
   readonly reliableReachHighM: number | null;
@@ -51,12 +56,32 @@ export interface ReachAnalysis {
   readonly bestTarget: { readonly distanceM: number; readonly probability: number };
 }
 
-/** The profile with its mean launch speed moved by `shiftSe` standard errors, taken as known. */
+/**
+ * Lowest and highest reliable reach over the central fit and the two shifted ones. Striking harder
+ * than a target needs costs hits as much as striking softer, so either shift can lower the reach: the
+ * range is taken over all three, not read off as low/high.
+ */
+function reachRange(
+  central: number | null,
+  bounds: [number | null, number | null] | null,
+): { reliableReachLowM: number | null; reliableReachHighM: number | null } {
+  if (bounds === null) {
+    return { reliableReachLowM: null, reliableReachHighM: null };
+  }
+  const values = [central, ...bounds].filter((v): v is number => v !== null);
+  if (values.length === 0) {
+    return { reliableReachLowM: null, reliableReachHighM: null };
+  }
+  const low = bounds.includes(null) ? null : Math.min(...values);
+  return { reliableReachLowM: low, reliableReachHighM: Math.max(...values) };
+}
+
+/** The profile with its mean launch-speed offset moved by `shiftSe` standard errors, taken as known. */
 function shifted(profile: KickProfile, shiftSe: number): KickProfile {
+  const a = profile.aimedSpeed;
   return {
     ...profile,
-    meanSpeedMs: Math.max(1, profile.meanSpeedMs + shiftSe * profile.meanSpeedSeMs),
-    meanSpeedSeMs: 0,
+    aimedSpeed: { ...a, offsetLogMean: a.offsetLogMean + shiftSe * a.offsetLogMeanSe, offsetLogMeanSe: 0 },
   };
 }
 
@@ -74,7 +99,7 @@ export class ReachEnvelopes {
 
   /**
    * The analysis of a profile entry, or null when it has no profile yet. With `withRange`, two
-   * more envelopes (mean launch speed ±1 standard error) give the uncertainty of reliable reach.
+   * more envelopes (mean launch-speed offset ±1 standard error) give the uncertainty of reliable reach.
    */
   analyse(entry: ProfileEntry, ballSize: number, withRange: boolean): Observable<ReachAnalysis | null> {
     const profile = entry.profile;
@@ -84,7 +109,7 @@ export class ReachEnvelopes {
     const radiusM = entry.reachRadiusM;
     const conditions = standardConditions(ballSize);
     const keyOf = (variant: string): string =>
-      `${this.session.user()?.id ?? 'signed-out'}|envelope:${entry.playerId}:${entry.technique}:${entry.computedAt ?? 'none'}:${ballSize}:${ENVELOPE_SAMPLES}:${ENVELOPE_SEED}:${radiusM}:${variant}`;
+      `${this.session.user()?.id ?? 'signed-out'}|envelope-aimed:${entry.playerId}:${entry.technique}:${entry.computedAt ?? 'none'}:${ballSize}:${ENVELOPE_SAMPLES}:${ENVELOPE_SEED}:${radiusM}:${variant}`;
     const central = this.envelope(keyOf('central'), profile, conditions, radiusM);
     const range: Observable<[number | null, number | null] | null> = withRange
       ? forkJoin([
@@ -93,18 +118,24 @@ export class ReachEnvelopes {
         ]).pipe(map(([low, high]) => [low.reliableReach.distanceM, high.reliableReach.distanceM]))
       : of(null);
     return forkJoin([central, range]).pipe(
-      map(([envelope, bounds]) => ({
+      map(([envelope, bounds]) => {
+        const curve = envelope.curve;
+        if (curve === null) {
+          throw new RangeError('the envelope came without its reach curve');
+        }
+        return {
         technique: entry.technique,
         envelope,
+        curve,
         ballSize,
         radiusM,
         reliableReachM: envelope.reliableReach.distanceM,
-        reliableReachLowM: bounds?.[0] ?? null,
-        reliableReachHighM: bounds?.[1] ?? null,
+        ...reachRange(envelope.reliableReach.distanceM, bounds),
         hasRange: bounds !== null,
-        nextTarget: nextTarget(envelope, radiusM),
-        bestTarget: bestTarget(envelope, radiusM),
-      })),
+        nextTarget: nextTarget(curve, radiusM),
+        bestTarget: bestTarget(curve, radiusM),
+        };
+      }),
     );
   }
 

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { hitProbability } from '../../../shared/flight';
+import { curveHitProbability } from '../../../shared/flight';
 import type { PlayerKick } from '../../../shared/schemas/analysis';
 import { TECHNIQUE_LABELS } from '../ui/charts/kick-labels';
 import { ReachDiagram, type ReachTarget } from '../ui/charts/reach-diagram';
@@ -110,13 +110,13 @@ export class ReachPanel {
     if (r?.status !== 'ready') {
       return [];
     }
-    const envelope = r.analysis.envelope;
+    const curve = r.analysis.curve;
     const targets: ReachTarget[] = drillTargets(this.kicks(), r.technique).map((t) => ({
       distanceM: t.distanceM,
       radiusM: t.radiusM,
       kind: 'drill',
       reps: t.reps,
-      probability: hitProbability(envelope, t.distanceM, t.radiusM),
+      probability: curveHitProbability(curve, t.distanceM, t.radiusM),
     }));
     const next = r.analysis.nextTarget;
     if (next.kind === 'target') {
