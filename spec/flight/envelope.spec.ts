@@ -145,9 +145,10 @@ describe('reach curve (kicks aimed at each distance)', () => {
     // A proportional speed error spreads landings more at longer distances (common practice, no source).
     expect(curveHitProbability(curve, 15, 3)).toBeGreaterThan(curveHitProbability(curve, 40, 3));
     expect(curveHitProbability(curve, 40, 5)).toBeGreaterThan(curveHitProbability(curve, 40, 2));
-    // The envelope aimed at 40 m and the curve at 40 m use the same kicks (same samples and seed).
+    // The envelope aimed at 40 m flies the same kicks (same samples and seed) that the curve interpolates:
+    // they may differ only where the interpolation error moves a landing across the target's edge.
     const env = reachEnvelope(loftedProfile(4), still, { samples: 300, seed: 9, target: { distanceM: 40, radiusM: 3 } });
-    expect(env.hit!.probability).toBeCloseTo(curveHitProbability(curve, 40, 3), 3);
+    expect(Math.abs(env.hit!.probability - curveHitProbability(curve, 40, 3))).toBeLessThan(0.02);
     expect(JSON.parse(JSON.stringify(curve))).toEqual(curve);
   });
 });
