@@ -14,6 +14,8 @@ import { adminRouter } from './admin/admin.router';
 import { ProfileCache } from './analysis/profile-cache';
 import { digestsRouter, unsubscribeRouter } from './digests/digests.router';
 import { DigestJob } from './digests/digests.service';
+import { GroundConditionsService } from './grounds/conditions.service';
+import { groundsRouter } from './grounds/grounds.router';
 import { GuardiansService } from './guardians/guardians.service';
 import { guardiansRouter } from './guardians/guardians.router';
 import { devMailRouter } from './mail/dev-mail.router';
@@ -32,6 +34,7 @@ import { playersRouter } from './players/players.router';
 import { attachScope } from './scope/scope.middleware';
 import { squadsRouter } from './squads/squads.router';
 import { syncRouter } from './sync/sync.router';
+import { OpenMeteoClient, type WeatherSource } from './weather/open-meteo-client';
 
 /** What the app needs from the outside world. */
 export interface AppDeps {
@@ -46,6 +49,11 @@ export interface AppDeps {
   devMail?: boolean;
   /** The digest job (the server passes the one its scheduler uses). */
   digests?: DigestJob;
+  /**
+   * The weather service for session conditions. Undefined: the one `config.weatherUrl` names, if any
+   * (the server passes a client of its local fake when none is configured); null: none.
+   */
+  weather?: WeatherSource | null;
 }
 
 /** JSON bodies above this are refused (a 500-kick sync batch is far below it). */
@@ -57,6 +65,21 @@ export function createApp(deps: AppDeps): Express {
   const profiles = deps.profiles ?? new ProfileCache(db);
   const mailer = deps.mailer ?? new Mailer(db, null, config.mailFrom);
   const digests = deps.digests ?? new DigestJob(db, mailer, config);
+  const weather =
+    deps.weather !== undefined
+      ? deps.weather
+      : config.weatherUrl
+        ? new OpenMeteoClient(config.weatherUrl, { apiKey: config.weatherApiKey, timeoutMs: config.weatherTimeoutMs })
+        : null;
+  const conditions = new GroundConditionsService(
+    db,
+    weather,
+    {
+      cacheTtlS: config.weatherCacheTtlS,
+      noServiceReason: config.weatherOff ? 'The weather service is switched off on this server' : 'No weather service is configured on this server',
+    },
+    logger,
+  );
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
@@ -90,6 +113,7 @@ export function createApp(deps: AppDeps): Express {
   api.use('/squads', squadsRouter(db, profiles));
   api.use('/players', playersRouter(db, profiles));
   api.use('/sync', syncRouter(db));
+  api.use('/grounds', groundsRouter(db, conditions));
   api.use('/guardians', guardiansRouter(new GuardiansService(db)));
   api.use('/admin/players', erasureRouter(db));
   api.use('/admin', adminRouter(db, accounts));

@@ -18,6 +18,13 @@ const envSchema = z.object({
   SMTP_URL: z.string().url({ error: 'must be an smtp:// or smtps:// URL' }).optional(),
   LOFTLINE_CLIENT_DIR: z.string().min(1).optional(),
   LOFTLINE_MAIL_FROM: z.string().min(3).default('Loftline <no-reply@loftline.invalid>'),
+  WEATHER_URL: z
+    .string()
+    .url({ error: 'must be the weather service’s base URL, e.g. https://api.open-meteo.com, or "off"' })
+    .or(z.literal('off'))
+    .optional(),
+  WEATHER_API_KEY: z.string().min(1).optional(),
+  LOFTLINE_WEATHER_FAKE_PORT: z.coerce.number().int().min(0).max(65535).default(0),
 });
 
 /** The server's validated configuration. */
@@ -43,6 +50,21 @@ export interface AppConfig {
   loginFailuresPerAccount: number;
   /** Where the built Angular app lives. */
   clientDir: string;
+  /**
+   * Base URL of an Open-Meteo-compatible forecast API for session conditions. Null: the server starts
+   * its local fake (outside production) or, with `WEATHER_URL=off` or in production, asks no service.
+   */
+  weatherUrl: string | null;
+  /** Whether the weather service was switched off outright (`WEATHER_URL=off`). */
+  weatherOff: boolean;
+  /** API key for a keyed (commercial) service, sent as the `apikey` query parameter. */
+  weatherApiKey: string | null;
+  /** Loopback port of the local fake weather service (0 = any free port). */
+  weatherFakePort: number;
+  /** How long the server waits for the service before answering "unavailable" (never blocks a session start). */
+  weatherTimeoutMs: number;
+  /** How long one answer is reused for the same ground. */
+  weatherCacheTtlS: number;
 }
 
 /** Thrown when the environment is unusable; the message names the variable and the reason. */
@@ -83,6 +105,12 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Part
     loginFailuresPerIp: 50,
     loginFailuresPerAccount: 10,
     clientDir: resolve(e.LOFTLINE_CLIENT_DIR ?? 'dist/loftline/browser'),
+    weatherUrl: e.WEATHER_URL && e.WEATHER_URL !== 'off' ? e.WEATHER_URL.replace(/\/+$/, '') : null,
+    weatherOff: e.WEATHER_URL === 'off',
+    weatherApiKey: e.WEATHER_API_KEY ?? null,
+    weatherFakePort: e.LOFTLINE_WEATHER_FAKE_PORT,
+    weatherTimeoutMs: 2000,
+    weatherCacheTtlS: 10 * 60,
     ...overrides,
   };
 }

@@ -1,6 +1,6 @@
 /**
  * Starts Loftline: opens and migrates the database, loads the demo scenario into an empty
- * one, starts the local fake mail server (outside production) and listens.
+ * one, starts the local fake mail and weather servers (when no real ones are configured) and listens.
  */
 import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
@@ -15,12 +15,16 @@ import { scheduleDigests } from './digests/scheduler';
 import { DigestJob } from './digests/digests.service';
 import { startFakeSmtp, type FakeSmtp } from './mail/fake-smtp';
 import { Mailer } from './mail/mailer';
+import { startFakeWeather, type FakeWeather } from './weather/fake-weather';
+import { OpenMeteoClient } from './weather/open-meteo-client';
 
 /** A running Loftline server. */
 export interface RunningServer {
   port: number;
   db: Db;
   smtp: FakeSmtp | null;
+  /** The local fake weather service, when no real one is configured (outside production). */
+  weather: FakeWeather | null;
   close(): Promise<void>;
 }
 
@@ -58,7 +62,18 @@ export async function startServer(config: AppConfig, options: StartOptions = {})
   const stopSchedule = scheduleDigests(db, digests, logger);
   const retry = setInterval(() => void mailer.flush().catch((err: unknown) => logger.error({ err }, 'mail flush failed')), 60_000);
   retry.unref();
-  const app = createApp({ db, config, logger, profiles, mailer, digests, devMail: smtp !== null });
+  let fakeWeather: FakeWeather | null = null;
+  if (!config.weatherUrl && !config.weatherOff && config.env !== 'production') {
+    try {
+      fakeWeather = await startFakeWeather(config.weatherFakePort);
+      logger.info({ url: fakeWeather.url }, 'no WEATHER_URL: a local fake weather service answers session conditions (deterministic per coordinate)');
+    } catch (err) {
+      logger.warn({ err }, 'the fake weather service could not start; Pitchside keeps the coach’s taps');
+    }
+  }
+  const weatherUrl = config.weatherUrl ?? fakeWeather?.url ?? null;
+  const weather = weatherUrl ? new OpenMeteoClient(weatherUrl, { apiKey: config.weatherApiKey, timeoutMs: config.weatherTimeoutMs }) : null;
+  const app = createApp({ db, config, logger, profiles, mailer, digests, devMail: smtp !== null, weather });
   const server: Server = await new Promise((resolveServer, reject) => {
     const s = app.listen(config.port, () => resolveServer(s));
     s.once('error', reject);
@@ -69,6 +84,7 @@ export async function startServer(config: AppConfig, options: StartOptions = {})
     port,
     db,
     smtp,
+    weather: fakeWeather,
     close: async () => {
       profiles.stop();
       stillAir.stop();
@@ -77,6 +93,7 @@ export async function startServer(config: AppConfig, options: StartOptions = {})
       mailer.close();
       await new Promise<void>((done) => server.close(() => done()));
       await smtp?.close();
+      await fakeWeather?.close();
       db.$client.close();
     },
   };

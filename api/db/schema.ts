@@ -53,6 +53,27 @@ export const trainingGrounds = sqliteTable(
   (t) => [index('training_grounds_club_idx').on(t.clubId)],
 );
 
+/**
+ * The last answer of the weather service for a ground, so replicas of the API share one cache and a
+ * squad of phones starting sessions together costs one call. The coordinates asked about are kept:
+ * an answer for a ground whose position has since been corrected is not reused.
+ */
+export const groundConditions = sqliteTable('ground_conditions', {
+  groundId: text('ground_id')
+    .primaryKey()
+    .references(() => trainingGrounds.id),
+  latitude: real('latitude').notNull(),
+  longitude: real('longitude').notNull(),
+  fetchedAt: text('fetched_at').notNull(),
+  observedAt: text('observed_at').notNull(),
+  temperatureC: real('temperature_c').notNull(),
+  relativeHumidityPct: real('relative_humidity_pct').notNull(),
+  pressureHpa: real('pressure_hpa').notNull(),
+  windSpeedMs: real('wind_speed_ms').notNull(),
+  /** Compass bearing the wind blows from (WMO convention), not relative to the kicking direction. */
+  windFromBearingDeg: real('wind_from_bearing_deg').notNull(),
+});
+
 /** Accounts. `role` is one of DESIGN §2's five roles. */
 export const users = sqliteTable(
   'users',
@@ -183,6 +204,8 @@ export const trainingSessions = sqliteTable(
     ballSize: integer('ball_size').notNull().default(5),
     /** JSON map of condition field → where it came from ('coach', 'ground', 'weather', 'default'). */
     conditionsSourceJson: text('conditions_source_json'),
+    /** When the weather service measured the values whose source is 'weather' (ISO 8601 UTC); null when none is. */
+    conditionsObservedAt: text('conditions_observed_at'),
     notes: text('notes'),
     recordedBy: text('recorded_by').references(() => users.id),
     deviceId: text('device_id'),

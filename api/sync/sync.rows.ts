@@ -34,6 +34,8 @@ export function sessionToSync(r: SessionRow): SyncRow {
     windFromDeg: r.windFromDeg,
     ballSize: r.ballSize,
     conditionsSource: r.conditionsSourceJson ? (JSON.parse(r.conditionsSourceJson) as Record<string, string>) : null,
+    groundId: r.groundId,
+    conditionsObservedAt: r.conditionsObservedAt,
     notes: r.notes,
     recordedBy: r.recordedBy,
   };
@@ -93,6 +95,9 @@ export function sessionColumns(d: SessionData) {
     windFromDeg: d.windFromDeg ?? null,
     ballSize: d.ballSize,
     conditionsSourceJson: d.conditionsSource ? JSON.stringify(d.conditionsSource) : null,
+    // Undefined (an older client that does not know the field) leaves the stored value alone.
+    groundId: d.groundId,
+    conditionsObservedAt: d.conditionsObservedAt,
     notes: d.notes ?? null,
   };
 }

@@ -156,6 +156,9 @@ function applySession(db: Db, scope: Scope, deviceId: string, m: Parsed, now: st
   }
   const d: SessionData = parseData(ENTITY_SCHEMAS.training_session, m.data);
   if (!scope.canWriteSquad(d.squadId)) throw forbidden('this squad’s sessions');
+  if (d.groundId && !cachedStatement(db.$client, 'SELECT 1 FROM training_grounds WHERE id = ? AND club_id = ?').get(d.groundId, scope.user.clubId)) {
+    throw new Rejection('invalid', 'data.groundId: not a training ground of your club', [{ field: 'data.groundId', message: 'Unknown training ground' }]);
+  }
   if (existing) {
     if (!scope.canWriteSquad(existing.squadId)) throw forbidden('this squad’s sessions');
     const stop = checkExisting(m, existing, sessionToSync, scope);

@@ -6,6 +6,21 @@ export interface SquadSummary {
   /** Ball size the squad trains with (3, 4 or 5). */
   ballSize: number;
   playerCount: number;
+  /**
+   * Where the squad usually trains (altitude and kicking bearing for session conditions), cached on
+   * the phone with the squad so a session started with no signal still gets the ground's altitude.
+   * Absent from older servers' answers.
+   */
+  ground?: SquadGround | null;
+}
+
+/** The ground facts Pitchside needs at session start. */
+export interface SquadGround {
+  id: string;
+  name: string;
+  altitudeM: number;
+  /** Compass bearing of the main kicking direction (0 = north, 90 = east). */
+  kickingBearingDeg: number;
 }
 
 /** A player as `GET /api/players` lists it (scoped to the caller). */

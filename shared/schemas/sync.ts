@@ -79,6 +79,10 @@ export const sessionDataSchema = z.object({
   windFromDeg: num('windFromDeg', 0, 360, '°').nullish(),
   ballSize: z.union([z.literal(3), z.literal(4), z.literal(5)], { error: 'ballSize must be 3, 4 or 5' }),
   conditionsSource: z.record(z.string(), z.enum(['coach', 'ground', 'weather', 'default'])).nullish(),
+  /** The training ground (absent from older clients' pushes: the server then keeps what it has). */
+  groundId: uuid('groundId').nullish(),
+  /** When the weather service measured the values whose source is 'weather'. */
+  conditionsObservedAt: isoDateTime('conditionsObservedAt').nullish(),
   notes: z.string().max(2000, { error: 'notes must be at most 2000 characters' }).nullish(),
   updatedAt: isoDateTime('updatedAt').optional(),
 });

@@ -3,7 +3,7 @@ import { randomUUID } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import request from 'supertest';
 import { guardianLinks, players, users } from '../../api/db/schema';
-import { DEMO_ACCOUNTS, DEMO_SQUAD_IDS } from '../../seed/scenario';
+import { DEMO_ACCOUNTS, DEMO_GROUND_ID, DEMO_SQUAD_IDS } from '../../seed/scenario';
 import { createTestApp, OTHER_CLUB, signIn, type TestApp } from './fixture';
 
 type Who = 'public' | 'admin' | 'head_coach' | 'assistant_coach' | 'player' | 'guardian';
@@ -37,6 +37,10 @@ const MATRIX: Record<string, Who[] | 'public'> = {
   'GET /api/players/:id/kicks': [...STAFF, 'player'],
   'GET /api/players/:id/profile': [...STAFF, 'player'],
   'POST /api/sync/push': STAFF,
+  'GET /api/grounds': STAFF,
+  'POST /api/grounds': ['admin'],
+  'PUT /api/grounds/:id': ['admin'],
+  'GET /api/grounds/:id/conditions': STAFF,
   'GET /api/sync/pull': [...STAFF, 'player'],
   'GET /api/guardians/consent-text': ALL,
   'GET /api/guardians/links': ['admin', 'guardian'],
@@ -100,6 +104,7 @@ describe('route × role security matrix', () => {
   function pathFor(route: string): string {
     const path = route.split(' ')[1]!;
     if (path.startsWith('/api/squads/:id')) return path.replace(':id', ids['squad']!);
+    if (path.startsWith('/api/grounds/:id')) return path.replace(':id', DEMO_GROUND_ID);
     if (path.startsWith('/api/guardians/links/:id')) return path.replace(':id', ids['link']!);
     if (path.includes(':playerId')) return path.replace(':playerId', ids['child']!);
     // Erasure is tried on an id that does not exist, so allowed roles get 404 and nothing is erased.

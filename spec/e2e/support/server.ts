@@ -35,8 +35,8 @@ export function freePort(): Promise<number> {
   });
 }
 
-/** Starts the server; pass `dbPath`/`port` to restart on the same database and port. */
-export async function startE2eServer(options: { dbPath?: string; port?: number } = {}): Promise<E2eServer> {
+/** Starts the server; pass `dbPath`/`port` to restart on the same database and port, `env` for more settings (e.g. `WEATHER_URL`). */
+export async function startE2eServer(options: { dbPath?: string; port?: number; env?: Record<string, string> } = {}): Promise<E2eServer> {
   const dir = options.dbPath ? null : mkdtempSync(join(tmpdir(), 'loftline-e2e-'));
   const dbPath = options.dbPath ?? join(dir!, 'e2e.db');
   const port = options.port ?? (await freePort());
@@ -50,6 +50,7 @@ export async function startE2eServer(options: { dbPath?: string; port?: number }
       LOFTLINE_SMTP_PORT: '0',
       LOFTLINE_LOG_LEVEL: 'warn',
       LOFTLINE_JWT_SECRET: 'e2e-secret-0123456789-0123456789-abcdef',
+      ...options.env,
     },
     stdio: ['ignore', 'pipe', 'pipe'],
   });

@@ -1,6 +1,7 @@
 import { Routes } from '@angular/router';
 import { CapturedMail } from './captured-mail';
 import { ClubAdmin } from './club-admin';
+import { GroundList } from './ground-list';
 import { GuardianLinks } from './guardian-links';
 import { InviteForm } from './invite-form';
 import { OutboxView } from './outbox-view';
@@ -16,6 +17,7 @@ export const ADMIN_ROUTES: Routes = [
     children: [
       { path: '', pathMatch: 'full', redirectTo: 'guardians' },
       { path: 'guardians', title: 'Guardians · Club admin · Loftline', component: GuardianLinks },
+      { path: 'grounds', title: 'Training grounds · Club admin · Loftline', component: GroundList },
       { path: 'invites', title: 'Invitations · Club admin · Loftline', component: InviteForm },
       { path: 'outbox', title: 'Outbox · Club admin · Loftline', component: OutboxView },
       { path: 'mail', title: 'Captured mail · Club admin · Loftline', component: CapturedMail },

@@ -11,13 +11,14 @@ interface AdminSection {
 const SECTIONS: readonly AdminSection[] = [
   { path: 'guardians', label: 'Guardians' },
   { path: 'invites', label: 'Invitations' },
+  { path: 'grounds', label: 'Grounds' },
   { path: 'outbox', label: 'Outbox' },
   { path: 'mail', label: 'Captured mail' },
 ];
 
 /**
  * Club admin (`/admin`): the administrator's page for guardian links and consent, invitations,
- * and mail delivery. Sections are routed tabs rather than one long page so `/admin/mail` can be
+ * training grounds and mail delivery. Sections are routed tabs rather than one long page so `/admin/mail` can be
  * linked from a developer's notes and the browser's back button moves between sections.
  */
 @Component({
@@ -26,7 +27,7 @@ const SECTIONS: readonly AdminSection[] = [
   template: `
     <header class="admin__header">
       <h1 class="admin__title">Club admin</h1>
-      <p class="admin__subtitle">Guardian links and consent, invitations, and the club’s outgoing mail.</p>
+      <p class="admin__subtitle">Guardian links and consent, invitations, training grounds, and the club’s outgoing mail.</p>
     </header>
     <nav mat-tab-nav-bar [tabPanel]="panel" aria-label="Club admin sections" mat-stretch-tabs="false">
       @for (section of sections; track section.path) {

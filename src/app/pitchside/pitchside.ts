@@ -44,7 +44,7 @@ export class Pitchside {
   protected readonly panelOpen = signal(false);
   protected readonly players = this.roster.livePlayers(computed(() => this.session()?.squadId ?? null));
 
-  /** The bar's summary, e.g. "U16 · Tue 18:30 · 12 °C · headwind light". */
+  /** The bar's summary, e.g. "U16 · Tue 18:30 · 12 °C · headwind light · ball 5", plus "measured 18:15" when the weather service filled it. */
   protected readonly summary = computed(() => {
     const session = this.session();
     if (!session) {
@@ -57,10 +57,16 @@ export class Pitchside {
       parts.push(`${session.temperatureC} °C`);
     }
     const wind = windLabel(session.windSpeedMs, session.windFromDeg);
+    const measuredWind = session.conditionsSource?.['windSpeedMs'] === 'weather';
     if (wind) {
-      parts.push(wind);
+      // A measured wind is a number, not a judgement: show it (e.g. "headwind moderate 6.2 m/s").
+      parts.push(measuredWind && session.windSpeedMs ? `${wind} ${Math.round(session.windSpeedMs * 10) / 10} m/s` : wind);
     }
     parts.push(`ball ${session.ballSize}`);
+    if (session.conditionsObservedAt) {
+      const at = new Date(session.conditionsObservedAt).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' });
+      parts.push(`measured ${at}`);
+    }
     return parts.join(' · ');
   });
 
