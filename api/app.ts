@@ -29,6 +29,7 @@ import { createAuthMiddleware } from './auth/passport';
 import type { AppConfig } from './config';
 import type { Db } from './db/client';
 import { errorMiddleware, NotFound } from './errors';
+import { refuseUnsafeJson } from './json-guard';
 import { meRouter } from './me/me.router';
 import { playersRouter } from './players/players.router';
 import { attachScope } from './scope/scope.middleware';
@@ -98,7 +99,7 @@ export function createApp(deps: AppDeps): Express {
   app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !(req.url ?? '').startsWith('/api') } }));
 
   const api = express.Router();
-  api.use(express.json({ limit: JSON_BODY_LIMIT }));
+  api.use(express.json({ limit: JSON_BODY_LIMIT }), refuseUnsafeJson);
   api.get('/health', (_req, res) => {
     res.json({ ok: true });
   });

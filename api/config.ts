@@ -10,6 +10,7 @@ import * as z from 'zod';
 const envSchema = z.object({
   NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
   PORT: z.coerce.number().int().min(0).max(65535).default(4300),
+  LOFTLINE_HOST: z.string().min(1).optional(),
   LOFTLINE_DB: z.string().min(1).default('data/loftline.db'),
   LOFTLINE_JWT_SECRET: z.string().min(32, { error: 'must be at least 32 characters' }).optional(),
   LOFTLINE_LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
@@ -31,6 +32,8 @@ const envSchema = z.object({
 export interface AppConfig {
   env: 'development' | 'production' | 'test';
   port: number;
+  /** Address to listen on (e.g. `127.0.0.1` for loopback only); all interfaces when absent. */
+  host: string | null;
   dbPath: string;
   jwtSecret: string;
   logLevel: 'fatal' | 'error' | 'warn' | 'info' | 'debug' | 'trace' | 'silent';
@@ -92,6 +95,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Part
   return {
     env: e.NODE_ENV,
     port: e.PORT,
+    host: e.LOFTLINE_HOST ?? null,
     dbPath,
     jwtSecret,
     logLevel: e.LOFTLINE_LOG_LEVEL,

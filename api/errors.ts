@@ -60,19 +60,37 @@ export class NotFound extends HttpError {
   }
 }
 
-/** Converts zod issues into field errors (`body` when the whole value is wrong). */
-export function fieldErrors(error: z.ZodError): FieldError[] {
-  return error.issues.map((issue) => ({
-    field: issue.path.length ? issue.path.map(String).join('.') : 'body',
-    message: issue.message,
-  }));
+/** 503: the database is locked by another writer for longer than the busy timeout; retrying later works. */
+export class DatabaseBusy extends HttpError {
+  /** Seconds the client should wait before retrying (sent as `Retry-After`). */
+  readonly retryAfterS = 2;
+  constructor() {
+    super(503, 'database_busy', 'The database is busy with another write; nothing was changed — try again in a few seconds');
+  }
 }
 
-/** Parses `value` with `schema` or throws `Invalid` naming every bad field. */
-export function parseOrThrow<S extends z.ZodType>(schema: S, value: unknown, what = 'Request'): z.infer<S> {
+/**
+ * Converts zod issues into field errors (`body` when the whole value is wrong). Unknown keys
+ * refused by a strict object are named one by one, so the caller sees which field to drop.
+ */
+export function fieldErrors(error: z.ZodError, root = 'body'): FieldError[] {
+  return error.issues.flatMap((issue) => {
+    const at = issue.path.map(String);
+    if (issue.code === 'unrecognized_keys') {
+      return issue.keys.map((key) => ({ field: [...at, key].join('.'), message: 'Unknown field' }));
+    }
+    return [{ field: at.length ? at.join('.') : root, message: issue.message }];
+  });
+}
+
+/**
+ * Parses `value` with `schema` or throws `Invalid` naming every bad field. `root` names the
+ * value itself when it is not an object (a path parameter: `id`).
+ */
+export function parseOrThrow<S extends z.ZodType>(schema: S, value: unknown, what = 'Request', root = 'body'): z.infer<S> {
   const result = schema.safeParse(value);
   if (!result.success) {
-    const fields = fieldErrors(result.error);
+    const fields = fieldErrors(result.error, root);
     const summary = fields.map((f) => `${f.field}: ${f.message}`).join('; ');
     throw new Invalid(`${what} is invalid — ${summary}`, fields);
   }
@@ -86,8 +104,20 @@ interface BodyParserError {
   message?: string;
 }
 
+/** Whether `err` is SQLite's "database is locked" (better-sqlite3 `SqliteError` codes SQLITE_BUSY, SQLITE_BUSY_SNAPSHOT, …). */
+export function isSqliteBusy(err: unknown): boolean {
+  const code = err && typeof err === 'object' && 'code' in err ? (err as { code: unknown }).code : undefined;
+  return typeof code === 'string' && (code === 'SQLITE_BUSY' || code.startsWith('SQLITE_BUSY_'));
+}
+
 /** The single error middleware. Unknown errors become a 500 without leaking internals. */
 export const errorMiddleware: ErrorRequestHandler = (err: unknown, req, res, _next) => {
+  // A write that waited out the busy timeout rolled back; tell the client to retry rather than report a server fault.
+  if (isSqliteBusy(err)) {
+    req.log?.warn({ err }, 'database busy: the write waited out the busy timeout');
+    err = new DatabaseBusy();
+  }
+  if (err instanceof DatabaseBusy) res.setHeader('Retry-After', String(err.retryAfterS));
   if (err instanceof HttpError) {
     const extra = err instanceof HttpErrorWithBody ? err.body : {};
     res.status(err.status).json({ ...extra, error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) } });

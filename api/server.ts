@@ -18,6 +18,9 @@ import { Mailer } from './mail/mailer';
 import { startFakeWeather, type FakeWeather } from './weather/fake-weather';
 import { OpenMeteoClient } from './weather/open-meteo-client';
 
+/** How long an idle kept-alive connection stays open (common practice: above a load balancer's 60 s). */
+export const KEEP_ALIVE_TIMEOUT_MS = 65_000;
+
 /** A running Loftline server. */
 export interface RunningServer {
   port: number;
@@ -75,9 +78,14 @@ export async function startServer(config: AppConfig, options: StartOptions = {})
   const weather = weatherUrl ? new OpenMeteoClient(weatherUrl, { apiKey: config.weatherApiKey, timeoutMs: config.weatherTimeoutMs }) : null;
   const app = createApp({ db, config, logger, profiles, mailer, digests, devMail: smtp !== null, weather });
   const server: Server = await new Promise((resolveServer, reject) => {
-    const s = app.listen(config.port, () => resolveServer(s));
+    const s = config.host ? app.listen(config.port, config.host, () => resolveServer(s)) : app.listen(config.port, () => resolveServer(s));
     s.once('error', reject);
   });
+  // Keep idle connections longer than a load balancer's usual 60 s idle timeout, and longer than any event-loop
+  // stall (a write waiting out SQLite's 5 s busy timeout): at Node's default of 5 s such a stall makes the server
+  // close kept-alive sockets that already carry the next request, and the client sees a reset instead of an answer.
+  server.keepAliveTimeout = KEEP_ALIVE_TIMEOUT_MS;
+  server.headersTimeout = KEEP_ALIVE_TIMEOUT_MS + 1000;
   const port = (server.address() as AddressInfo).port;
   logger.info({ port, db: config.dbPath }, `Loftline listening on http://localhost:${port}`);
   return {

@@ -58,8 +58,10 @@ export function generateLargeAcademy(db: Db, options: LargeAcademyOptions): Larg
       'INSERT INTO training_sessions (id, club_id, squad_id, started_at, temperature_c, wind_speed_ms, wind_from_deg, ball_size, change_seq) VALUES (?, ?, ?, ?, ?, ?, ?, 5, ?)',
     );
     const insKick = sqlite.prepare(
+      // still_air_carry_m takes the logged carry: synthetic carries have no conditions worth re-flying, and a server
+      // started on this database must not spend minutes normalising a million of them before it answers.
       `INSERT INTO kicks (id, club_id, session_id, player_id, technique, foot, backspin_step, sidespin_step, target_distance_m, target_radius_m,
-                          outcome, carry_m, recorded_at, change_seq) VALUES (?, ?, ?, ?, ?, 'right', 0, 0, ?, 3, ?, ?, ?, ?)`,
+                          outcome, carry_m, still_air_carry_m, recorded_at, change_seq) VALUES (?, ?, ?, ?, ?, 'right', 0, 0, ?, 3, ?, ?, ?, ?, ?)`,
     );
     for (let s = 0; s < squadsN; s++) {
       const squadId = stableId(`large:squad:${s}`);
@@ -85,7 +87,7 @@ export function generateLargeAcademy(db: Db, options: LargeAcademyOptions): Larg
             const outcome = prng.chance(0.4) ? 'on_target' : OUTCOMES[1 + Math.floor(prng.next() * 4)]!;
             const carry = prng.chance(0.35) ? Math.round((target + prng.normal(0, 4)) * 2) / 2 : null;
             const at = new Date(start.getTime() + k * 6_000).toISOString();
-            insKick.run(prng.uuid(), clubId, sessionId, playerId, technique, target, outcome, carry, at, ++seq);
+            insKick.run(prng.uuid(), clubId, sessionId, playerId, technique, target, outcome, carry, carry, at, ++seq);
             kicksWritten++;
           }
         }

@@ -5,6 +5,7 @@
  */
 import type { Db } from '../db/client';
 import { cachedStatement } from '../db/statements';
+import { isSqliteBusy } from '../errors';
 import { stillAirCarryM, type SessionConditions, type StoredKick } from './flight-inputs';
 
 interface Row extends StoredKick, SessionConditions {
@@ -71,7 +72,14 @@ export class StillAirRefresher {
 
   /** Starts ticking. */
   start(): void {
-    this.timer ??= setInterval(() => this.tick(), this.intervalMs);
+    // A database locked past the busy timeout skips this slice (the next tick retries); thrown from a timer it would end the process.
+    this.timer ??= setInterval(() => {
+      try {
+        this.tick();
+      } catch (err) {
+        if (!isSqliteBusy(err)) throw err;
+      }
+    }, this.intervalMs);
     this.timer.unref();
   }
 

@@ -15,7 +15,7 @@ import { guardianLinks, kicks, playerProfiles, players, refreshTokens, users } f
 import { Invalid, NotFound, parseOrThrow } from '../errors';
 import { scopeOf } from '../scope/scope.middleware';
 
-const eraseSchema = z.object({
+const eraseSchema = z.strictObject({
   mode: z.enum(['anonymise', 'remove'], { error: 'mode must be anonymise or remove' }),
   confirmName: z.string({ error: 'confirmName is required' }),
 });
@@ -24,7 +24,7 @@ const eraseSchema = z.object({
 export function erasureRouter(db: Db): Router {
   const router = Router();
   router.post('/:id/erase', requireRole('admin'), (req, res) => {
-    const id = parseOrThrow(z.uuid({ error: 'id must be a UUID' }), req.params['id'], 'Player id');
+    const id = parseOrThrow(z.uuid({ error: 'id must be a UUID' }), req.params['id'], 'Player id', 'id');
     const { mode, confirmName } = parseOrThrow(eraseSchema, req.body, 'Erasure');
     const admin = scopeOf(req).user;
     const player = db.select().from(players).where(eq(players.id, id)).get();

@@ -24,15 +24,15 @@ export function guardiansRouter(guardians: GuardiansService): Router {
     res.status(201).json({ link: guardians.create(scopeOf(req).user, body.guardianUserId, body.playerId, body.relationship) });
   });
   router.delete('/links/:id', requireRole('admin'), (req, res) => {
-    guardians.remove(scopeOf(req).user, parseOrThrow(idSchema, req.params['id'], 'Link id'));
+    guardians.remove(scopeOf(req).user, parseOrThrow(idSchema, req.params['id'], 'Link id', 'id'));
     res.status(204).end();
   });
   router.post('/links/:id/consent', requireRole('guardian'), (req, res) => {
-    const id = parseOrThrow(idSchema, req.params['id'], 'Link id');
+    const id = parseOrThrow(idSchema, req.params['id'], 'Link id', 'id');
     res.json({ link: guardians.setConsent(scopeOf(req).user, id, parseOrThrow(consentSchema, req.body, 'Consent')) });
   });
   router.put('/links/:id/digest', requireRole('guardian'), (req, res) => {
-    const id = parseOrThrow(idSchema, req.params['id'], 'Link id');
+    const id = parseOrThrow(idSchema, req.params['id'], 'Link id', 'id');
     const { optIn } = parseOrThrow(digestOptInSchema, req.body, 'Digest opt-in');
     res.json({ link: guardians.setDigestOptIn(scopeOf(req).user, id, optIn) });
   });

@@ -8,6 +8,7 @@ import multer from 'multer';
 import { requireRole } from '../auth/passport';
 import type { Db } from '../db/client';
 import { HttpError, Invalid } from '../errors';
+import { unsafeJsonPath } from '../json-guard';
 import { scopeOf } from '../scope/scope.middleware';
 import { MAX_UPLOAD_BYTES } from './csv';
 import { importKicks } from './kicks-import.service';
@@ -63,6 +64,8 @@ export function importsRouter(db: Db): Router {
     } catch {
       throw new Invalid('The mapping field must hold JSON', [{ field: 'mapping', message: 'Not JSON' }]);
     }
+    const unsafe = unsafeJsonPath(mapping);
+    if (unsafe) throw new Invalid(`The mapping is refused — ${unsafe.field}: ${unsafe.message}`, [unsafe]);
     const result = importKicks(db, scopeOf(req), fileOf(req), mapping, dryRunOf(req));
     res.status(result.dryRun || result.alreadyImported ? 200 : 201).json(result);
   });

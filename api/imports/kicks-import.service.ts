@@ -23,14 +23,14 @@ import { distanceToM, speedToMs, spinToRps } from './units';
 const column = z.string().trim().min(1).max(120).optional();
 
 /** The `mapping` field of `POST /api/imports/kicks`. */
-export const kickMappingSchema = z.object({
+export const kickMappingSchema = z.strictObject({
   squadId: z.uuid({ error: 'squadId must be a squad id' }),
   technique: z.enum(TECHNIQUES, { error: `technique must be one of ${TECHNIQUES.join(', ')}` }),
   targetDistanceM: z.number({ error: 'targetDistanceM must be a number' }).min(1).max(120),
   targetRadiusM: z.number({ error: 'targetRadiusM must be a number' }).min(0.25).max(30),
   device: z.string().trim().max(80).optional(),
-  columns: z.object({ player: z.string({ error: 'columns.player is required' }).trim().min(1, { error: 'columns.player is required' }), time: column, speed: column, launchAngle: column, spin: column, carry: column, lateral: column }),
-  units: z.object({
+  columns: z.strictObject({ player: z.string({ error: 'columns.player is required' }).trim().min(1, { error: 'columns.player is required' }), time: column, speed: column, launchAngle: column, spin: column, carry: column, lateral: column }),
+  units: z.strictObject({
     speed: z.enum(['m/s', 'km/h', 'mph'], { error: 'units.speed must be m/s, km/h or mph' }).default('m/s'),
     spin: z.enum(['rev/s', 'rpm'], { error: 'units.spin must be rev/s or rpm' }).default('rev/s'),
     distance: z.enum(['m', 'yd'], { error: 'units.distance must be m or yd' }).default('m'),
@@ -154,6 +154,7 @@ export function importKicks(db: Db, scope: Scope, file: { name: string; buffer: 
   }
   if (errors.length) throw new ImportInvalid(`The file has ${errors.length} problem${errors.length > 1 ? 's' : ''}; nothing was imported`, errors);
   const uploadId = randomUUID();
+  // IMMEDIATE: wait for the write lock up front rather than fail mid-way when another connection commits first.
   const summary = db.transaction((): KicksSummary => {
     const fresh = rows.filter((r) => !existing(r.id));
     let sessionId: string | null = null;
@@ -178,6 +179,6 @@ export function importKicks(db: Db, scope: Scope, file: { name: string; buffer: 
     db.insert(uploads).values({ id: uploadId, clubId: squad.clubId, uploadedBy: scope.user.id, kind: 'measured_kicks', filename: file.name, sizeBytes: file.buffer.length, contentHash: hash, content: file.buffer.toString('utf8'), status: 'committed', committedAt: new Date().toISOString(), summaryJson: JSON.stringify(s) }).run();
     audit(db, { clubId: squad.clubId, userId: scope.user.id, action: 'import.kicks', entity: 'upload', entityId: uploadId, detail: s });
     return s;
-  });
+  }, { behavior: 'immediate' });
   return { dryRun, uploadId, alreadyImported: false, rows: table.rows.length, errors: [], summary };
 }

@@ -112,7 +112,7 @@ export function importRoster(db: Db, admin: AuthUser, file: { name: string; buff
     db.insert(uploads).values({ id: uploadId, clubId: admin.clubId, uploadedBy: admin.id, kind: 'roster', filename: file.name, sizeBytes: file.buffer.length, contentHash: hash, content: file.buffer.toString('utf8'), status: 'committed', committedAt: new Date().toISOString(), summaryJson: JSON.stringify(s) }).run();
     audit(db, { clubId: admin.clubId, userId: admin.id, action: 'import.roster', entity: 'upload', entityId: uploadId, detail: s });
     return s;
-  });
+  }, { behavior: 'immediate' });
   return { dryRun, uploadId, alreadyImported: false, rows: rows.length, errors: [], summary };
 }
 

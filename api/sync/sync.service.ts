@@ -62,6 +62,8 @@ export function push(db: Db, scope: Scope, deviceId: string, raw: unknown[]): Pu
 
   const sqlite = db.$client;
   const applyOne = sqlite.transaction((m: Parsed) => applyMutation(db, scope, deviceId, m));
+  // IMMEDIATE: take the write lock at BEGIN, waiting up to the busy timeout. A deferred BEGIN would read first
+  // and then fail at once with SQLITE_BUSY_SNAPSHOT if another connection committed meanwhile (SQLite documentation, "BEGIN TRANSACTION").
   sqlite.transaction(() => {
     for (const { index, m } of parsed) {
       try {
@@ -71,7 +73,7 @@ export function push(db: Db, scope: Scope, deviceId: string, raw: unknown[]): Pu
         results[index] = { id: m.id, status: 'rejected', error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) } };
       }
     }
-  })();
+  }).immediate();
   return { results, cursor: currentCursor(db) };
 }
 

@@ -2,14 +2,14 @@ import * as z from 'zod';
 import { ROLES } from '../roles';
 
 /** Body of `POST /api/auth/login`. */
-export const loginRequestSchema = z.object({
+export const loginRequestSchema = z.strictObject({
   email: z.string({ error: 'E-mail is required' }).trim().toLowerCase().pipe(z.email({ error: 'Not a valid e-mail address' })),
   password: z.string({ error: 'Password is required' }).min(1, { error: 'Password is required' }).max(200, { error: 'Password is too long' }),
 });
 export type LoginRequest = z.infer<typeof loginRequestSchema>;
 
 /** Body of `POST /api/auth/refresh` and `POST /api/auth/logout`. */
-export const refreshRequestSchema = z.object({
+export const refreshRequestSchema = z.strictObject({
   refreshToken: z.string({ error: 'Refresh token is required' }).min(20, { error: 'Not a refresh token' }).max(500),
 });
 export type RefreshRequest = z.infer<typeof refreshRequestSchema>;

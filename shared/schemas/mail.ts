@@ -18,14 +18,14 @@ const token = z.string({ error: 'token is required' }).min(20, { error: 'token i
 const email = z.string({ error: 'email is required' }).trim().toLowerCase().pipe(z.email({ error: 'email is not a valid e-mail address' }));
 
 /** `POST /api/auth/accept-invite`. */
-export const acceptInviteSchema = z.object({ token, password });
+export const acceptInviteSchema = z.strictObject({ token, password });
 /** `POST /api/auth/forgot-password`. */
-export const forgotPasswordSchema = z.object({ email });
+export const forgotPasswordSchema = z.strictObject({ email });
 /** `POST /api/auth/reset-password`. */
-export const resetPasswordSchema = z.object({ token, password });
+export const resetPasswordSchema = z.strictObject({ token, password });
 
 /** `POST /api/admin/invites`. */
-export const inviteRequestSchema = z.object({
+export const inviteRequestSchema = z.strictObject({
   email,
   displayName: z.string({ error: 'displayName is required' }).trim().min(1, { error: 'displayName is required' }).max(120),
   role: z.enum(ROLES, { error: `role must be one of ${ROLES.join(', ')}` }),
@@ -35,7 +35,7 @@ export const inviteRequestSchema = z.object({
 export type InviteRequest = z.infer<typeof inviteRequestSchema>;
 
 /** `POST /api/guardians/links`. */
-export const createLinkSchema = z.object({
+export const createLinkSchema = z.strictObject({
   guardianUserId: z.uuid({ error: 'guardianUserId must be a user id' }),
   playerId: z.uuid({ error: 'playerId must be a player id' }),
   relationship: z.string().trim().min(1).max(60).optional(),
@@ -45,14 +45,14 @@ export const createLinkSchema = z.object({
 export const consentSchema = z.discriminatedUnion(
   'consent',
   [
-    z.object({ consent: z.literal(true), textVersion: z.string({ error: 'textVersion is required' }).min(1, { error: 'textVersion is required' }).max(40) }),
-    z.object({ consent: z.literal(false) }),
+    z.strictObject({ consent: z.literal(true), textVersion: z.string({ error: 'textVersion is required' }).min(1, { error: 'textVersion is required' }).max(40) }),
+    z.strictObject({ consent: z.literal(false) }),
   ],
   { error: 'consent must be true (with textVersion) or false' },
 );
 
 /** `PUT /api/guardians/links/:id/digest`. */
-export const digestOptInSchema = z.object({ optIn: z.boolean({ error: 'optIn must be true or false' }) });
+export const digestOptInSchema = z.strictObject({ optIn: z.boolean({ error: 'optIn must be true or false' }) });
 
 /** A guardian link as the API shows it. */
 export interface GuardianLinkView {

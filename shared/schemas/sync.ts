@@ -121,7 +121,7 @@ export const mutationSchema = z.object({
 export type Mutation = z.infer<typeof mutationSchema>;
 
 /** Body of `POST /api/sync/push`. */
-export const pushRequestSchema = z.object({
+export const pushRequestSchema = z.strictObject({
   deviceId: z.string({ error: 'deviceId is required' }).min(1, { error: 'deviceId is required' }).max(100),
   mutations: z
     .array(z.unknown(), { error: 'mutations must be an array' })

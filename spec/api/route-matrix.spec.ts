@@ -5,6 +5,7 @@ import request from 'supertest';
 import { guardianLinks, players, users } from '../../api/db/schema';
 import { DEMO_ACCOUNTS, DEMO_GROUND_ID, DEMO_SQUAD_IDS } from '../../seed/scenario';
 import { createTestApp, OTHER_CLUB, signIn, type TestApp } from './fixture';
+import { enumerateRoutes } from './routes';
 
 type Who = 'public' | 'admin' | 'head_coach' | 'assistant_coach' | 'player' | 'guardian';
 const ROLES: Who[] = ['admin', 'head_coach', 'assistant_coach', 'player', 'guardian'];
@@ -59,30 +60,6 @@ const MATRIX: Record<string, Who[] | 'public'> = {
   'GET /api/exports/players/:id.json': ['admin'],
   'POST /api/digests/run': ['admin', 'head_coach'],
 };
-
-interface Layer {
-  route?: { path: string; methods: Record<string, boolean> };
-  handle: { stack?: Layer[] };
-  rawPath?: string;
-}
-
-/** Every route of the app, from Express's own router stack (not a hand-written list). */
-function enumerateRoutes(app: Express): string[] {
-  const out: string[] = [];
-  const walk = (stack: Layer[], prefix: string) => {
-    for (const layer of stack) {
-      if (layer.route) {
-        const path = (prefix + layer.route.path).replace(/(.)\/$/, '$1');
-        for (const method of Object.keys(layer.route.methods)) out.push(`${method.toUpperCase()} ${path}`);
-      } else if (layer.handle.stack) {
-        const mount = typeof layer.rawPath === 'string' && layer.rawPath !== '/' ? layer.rawPath : '';
-        walk(layer.handle.stack, prefix + mount);
-      }
-    }
-  };
-  walk((app as unknown as { router: { stack: Layer[] } }).router.stack, '');
-  return out.filter((r) => r.includes(' /api/')).sort();
-}
 
 describe('route × role security matrix', () => {
   let t: TestApp;

@@ -1,0 +1,160 @@
+/**
+ * Load-test plumbing for `npm run bench:api`: the server as its own process on loopback, and
+ * autocannon phases whose every response time is kept, so percentiles are exact rather than
+ * read off autocannon's fixed buckets (it has no p95).
+ */
+import autocannon from 'autocannon';
+import { spawn, type ChildProcess } from 'node:child_process';
+import { createServer } from 'node:net';
+import { resolve } from 'node:path';
+
+/** A server process started for the benchmark. */
+export interface BenchServer {
+  baseUrl: string;
+  process: ChildProcess;
+  log(): string;
+  stop(): Promise<void>;
+}
+
+function freePort(): Promise<number> {
+  return new Promise((done, reject) => {
+    const s = createServer();
+    s.once('error', reject);
+    s.listen(0, '127.0.0.1', () => {
+      const address = s.address();
+      const port = typeof address === 'object' && address ? address.port : 0;
+      s.close(() => done(port));
+    });
+  });
+}
+
+/** Starts `api/cli/start.ts --api-only` (what `npm run start:api` runs) on 127.0.0.1 with this database. */
+export async function startBenchServer(dbPath: string, jwtSecret: string): Promise<BenchServer> {
+  const port = await freePort();
+  let output = '';
+  const child = spawn(process.execPath, ['--import', 'tsx', resolve('api/cli/start.ts'), '--api-only'], {
+    env: {
+      ...process.env,
+      NODE_ENV: 'production',
+      PORT: String(port),
+      LOFTLINE_HOST: '127.0.0.1',
+      LOFTLINE_DB: dbPath,
+      LOFTLINE_SMTP_PORT: '0',
+      LOFTLINE_LOG_LEVEL: 'warn',
+      LOFTLINE_JWT_SECRET: jwtSecret,
+    },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
+  child.stdout?.on('data', (c: Buffer) => (output += c.toString()));
+  child.stderr?.on('data', (c: Buffer) => (output += c.toString()));
+  const baseUrl = `http://127.0.0.1:${port}`;
+  const deadline = Date.now() + 180_000;
+  for (;;) {
+    if (child.exitCode !== null) throw new Error(`server exited early (${child.exitCode}):\n${output}`);
+    try {
+      if ((await fetch(`${baseUrl}/api/health`)).ok) break;
+    } catch {
+      // not listening yet
+    }
+    if (Date.now() > deadline) throw new Error(`server did not answer within 180 s:\n${output}`);
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  return {
+    baseUrl,
+    process: child,
+    log: () => output,
+    stop: () =>
+      new Promise<void>((done) => {
+        if (child.exitCode !== null || child.signalCode !== null) return done();
+        child.once('exit', () => done());
+        child.kill('SIGTERM');
+      }),
+  };
+}
+
+/** Exact percentile (nearest rank) of a sample. */
+export function percentile(sorted: number[], p: number): number {
+  if (!sorted.length) return NaN;
+  return sorted[Math.min(sorted.length - 1, Math.max(0, Math.ceil((p / 100) * sorted.length) - 1))]!;
+}
+
+/** What one phase measured. */
+export interface PhaseResult {
+  label: string;
+  requests: number;
+  non2xx: number;
+  errors: number;
+  timeouts: number;
+  seconds: number;
+  perSecond: number;
+  p50: number;
+  p95: number;
+  p99: number;
+  max: number;
+}
+
+/** One autocannon phase: a request builder per call and a response check per answer. */
+export interface PhaseOptions {
+  label: string;
+  url: string;
+  connections: number;
+  durationS: number;
+  /** Requests per second over all connections (absent: as fast as answers come back). */
+  overallRate?: number;
+  method?: 'GET' | 'POST';
+  headers: Record<string, string>;
+  /** Path and body of the next request on a connection; `context` is that connection's own. */
+  next(context: Record<string, unknown>): { path: string; body?: string };
+  /** Called with each answer and the connection's context (which still holds what `next` put there). */
+  answered?(status: number, body: string, context: Record<string, unknown>): void;
+}
+
+/** Runs a phase with autocannon from this process (the server is another process). */
+export async function runPhase(o: PhaseOptions): Promise<PhaseResult> {
+  const times: number[] = [];
+  let finish: (r: autocannon.Result) => void = () => undefined;
+  let fail: (e: Error) => void = () => undefined;
+  const done = new Promise<autocannon.Result>((ok, bad) => {
+    finish = ok;
+    fail = bad;
+  });
+  const instance = autocannon({
+    url: o.url,
+    connections: o.connections,
+    duration: o.durationS,
+    ...(o.overallRate ? { overallRate: o.overallRate } : {}),
+    timeout: 30,
+    requests: [
+      {
+        method: o.method ?? 'GET',
+        headers: o.headers,
+        setupRequest: (req, context) => {
+          const { path, body } = o.next(context as Record<string, unknown>);
+          return { ...req, path, ...(body === undefined ? {} : { body }) };
+        },
+        onResponse: (status, body, context) => o.answered?.(status, body, context as Record<string, unknown>),
+      },
+    ],
+  }, (err, result) => (err ? fail(err) : finish(result)));
+  // autocannon emits (client, statusCode, resBytes, responseTime in ms) for every answer.
+  (instance as NodeJS.EventEmitter).on('response', (...args: unknown[]) => {
+    const ms = args[3];
+    if (typeof ms === 'number') times.push(ms);
+  });
+  const result = await done;
+  times.sort((a, b) => a - b);
+  const seconds = result.duration;
+  return {
+    label: o.label,
+    requests: times.length,
+    non2xx: result.non2xx,
+    errors: result.errors,
+    timeouts: result.timeouts,
+    seconds,
+    perSecond: times.length / seconds,
+    p50: percentile(times, 50),
+    p95: percentile(times, 95),
+    p99: percentile(times, 99),
+    max: times.at(-1) ?? NaN,
+  };
+}
