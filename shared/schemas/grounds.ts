@@ -12,7 +12,7 @@ const num = (name: string, min: number, max: number, unit: string) =>
     .max(max, { error: `${name} must be at most ${max}${unit}` });
 
 /** Body of `POST /api/grounds` and `PUT /api/grounds/:id` (admins). */
-export const groundInputSchema = z.object({
+export const groundInputSchema = z.strictObject({
   name: z
     .string({ error: 'name is required' })
     .trim()

@@ -4,7 +4,7 @@ import { drills, guardianLinks, players, trainingSessions, users } from '../../a
 import { CONSENT_TEXT } from '../../api/guardians/consent-text';
 import type { Role } from '../../shared/roles';
 import type { PushResponse } from '../../shared/schemas/sync';
-import { DEMO_ACCOUNTS, DEMO_SQUAD_IDS } from '../../seed/scenario';
+import { DEMO_ACCOUNTS, DEMO_GROUND_ID, DEMO_SQUAD_IDS } from '../../seed/scenario';
 import { buildHttpCorpus, buildMutationCorpus, type CorpusContext, type HttpCase } from './bad-input-corpus';
 import { databaseDigest, totalChanges } from './db-state';
 import { createTestApp, OTHER_CLUB, signIn, type TestApp } from './fixture';
@@ -49,6 +49,7 @@ describe('bad-input corpus', () => {
       unstaffedSessionId: firstTeamSession.id,
       otherClubSquadId: OTHER_CLUB.squadId,
       otherClubPlayerId: OTHER_CLUB.playerId,
+      groundId: DEMO_GROUND_ID,
     };
   }, 60_000);
   afterAll(() => t.close());

@@ -24,6 +24,8 @@ export interface CorpusContext {
   unstaffedSessionId: string;
   otherClubSquadId: string;
   otherClubPlayerId: string;
+  /** The demo club's training ground. */
+  groundId: string;
 }
 
 /** A multipart upload. */
@@ -115,6 +117,20 @@ function jsonRoutes(c: CorpusContext): JsonRoute[] {
       url: '/api/admin/invites',
       body: { email: 'new.kicking.coach@kestrel-vale.test', displayName: 'New Kicking Coach', role: 'assistant_coach', squadIds: [c.u16SquadId] },
       fields: { email: of('email'), displayName: text(true, { freeText: true }), role: of('enum'), squadIds: of('uuid[]', false), playerId: of('uuid', false) },
+    },
+    {
+      route: 'POST /api/grounds',
+      as: 'admin',
+      url: '/api/grounds',
+      body: { name: 'North field', latitude: 52.77, longitude: -1.55, altitudeM: 88, kickingBearingDeg: 205 },
+      fields: { name: text(true, { freeText: true }), latitude: of('number'), longitude: of('number'), altitudeM: of('number'), kickingBearingDeg: of('number') },
+    },
+    {
+      route: 'PUT /api/grounds/:id',
+      as: 'admin',
+      url: `/api/grounds/${c.groundId}`,
+      body: { name: 'Longmere Lane', latitude: 52.77, longitude: -1.55, altitudeM: 88, kickingBearingDeg: 205 },
+      fields: { name: text(true, { freeText: true }), latitude: of('number'), longitude: of('number'), altitudeM: of('number'), kickingBearingDeg: of('number') },
     },
     { route: 'POST /api/digests/run', as: 'admin', url: '/api/digests/run', body: { weekStart: '2026-11-09' }, fields: { weekStart: of('date', false) } },
   ];

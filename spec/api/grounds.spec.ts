@@ -81,7 +81,10 @@ describe('/api/grounds', () => {
       expect(bad.body.error.message).toContain('latitude: latitude must be at most 90°');
 
       expect((await request(t.app).post('/api/grounds').set(auth(coach)).send({})).status).toBe(403);
-      const foreign = await request(t.app).put(`/api/grounds/${randomUUID()}`).set(auth(admin)).send(updated.body);
+      const foreign = await request(t.app)
+        .put(`/api/grounds/${randomUUID()}`)
+        .set(auth(admin))
+        .send({ name: 'Elsewhere', latitude: 53.5, longitude: -2.1, altitudeM: 245, kickingBearingDeg: 270 });
       expect(foreign.status).toBe(404);
       t.db.delete(trainingGrounds).where(eq(trainingGrounds.id, id)).run();
     });
