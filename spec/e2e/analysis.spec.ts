@@ -36,6 +36,25 @@ async function apiGet<T>(baseUrl: string, token: string, path: string): Promise<
 }
 
 /**
+ * Waits until the server has fitted every profile of the head coach's squads (a fresh demo database
+ * fits them in the background after start-up), so Squad week shows reliable reach, not "updating".
+ */
+async function profilesFitted(baseUrl: string, token: string, weekStart: string): Promise<void> {
+  const { squads } = await apiGet<{ squads: { id: string }[] }>(baseUrl, token, '/api/squads');
+  const deadline = Date.now() + 150_000;
+  for (;;) {
+    let pending = 0;
+    for (const squad of squads) {
+      const week = await apiGet<{ players: { reach: { pending: boolean }[] }[] }>(baseUrl, token, `/api/squads/${squad.id}/week?start=${weekStart}`);
+      pending += week.players.reduce((n, p) => n + p.reach.filter((r) => r.pending).length, 0);
+    }
+    if (pending === 0) return;
+    if (Date.now() > deadline) throw new Error(`${pending} profiles still being fitted after 150 s`);
+    await new Promise((done) => setTimeout(done, 1000));
+  }
+}
+
+/**
  * Photographs a chart and counts the distinct colours in the picture (in the page, through a
  * canvas). An empty chart frame has its background and a few axis greys; a drawn one has many more.
  */
@@ -76,8 +95,9 @@ describe('Player file and Squad week (end to end, Chromium)', () => {
     const { context, close } = await launchContext({ width: 1280, height: 900 });
     try {
       const page = await context.newPage();
-      await signIn(page, server.baseUrl, HEAD_COACH);
       const lastWeek = demoPeriod(new Date()).weekStarts.at(-1)!.toISOString().slice(0, 10);
+      await profilesFitted(server.baseUrl, await apiToken(server.baseUrl, HEAD_COACH), lastWeek);
+      await signIn(page, server.baseUrl, HEAD_COACH);
       const weekAnswer = page.waitForResponse((r) => r.url().includes('/week?') && r.url().includes(`start=${lastWeek}`));
       await page.getByRole('link', { name: 'Squad week' }).first().click();
       await page.waitForURL(/\/squad-week/);
@@ -105,14 +125,21 @@ describe('Player file and Squad week (end to end, Chromium)', () => {
       expect(csv[0]).toContain('Player');
       expect(csv.length).toBe(rows + 1);
 
-      // A row leads to the player's file.
+      // Reliable reach is a number for most of the squad (the envelope is fitted against each drill's target).
+      const reachCells = await table.locator('tbody td.mat-column-reach').allInnerTexts();
+      expect(reachCells.length).toBe(rows);
+      expect(reachCells.filter((text) => /^\d+(\.\d)? m/.test(text.trim())).length).toBeGreaterThan(rows / 2);
+
+      // A row leads to the player's file, where staff get next week's targets with "add as drill".
       await table.locator('tbody tr a').first().click();
       await page.waitForURL(/\/players\/[0-9a-f-]{36}/);
       await page.locator('ll-progress-chart circle.ll-progress__point').first().waitFor();
+      await page.getByRole('link', { name: /in Pitchside/ }).first().waitFor({ timeout: 60_000 });
+      expect(await page.locator('ll-reach-panel .reach-panel__number').first().innerText()).toMatch(/^\d+\.\d m$/);
     } finally {
       await close();
     }
-  }, 120_000);
+  }, 240_000);
 
   it('lets a player open their own file, with drawn charts, and refuses someone else’s', async () => {
     const coachToken = await apiToken(server.baseUrl, HEAD_COACH);
@@ -151,4 +178,35 @@ describe('Player file and Squad week (end to end, Chromium)', () => {
       await close();
     }
   }, 120_000);
+
+  it('reopens the player’s own file with its envelope when the server cannot be reached', async () => {
+    const offlineServer = await startE2eServer();
+    const { context, close } = await launchContext({ width: 360, height: 740 });
+    try {
+      const page = await context.newPage();
+      await signIn(page, offlineServer.baseUrl, PLAYER);
+      await page.getByRole('link', { name: 'My file' }).click();
+      await page.waitForURL(/\/players\/me$/);
+      const reach = page.locator('ll-reach-diagram');
+      await reach.locator('circle.ll-reach__landing').nth(999).waitFor({ state: 'attached', timeout: 60_000 });
+      await page.locator('ll-recent-kicks tbody tr').first().waitFor();
+      const headline = await page.locator('ll-reach-panel .reach-panel__number').first().innerText();
+      // The service worker must control the page, and the answers and envelopes must be on the device.
+      await page.evaluate(async () => {
+        await navigator.serviceWorker.ready;
+      });
+      await page.waitForTimeout(2500);
+      await offlineServer.stop();
+      await context.setOffline(true);
+      await page.reload();
+      await reach.locator('circle.ll-reach__landing').nth(999).waitFor({ state: 'attached', timeout: 30_000 });
+      await page.locator('ll-progress-chart circle.ll-progress__point').first().waitFor({ timeout: 30_000 });
+      expect(await page.locator('ll-reach-panel .reach-panel__number').first().innerText()).toBe(headline);
+      expect(await page.locator('ll-recent-kicks tbody tr').count()).toBeGreaterThan(0);
+      await page.screenshot({ path: join(SHOTS, 'player-file-offline.png') });
+    } finally {
+      await close();
+      offlineServer.cleanup();
+    }
+  }, 240_000);
 });

@@ -51,8 +51,9 @@ import { type TechniqueReach, reachHeadline, reachUncertainty } from './techniqu
           [summary]="summary()"
         />
         <p class="reach-panel__note">
-          Predicted landings of {{ r.analysis.envelope.samples }} simulated kicks at standard conditions: ISA sea level,
-          15 °C, still air, size {{ r.analysis.ballSize }} ball.
+          Predicted landings of {{ r.analysis.envelope.samples }} simulated kicks aimed at {{ r.analysis.envelope.aimDistanceM }} m
+          (the usual drill distance) at standard conditions: ISA sea level, 15 °C, still air, size {{ r.analysis.ballSize }} ball.
+          Hit rates at other distances come from kicks aimed at each of them.
         </p>
       }
     }
