@@ -24,6 +24,7 @@ import { exportsRouter } from './exports/exports.router';
 import { importsRouter } from './imports/imports.router';
 import { Mailer } from './mail/mailer';
 import { AuthService } from './auth/auth.service';
+import { clubRouter } from './club/club.router';
 import { authRouter } from './auth/auth.router';
 import { createAuthMiddleware } from './auth/passport';
 import type { AppConfig } from './config';
@@ -111,6 +112,7 @@ export function createApp(deps: AppDeps): Express {
   const requireAuth = createAuthMiddleware(db, config);
   api.use(requireAuth, attachScope(db));
   api.use('/me', meRouter(db));
+  api.use('/club', clubRouter(db));
   api.use('/squads', squadsRouter(db, profiles));
   api.use('/players', playersRouter(db, profiles));
   api.use('/sync', syncRouter(db));

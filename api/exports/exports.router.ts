@@ -23,6 +23,7 @@ const kicksQuery = z
 export const KICK_EXPORT_COLUMNS = [
   'kick_id', 'recorded_at', 'squad', 'session_id', 'player_id', 'player', 'shirt_number', 'technique', 'foot', 'backspin_step', 'sidespin_step',
   'target_distance_m', 'target_radius_m', 'outcome', 'carry_m', 'still_air_carry_m', 'lateral_m', 'measured_speed_ms', 'launch_angle_deg', 'measured_spin_rps',
+  'hang_time_s',
 ] as const;
 
 /** Builds the exports router (behind authentication and scope). */
@@ -39,7 +40,8 @@ export function exportsRouter(db: Db): Router {
     const rows = db.$client
       .prepare(
         `SELECT k.id, k.recorded_at, q.name, k.session_id, k.player_id, p.display_name, p.shirt_number, k.technique, k.foot, k.backspin_step, k.sidespin_step,
-                k.target_distance_m, k.target_radius_m, k.outcome, k.carry_m, k.still_air_carry_m, k.lateral_m, k.measured_speed_ms, k.launch_angle_deg, k.measured_spin_rps
+                k.target_distance_m, k.target_radius_m, k.outcome, k.carry_m, k.still_air_carry_m, k.lateral_m, k.measured_speed_ms, k.launch_angle_deg, k.measured_spin_rps,
+                k.hang_time_s
            FROM kicks k JOIN training_sessions s ON s.id = k.session_id JOIN squads q ON q.id = s.squad_id JOIN players p ON p.id = k.player_id
           WHERE ${where.join(' AND ')} ORDER BY k.recorded_at`,
       )

@@ -9,6 +9,7 @@ import { playerKicks } from './kicks.service';
 import { kicksQuerySchema, listPlayersQuerySchema, profileQuerySchema, progressQuerySchema } from './players.schemas';
 import { getPlayer, listPlayers } from './players.service';
 import { playerProgress } from './progress.service';
+import { playerSpinEstimates } from './spin.service';
 
 const idSchema = z.uuid({ error: 'id must be a UUID' });
 
@@ -40,6 +41,12 @@ export function playersRouter(db: Db, profiles: ProfileCache): Router {
     const player = getPlayer(db, scopeOf(req), id);
     const { technique } = parseOrThrow(profileQuerySchema, req.query, 'Query');
     res.json(profiles.get(player.id, technique));
+  });
+  router.get('/:id/spin-estimates', (req, res) => {
+    const id = parseOrThrow(idSchema, req.params.id, 'Player id');
+    const scope = scopeOf(req);
+    const player = getPlayer(db, scope, id);
+    res.json(playerSpinEstimates(db, scope, player.id));
   });
   return router;
 }

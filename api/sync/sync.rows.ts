@@ -76,6 +76,7 @@ export function kickToSync(r: KickRow): SyncRow {
     measuredSpeedMs: r.measuredSpeedMs,
     launchAngleDeg: r.launchAngleDeg,
     measuredSpinRps: r.measuredSpinRps,
+    hangTimeS: r.hangTimeS,
     recordedAt: r.recordedAt,
     recordedBy: r.recordedBy,
   };
@@ -134,6 +135,7 @@ export function kickColumns(d: KickData) {
     measuredSpeedMs: d.measuredSpeedMs ?? null,
     launchAngleDeg: d.launchAngleDeg ?? null,
     measuredSpinRps: d.measuredSpinRps ?? null,
+    hangTimeS: d.hangTimeS ?? null,
     recordedAt: d.recordedAt,
   };
 }

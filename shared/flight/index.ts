@@ -52,6 +52,25 @@ export type { KickProfile, LoggedKick, ProfileObservationCounts, ProfilePrior } 
 export { DEFAULT_WALL_HEIGHT_M, GOAL_CROSSING, setPieceCheck, setPieceCloud, setPieceGeometry } from './set-piece';
 export type { GoalCrossingKind, GoalMouthCloud, SetPieceCloudResult, SetPieceInput, SetPieceResult, SetPieceShares } from './set-piece';
 export { simulateKick } from './simulate';
+export {
+  SPEED_SPIN_BACKSPIN_RANGE_RPS,
+  SPEED_SPIN_DEFAULT_SAMPLES,
+  solveSpeedAndSpin,
+  TIMED_KICK_DEFAULT_SAMPLES,
+  timedKickEvidence,
+} from './speed-spin';
+export type {
+  SampledSpread,
+  SpeedSpinEstimate,
+  SpeedSpinEstimateQuery,
+  SpeedSpinFailure,
+  SpeedSpinNoSolution,
+  SpeedSpinQuery,
+  SpeedSpinResult,
+  SpeedSpinUncertainty,
+  TimedKickEvidence,
+  TimedKickInput,
+} from './speed-spin';
 export type {
   AeroSpec,
   AirSpec,

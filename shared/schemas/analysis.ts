@@ -54,6 +54,8 @@ export interface PlayerKick {
   measuredSpeedMs: number | null;
   launchAngleDeg: number | null;
   measuredSpinRps: number | null;
+  /** Pitchside stopwatch reading (contact to first bounce), s, uncorrected; null when not timed. */
+  hangTimeS: number | null;
 }
 
 /** `GET /api/players/:id/kicks`. */
@@ -137,4 +139,39 @@ export interface SquadWeek {
   repLimitPerSession: number;
   players: SquadWeekPlayer[];
   zones: ZoneHitRate[];
+}
+
+/** Why a timed repetition gave no spin estimate. */
+export type SpinEstimateSkip = 'no_carry' | 'time_too_short' | 'time_too_long' | 'carry_out_of_reach' | 'spread_unresolved';
+
+/** Spin inferred from hang time for one technique of one player. */
+export interface TechniqueSpinEstimate {
+  technique: Technique;
+  /** Timed repetitions (a stopwatch reading attached). */
+  timedCount: number;
+  /** Of those, the ones the estimate used (a carry was known and the pair was possible). */
+  solvedCount: number;
+  /** Timed repetitions left out, by reason. */
+  skipped: Record<SpinEstimateSkip, number>;
+  /** Inverse-variance weighted mean backspin, rev/s (negative = topspin); null when nothing solved. */
+  backspinRps: number | null;
+  /** One standard deviation of that mean, rev/s: timing spread, widened by the kick-to-kick scatter. */
+  backspinUncertaintyRps: number | null;
+  /** Scatter of the per-repetition estimates, rev/s (null below two). */
+  backspinScatterRps: number | null;
+  /** Weighted mean launch speed, m/s, and its standard deviation. */
+  speedMs: number | null;
+  speedUncertaintyMs: number | null;
+  /** Mean of the spin logged by eye (the step scale) on the solved repetitions, rev/s, for comparison. */
+  eyeBackspinRps: number | null;
+}
+
+/** `GET /api/players/:id/spin-estimates`. */
+export interface SpinEstimatesResponse {
+  playerId: string;
+  /** The club calibration used: reading − bias = flight time, spread = one standard deviation. */
+  timing: { biasS: number; sdS: number };
+  /** Most recent timed repetitions read per technique. */
+  perTechniqueLimit: number;
+  techniques: TechniqueSpinEstimate[];
 }

@@ -27,6 +27,12 @@ export type SyncEntity = (typeof SYNC_ENTITIES)[number];
 // IFAB Laws of the Game, Law 1: the touchline is at most 120 m, so no kick carries further on a pitch.
 const MAX_PITCH_LENGTH_M = 120;
 
+/**
+ * Stopwatch readings a kick may carry, s. Below 0.2 s is a double tap, not a flight; no kick stays up
+ * 10 s (a 60 m goal kick lands in about 4–5 s). Common practice, no standard.
+ */
+export const HANG_TIME_RANGE_S: readonly [number, number] = [0.2, 10];
+
 const uuid = (name: string) => z.uuid({ error: `${name} must be a UUID` });
 const isoDateTime = (name: string) => z.iso.datetime({ offset: true, error: `${name} must be an ISO 8601 date-time` });
 const num = (name: string, min: number, max: number, unit: string) =>
@@ -60,6 +66,8 @@ export const kickDataSchema = z.object({
   measuredSpeedMs: num('measuredSpeedMs', 0, 45, 'm/s').nullish(),
   launchAngleDeg: num('launchAngleDeg', -10, 90, '°').nullish(),
   measuredSpinRps: num('measuredSpinRps', -30, 30, 'rev/s').nullish(),
+  // Pitchside stopwatch reading, contact to first bounce, uncorrected (HANG_TIME_RANGE_S).
+  hangTimeS: num('hangTimeS', HANG_TIME_RANGE_S[0], HANG_TIME_RANGE_S[1], 's').nullish(),
   recordedAt: isoDateTime('recordedAt'),
   updatedAt: isoDateTime('updatedAt').optional(),
 });

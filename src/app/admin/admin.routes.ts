@@ -5,6 +5,7 @@ import { GroundList } from './ground-list';
 import { GuardianLinks } from './guardian-links';
 import { InviteForm } from './invite-form';
 import { OutboxView } from './outbox-view';
+import { StopwatchTiming } from './stopwatch-timing';
 
 /**
  * Club admin's sections under `/admin`. The whole set is one lazy chunk (loaded from
@@ -21,6 +22,7 @@ export const ADMIN_ROUTES: Routes = [
       { path: 'invites', title: 'Invitations · Club admin · Loftline', component: InviteForm },
       { path: 'outbox', title: 'Outbox · Club admin · Loftline', component: OutboxView },
       { path: 'mail', title: 'Captured mail · Club admin · Loftline', component: CapturedMail },
+      { path: 'stopwatch', title: 'Stopwatch timing · Club admin · Loftline', component: StopwatchTiming },
     ],
   },
 ];

@@ -14,7 +14,10 @@ export type NewKick = Omit<KickData, 'id' | 'recordedAt' | 'updatedAt'>;
 
 /** Fields of a logged kick the coach may correct afterwards. */
 export type KickCorrection = Partial<
-  Pick<KickData, 'playerId' | 'outcome' | 'backspinStep' | 'sidespinStep' | 'carryM' | 'lateralM' | 'foot' | 'technique' | 'targetDistanceM' | 'targetRadiusM'>
+  Pick<
+    KickData,
+    'playerId' | 'outcome' | 'backspinStep' | 'sidespinStep' | 'carryM' | 'lateralM' | 'hangTimeS' | 'foot' | 'technique' | 'targetDistanceM' | 'targetRadiusM'
+  >
 >;
 
 /**

@@ -41,6 +41,9 @@ export interface EntryCorrection {
               @if (kick.carryM !== null && kick.carryM !== undefined) {
                 · carry {{ kick.carryM }} m
               }
+              @if (kick.hangTimeS !== null && kick.hangTimeS !== undefined) {
+                · timed {{ kick.hangTimeS }} s
+              }
               @if (entry?.state === 'rejected') {
                 <span class="entry__reason">Not accepted: {{ entry?.error?.message }}</span>
               }

@@ -13,8 +13,8 @@ import { OUTCOME_LABELS, OUTCOME_ORDER, backspinLabel, sidespinLabel } from './p
 import { StepControl } from './step-control';
 
 /**
- * Corrects one logged repetition — kicker, outcome, spin, landed carry and lateral offset —
- * or voids it. Corrections are new mutations; the server keeps the history straight.
+ * Corrects one logged repetition — kicker, outcome, spin, landed carry, lateral offset and the
+ * stopwatch's hang time (clear it to drop a mistimed reading) — or voids it. Corrections are new mutations; the server keeps the history straight.
  */
 @Component({
   selector: 'll-kick-editor',
@@ -52,6 +52,14 @@ import { StepControl } from './step-control';
           <input matInput inputmode="decimal" formControlName="lateral" />
           <span matTextSuffix>m</span>
           @if (form.controls.lateral.errors?.['schema']; as message) {
+            <mat-error>{{ message }}</mat-error>
+          }
+        </mat-form-field>
+        <mat-form-field appearance="outline">
+          <mat-label>Hang time (blank = not timed)</mat-label>
+          <input matInput inputmode="decimal" formControlName="hangTime" />
+          <span matTextSuffix>s</span>
+          @if (form.controls.hangTime.errors?.['schema']; as message) {
             <mat-error>{{ message }}</mat-error>
           }
         </mat-form-field>
@@ -127,6 +135,7 @@ export class KickEditor implements OnInit {
     outcome: ['on_target' as Outcome],
     carry: ['', metresValidator(kickDataSchema.shape.carryM)],
     lateral: ['', metresValidator(kickDataSchema.shape.lateralM)],
+    hangTime: ['', metresValidator(kickDataSchema.shape.hangTimeS, 'seconds')],
   });
 
   ngOnInit(): void {
@@ -136,6 +145,7 @@ export class KickEditor implements OnInit {
       outcome: kick.outcome,
       carry: kick.carryM === null || kick.carryM === undefined ? '' : String(kick.carryM),
       lateral: kick.lateralM === null || kick.lateralM === undefined ? '' : String(kick.lateralM),
+      hangTime: kick.hangTimeS === null || kick.hangTimeS === undefined ? '' : String(kick.hangTimeS),
     });
     this.backspinStep.set(kick.backspinStep);
     this.sidespinStep.set(kick.sidespinStep);
@@ -154,6 +164,7 @@ export class KickEditor implements OnInit {
       sidespinStep: this.sidespinStep(),
       carryM: optionalMetres(value.carry),
       lateralM: optionalMetres(value.lateral),
+      hangTimeS: optionalMetres(value.hangTime),
     });
   }
 }

@@ -6,12 +6,15 @@ import { provideZonelessChangeDetection } from '@angular/core';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { MatButtonHarness } from '@angular/material/button/testing';
 import { MatButtonToggleHarness } from '@angular/material/button-toggle/testing';
+import { MatInputHarness } from '@angular/material/input/testing';
+import { MatSlideToggleHarness } from '@angular/material/slide-toggle/testing';
 import { provideRouter } from '@angular/router';
 import { BROWSER_STORAGE } from '../core/browser-storage';
 import { KickStore } from '../core/kick-store';
 import { type CachedPlayer, LOFTLINE_DB, type LocalSession, type LoftlineDb } from '../core/loftline-db';
 import { SessionStore } from '../core/session-store';
 import { SPEC_COACH, SPEC_IDS, freshDb, signedInStorage, until } from '../core/spec-support';
+import { HANG_TIMER_CLOCK } from './hang-timer';
 import { KickLogger } from './kick-logger';
 
 const players: CachedPlayer[] = [
@@ -24,6 +27,8 @@ describe('KickLogger (Pitchside logging)', () => {
   let fixture: ComponentFixture<KickLogger>;
   let loader: HarnessLoader;
   let session: LocalSession;
+  /** The stopwatch's clock, ms, stepped by hand. */
+  let clockMs = 0;
 
   async function open(withDrill = true): Promise<void> {
     db = freshDb();
@@ -35,6 +40,7 @@ describe('KickLogger (Pitchside logging)', () => {
         provideHttpClientTesting(),
         { provide: BROWSER_STORAGE, useValue: signedInStorage(SPEC_COACH) },
         { provide: LOFTLINE_DB, useValue: db },
+        { provide: HANG_TIMER_CLOCK, useValue: () => clockMs },
       ],
     });
     await db.players.bulkPut(players);
@@ -174,6 +180,40 @@ describe('KickLogger (Pitchside logging)', () => {
     await (await button('Void')).click();
     await until('voided', async () => (await liveKicks()).length === 0);
     await until('the empty list', () => text().includes('No repetitions logged yet.'));
+  });
+
+  it('attaches the stopwatch time to the next repetition when the drill has the stopwatch on', async () => {
+    await open();
+    expect(await loader.getHarnessOrNull(MatButtonHarness.with({ selector: '[data-testid="hang-timer-tap"]' }))).toBeNull();
+    await (await loader.getHarness(MatSlideToggleHarness.with({ label: /Stopwatch/ }))).toggle();
+    const tap = await loader.getHarness(MatButtonHarness.with({ selector: '[data-testid="hang-timer-tap"]' }));
+
+    clockMs = 10_000;
+    await tap.click();
+    expect(await tap.getText()).toContain('Bounce');
+    clockMs = 12_480;
+    await tap.click();
+    const reading = await loader.getHarness(MatInputHarness.with({ selector: '[data-testid="hang-time"]' }));
+    expect(await reading.getValue()).toBe('2.48');
+    // The club bias (product default 0.2 s until the server answers) is shown as the flight time used.
+    expect(text()).toContain('about 2.28 s in the air');
+
+    await (await chip(/Ada/)).click();
+    await (await button('On target')).click();
+    await until('the timed kick', async () => (await liveKicks()).length === 1);
+    expect((await liveKicks())[0].hangTimeS).toBe(2.48);
+    await until('the saved message', () => status().includes('2.48 s'));
+    expect(await reading.getValue()).toBe('');
+
+    // Without a new reading the next repetition is untimed; a typed correction is taken as it stands.
+    await (await button('Short')).click();
+    await until('two kicks', async () => (await liveKicks()).length === 2);
+    expect((await liveKicks()).find((k) => k.outcome === 'short')!.hangTimeS).toBeNull();
+    await reading.setValue('0.1');
+    await (await button('Long')).click();
+    await fixture.whenStable();
+    expect(text()).toContain('hangTimeS must be at least 0.2 s');
+    expect((await liveKicks()).length).toBe(2);
   });
 
   it('asks for the first drill before logging', async () => {

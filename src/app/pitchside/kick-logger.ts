@@ -5,9 +5,11 @@ import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
+import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { DrillSuggestion } from '../core/drill-suggestion';
 import { Router } from '@angular/router';
 import { kickDataSchema, type Outcome } from '../../../shared/schemas/sync';
+import { ClubSettingsStore } from '../core/club-settings-store';
 import { KickStore } from '../core/kick-store';
 import type { LocalDrill, LocalSession } from '../core/loftline-db';
 import { RosterStore } from '../core/roster-store';
@@ -15,6 +17,7 @@ import { SessionStore, type NewDrill } from '../core/session-store';
 import { SyncIssues } from '../core/sync-issues';
 import { DrillForm } from './drill-form';
 import { EntryList, type EntryCorrection } from './entry-list';
+import { HangTimer } from './hang-timer';
 import { DEFAULT_REP_LIMIT_PER_SESSION, isOverLoadLimit, loadCautionText } from './kicking-load';
 import { describeLocalError } from './local-error';
 import { metresValidator, optionalMetres } from './metres-field';
@@ -22,12 +25,14 @@ import { OutcomePad } from './outcome-pad';
 import { OUTCOME_LABELS, TECHNIQUE_LABELS, backspinLabel, sidespinLabel } from './pitchside-labels';
 import { PlayerChips } from './player-chips';
 import { StepControl } from './step-control';
+import { StopwatchDrills } from './stopwatch-drills';
 
 /**
  * Logging a session's repetitions: pick the kicker (tap 1), optionally adjust the spin from the
  * drill's default (tap 2), tap the outcome (the last tap, which saves). The pad sits at the
  * bottom for the thumb; the chips above show each player's count and the load caution. Undo
- * voids the coach's last entry; every entry can be corrected or voided from the list.
+ * voids the coach's last entry; every entry can be corrected or voided from the list. With the
+ * stopwatch on for the drill, the time tapped on the big timer button goes with the next repetition.
  */
 @Component({
   selector: 'll-kick-logger',
@@ -38,8 +43,10 @@ import { StepControl } from './step-control';
     MatFormFieldModule,
     MatIconModule,
     MatInputModule,
+    MatSlideToggleModule,
     DrillForm,
     EntryList,
+    HangTimer,
     OutcomePad,
     PlayerChips,
     StepControl,
@@ -52,6 +59,8 @@ export class KickLogger {
   private readonly kicksStore = inject(KickStore);
   private readonly sessions = inject(SessionStore);
   private readonly router = inject(Router);
+  private readonly stopwatchDrills = inject(StopwatchDrills);
+  protected readonly clubSettings = inject(ClubSettingsStore);
 
   /** The session being logged. */
   readonly session = input.required<LocalSession>();
@@ -59,6 +68,7 @@ export class KickLogger {
   private readonly sessionId = computed(() => this.session().id);
   private readonly squadId = computed(() => this.session().squadId);
   private readonly entryList = viewChild(EntryList);
+  private readonly hangTimer = viewChild(HangTimer);
 
   protected readonly drills = this.sessions.liveDrills(this.sessionId);
   protected readonly kicks = this.kicksStore.liveKicks(this.sessionId);
@@ -77,6 +87,7 @@ export class KickLogger {
   protected readonly savedCount = signal(0);
   protected readonly failure = signal<string | null>(null);
   protected readonly carry = new FormControl('', { nonNullable: true, validators: metresValidator(kickDataSchema.shape.carryM) });
+  protected readonly hangTime = new FormControl('', { nonNullable: true, validators: metresValidator(kickDataSchema.shape.hangTimeS, 'seconds') });
 
   protected readonly backspinLabel = backspinLabel;
   protected readonly sidespinLabel = sidespinLabel;
@@ -87,6 +98,11 @@ export class KickLogger {
     const drills = this.drills() ?? [];
     return drills.find((d) => d.id === this.chosenDrillId()) ?? drills.at(-1) ?? null;
   }, { equal: sameDrill });
+  /** Whether the hang-time stopwatch is on for the current drill (a per-device choice). */
+  protected readonly stopwatchOn = computed(() => {
+    const drill = this.drill();
+    return drill !== null && this.stopwatchDrills.drillIds().includes(drill.id);
+  });
   protected readonly needsDrill = computed(() => this.drills() !== undefined && this.drill() === null);
   protected readonly counts = computed(() => {
     const counts = new Map<string, number>();
@@ -113,6 +129,7 @@ export class KickLogger {
       const drill = this.drill();
       untracked(() => this.resetSpin(drill));
     });
+    void this.clubSettings.refresh();
   }
 
   /** Opens an entry for correction (the sync panel's "fix"). */
@@ -134,15 +151,19 @@ export class KickLogger {
       this.failure.set(player ? 'Set up a drill first.' : 'Pick the player first.');
       return;
     }
-    if (this.carry.invalid) {
+    const timed = this.stopwatchOn();
+    if (this.carry.invalid || (timed && this.hangTime.invalid)) {
       this.carry.markAsTouched();
+      this.hangTime.markAsTouched();
       return;
     }
     const carryM = optionalMetres(this.carry.value);
+    const hangTimeS = timed ? optionalMetres(this.hangTime.value) : null;
     const backspinStep = this.backspinStep();
     const sidespinStep = this.sidespinStep();
     this.resetSpin(drill);
     this.carry.setValue('');
+    if (timed) this.hangTimer()?.reset();
     try {
       await this.kicksStore.log({
         sessionId: this.sessionId(),
@@ -157,10 +178,12 @@ export class KickLogger {
         outcome,
         carryM,
         lateralM: null,
+        hangTimeS,
       });
       this.failure.set(null);
       this.savedCount.update((n) => n + 1);
-      this.statusText.set(`Saved · ${this.playerName(player.id)} · ${OUTCOME_LABELS[outcome]}`);
+      const time = hangTimeS === null ? '' : ` · ${hangTimeS.toFixed(2)} s`;
+      this.statusText.set(`Saved · ${this.playerName(player.id)} · ${OUTCOME_LABELS[outcome]}${time}`);
     } catch (error) {
       this.failure.set(describeLocalError(error));
     }
@@ -204,6 +227,12 @@ export class KickLogger {
     } catch (error) {
       this.failure.set(describeLocalError(error));
     }
+  }
+
+  protected setStopwatch(enabled: boolean): void {
+    const drill = this.drill();
+    if (drill) this.stopwatchDrills.set(drill.id, enabled);
+    if (!enabled) this.hangTimer()?.reset();
   }
 
   protected chooseDrill(id: string): void {

@@ -107,6 +107,7 @@ export function kick(n: number, technique: Technique, outcome: Outcome, carryM: 
     measuredSpeedMs: null,
     launchAngleDeg: null,
     measuredSpinRps: null,
+    hangTimeS: null,
   };
 }
 

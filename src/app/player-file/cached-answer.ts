@@ -4,7 +4,7 @@ import { AnalysisCache } from '../core/analysis-cache';
 import { Observable, catchError, from, map, switchMap, tap, throwError } from 'rxjs';
 
 /** What kind of answer a cache entry holds (so the cache can be cleared by kind). */
-export type AnswerKind = 'player' | 'squads' | 'progress' | 'kicks' | 'profile' | 'envelope' | 'week' | 'me';
+export type AnswerKind = 'player' | 'squads' | 'progress' | 'kicks' | 'profile' | 'envelope' | 'week' | 'me' | 'spin';
 
 /** The part of a key-value cache in IndexedDB the analysis screens use. */
 export interface AnswerStore {

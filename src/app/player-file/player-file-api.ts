@@ -6,6 +6,7 @@ import type {
   PlayerKicksResponse,
   ProfileEntry,
   ProgressResponse,
+  SpinEstimatesResponse,
 } from '../../../shared/schemas/analysis';
 import type { MeResponse } from '../../../shared/schemas/auth';
 import type { PlayerSummary, SquadSummary } from '../../../shared/schemas/squads';
@@ -29,8 +30,8 @@ export class NoOwnPlayerError extends Error {
 }
 
 /**
- * The Player file's server calls: the player, their weekly progress, recent kicks and cached
- * launch profiles. The server decides what the caller may see (a player only themselves, staff
+ * The Player file's server calls: the player, their weekly progress, recent kicks, cached
+ * launch profiles and spin from hang time. The server decides what the caller may see (a player only themselves, staff
  * their squads' players; anything else is a 404). Every answer is also kept on the device, keyed
  * by the signed-in user, so the file opens with its last data when the pitch has no signal.
  */
@@ -104,6 +105,11 @@ export class PlayerFileApi {
       'profile',
       this.http.get<ProfileEntry>(`/api/players/${encodeURIComponent(playerId)}/profile`, { params }),
     );
+  }
+
+  /** Spin inferred from the player's timed repetitions, per technique (`GET /api/players/:id/spin-estimates`). */
+  spinEstimates(playerId: string): Observable<Answer<SpinEstimatesResponse>> {
+    return this.cached(`spin:${playerId}`, 'spin', this.http.get<SpinEstimatesResponse>(`/api/players/${encodeURIComponent(playerId)}/spin-estimates`));
   }
 
   private cached<T>(key: string, kind: AnswerKind, request: Observable<T>): Observable<Answer<T>> {

@@ -8,6 +8,7 @@ import { MatButtonToggleHarness } from '@angular/material/button-toggle/testing'
 import { MatSlideToggleHarness } from '@angular/material/slide-toggle/testing';
 import { MatTableHarness } from '@angular/material/table/testing';
 import { provideRouter } from '@angular/router';
+import type { SpinEstimatesResponse } from '../../../shared/schemas/analysis';
 import type { SessionUser } from '../../../shared/schemas/auth';
 import type { Technique } from '../../../shared/schemas/sync';
 import { BROWSER_STORAGE } from '../core/browser-storage';
@@ -32,6 +33,27 @@ const WEEKS = [
   progressWeek('2025-03-03', 'lofted', 30, 0.6, 29),
   progressWeek('2025-03-03', 'driven', 6, 0.5, 18),
 ];
+
+/** A server answer for the spin estimates: four timed lofted repetitions, three of them used. */
+const SPIN_ESTIMATES: SpinEstimatesResponse = {
+  playerId: FIXTURE_IDS.playerAda,
+  timing: { biasS: 0.2, sdS: 0.08 },
+  perTechniqueLimit: 60,
+  techniques: [
+    {
+      technique: 'lofted',
+      timedCount: 4,
+      solvedCount: 3,
+      skipped: { no_carry: 1, time_too_short: 0, time_too_long: 0, carry_out_of_reach: 0, spread_unresolved: 0 },
+      backspinRps: 4.62,
+      backspinUncertaintyRps: 0.71,
+      backspinScatterRps: 0.9,
+      speedMs: 22.1,
+      speedUncertaintyMs: 0.4,
+      eyeBackspinRps: 6,
+    },
+  ],
+};
 
 describe('PlayerFile', () => {
   let fixture: ComponentFixture<PlayerFile>;
@@ -75,6 +97,7 @@ describe('PlayerFile', () => {
       total: 12,
       kicks: Array.from({ length: 12 }, (_, i) => kick(i, 'lofted', i % 3 === 0 ? 'on_target' : 'short', 24 + i, i < 8 ? 30 : 35)),
     });
+    expectGet(`/api/players/${ADA}/spin-estimates`).flush(SPIN_ESTIMATES);
     expectGet('/api/squads').flush({ squads: [FIXTURE_SQUAD] });
     await fixture.whenStable();
     for (const technique of ['driven', 'lofted', 'chipped', 'curled'] as Technique[]) {
@@ -114,6 +137,14 @@ describe('PlayerFile', () => {
     expect(Number(link.searchParams.get('drillRadiusM'))).toBe(3);
     const distance = Number(link.searchParams.get('drillTargetM'));
     expect(distance * 2).toBe(Math.round(distance * 2));
+
+    // Spin from hang time, with its uncertainty and how many repetitions were timed.
+    expect(text()).toContain('Spin from hang time');
+    const spinRow = (fixture.nativeElement as HTMLElement).querySelector('ll-hang-time-spin tr[data-technique="lofted"]')!;
+    expect(spinRow.textContent).toContain('4.6 ± 0.7 rev/s');
+    expect(spinRow.textContent).toContain('6.0 rev/s');
+    expect(text()).toContain('Left out: 1 no carry logged');
+    expect(text()).toContain('timing bias (0.20 s)');
 
     const tables = await loader.getAllHarnesses(MatTableHarness);
     const kicksTable = tables[tables.length - 1]!;
@@ -161,7 +192,12 @@ describe('PlayerFile', () => {
     open(fixtureUser('player'), FIXTURE_IDS.playerBo);
     await fixture.whenStable();
     const refusal = { error: { code: 'not_found', message: 'No such player in your squads' } };
-    for (const path of [`/api/players/${FIXTURE_IDS.playerBo}`, `/api/players/${FIXTURE_IDS.playerBo}/progress`, `/api/players/${FIXTURE_IDS.playerBo}/kicks`]) {
+    for (const path of [
+      `/api/players/${FIXTURE_IDS.playerBo}`,
+      `/api/players/${FIXTURE_IDS.playerBo}/progress`,
+      `/api/players/${FIXTURE_IDS.playerBo}/kicks`,
+      `/api/players/${FIXTURE_IDS.playerBo}/spin-estimates`,
+    ]) {
       expectGet(path).flush(refusal, { status: 404, statusText: 'Not Found' });
     }
     backend.expectOne('/api/squads').flush({ squads: [] });
@@ -182,7 +218,7 @@ describe('PlayerFile', () => {
     open(fixtureUser('head_coach'), ADA, answers);
     await fixture.whenStable();
     const offline = { status: 0, statusText: 'Unknown Error' };
-    for (const path of [`/api/players/${ADA}`, `/api/players/${ADA}/progress`, `/api/players/${ADA}/kicks`, '/api/squads']) {
+    for (const path of [`/api/players/${ADA}`, `/api/players/${ADA}/progress`, `/api/players/${ADA}/kicks`, `/api/players/${ADA}/spin-estimates`, '/api/squads']) {
       expectGet(path).error(new ProgressEvent('error'), offline);
     }
     // The cached answers are read asynchronously; the profiles are asked for once the squad is known.

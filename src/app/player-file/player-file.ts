@@ -20,6 +20,7 @@ import { ProgressPanel } from './progress-panel';
 import { ReachEnvelopes } from './reach-envelopes';
 import { ReachPanel } from './reach-panel';
 import { ReachTable } from './reach-table';
+import { HangTimeSpin } from './hang-time-spin';
 import { RecentKicks } from './recent-kicks';
 import type { TechniqueReach } from './technique-reach';
 
@@ -46,6 +47,7 @@ const DEFAULT_BALL_SIZE = 5;
     ReachPanel,
     ReachTable,
     RecentKicks,
+    HangTimeSpin,
   ],
   templateUrl: './player-file.html',
   styleUrl: './player-file.scss',
@@ -86,6 +88,7 @@ export class PlayerFile {
   );
   protected readonly kicks = toSignal(this.whenPlayer((id) => this.api.kicks(id)), { initialValue: LOADING });
   private readonly squads = toSignal(this.whenPlayer(() => this.api.squads()), { initialValue: LOADING });
+  protected readonly spin = toSignal(this.whenPlayer((id) => this.api.spinEstimates(id)), { initialValue: LOADING });
 
   /** Whether the server refused this file (not the caller's, or no such player). */
   protected readonly refused = computed(() => isNotFound(this.header()) || isNotFound(this.playerIdState()));

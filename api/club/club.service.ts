@@ -1,0 +1,23 @@
+/** The caller's club settings: read by staff devices, changed by the club's admin. */
+import { eq } from 'drizzle-orm';
+import type { ClubSettings } from '../../shared/schemas/club';
+import { audit } from '../audit';
+import type { Db } from '../db/client';
+import { clubs } from '../db/schema';
+import { NotFound } from '../errors';
+import type { Scope } from '../scope/scope';
+
+/** The stopwatch calibration of the caller's club (scoped by club: nobody reads another club's). */
+export function clubSettings(db: Db, scope: Scope): ClubSettings {
+  const row = db.select({ timingBiasS: clubs.timingBiasS, timingSdS: clubs.timingSdS }).from(clubs).where(eq(clubs.id, scope.user.clubId)).get();
+  if (!row) throw new NotFound('Your club no longer exists');
+  return row;
+}
+
+/** Stores new settings for the caller's club and audits the change (old and new values). */
+export function updateClubSettings(db: Db, scope: Scope, next: ClubSettings): ClubSettings {
+  const before = clubSettings(db, scope);
+  db.update(clubs).set({ timingBiasS: next.timingBiasS, timingSdS: next.timingSdS, updatedAt: new Date().toISOString() }).where(eq(clubs.id, scope.user.clubId)).run();
+  audit(db, { clubId: scope.user.clubId, userId: scope.user.id, action: 'club.settings_updated', entity: 'club', entityId: scope.user.clubId, detail: { before, after: next } });
+  return clubSettings(db, scope);
+}

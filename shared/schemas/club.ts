@@ -1,0 +1,32 @@
+/**
+ * Club-wide settings that the server keeps and every device reads: for now the Pitchside stopwatch's
+ * calibration. A hand-timed flight is late or early by the timekeeper's reactions; the club records how
+ * much (bias) and how consistently (spread), so the flight model can correct a reading and say how far to
+ * trust it.
+ */
+import * as z from 'zod';
+
+/** Bounds of the timing bias, s. A human reaction is ~0.2 s; more than 1 s is not a calibration. */
+export const TIMING_BIAS_RANGE_S: readonly [number, number] = [0, 1];
+/** Bounds of the timing spread (one standard deviation), s. */
+export const TIMING_SD_RANGE_S: readonly [number, number] = [0.01, 0.5];
+
+/**
+ * Product defaults (common practice, no source): the second tap, at the first bounce, lags by about a
+ * reaction time while the first, at a foot contact the timekeeper sees coming, barely does; so a reading
+ * runs ~0.2 s long, give or take ~0.08 s. A club should calibrate both by timing a few kicks on video.
+ */
+export const DEFAULT_TIMING = { biasS: 0.2, sdS: 0.08 } as const;
+
+const seconds = (name: string, [min, max]: readonly [number, number]) =>
+  z
+    .number({ error: `${name} must be a number of seconds` })
+    .min(min, { error: `${name} must be at least ${min} s` })
+    .max(max, { error: `${name} must be at most ${max} s` });
+
+/** Body of `PUT /api/club/settings` and answer of `GET /api/club/settings`. */
+export const clubSettingsSchema = z.object({
+  timingBiasS: seconds('timingBiasS', TIMING_BIAS_RANGE_S),
+  timingSdS: seconds('timingSdS', TIMING_SD_RANGE_S),
+});
+export type ClubSettings = z.infer<typeof clubSettingsSchema>;
