@@ -100,6 +100,10 @@ export function createApp(deps: AppDeps): Express {
   app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !(req.url ?? '').startsWith('/api') } }));
 
   const api = express.Router();
+  api.use((_req, _res, next) => {
+    profiles.noteRequest();
+    next();
+  });
   api.use(express.json({ limit: JSON_BODY_LIMIT }), refuseUnsafeJson);
   api.get('/health', (_req, res) => {
     res.json({ ok: true });

@@ -41,6 +41,8 @@ export interface StoredKick {
   measuredSpeedMs: number | null;
   launchAngleDeg: number | null;
   measuredSpinRps: number | null;
+  /** Pitchside stopwatch reading, s, uncorrected (absent where the query does not read it). */
+  hangTimeS?: number | null;
 }
 
 /** Mass and radius of a ball size (3, 4, 5; anything else is treated as 5). */
@@ -80,6 +82,7 @@ export function loggedKickOf(k: StoredKick, s: SessionConditions): LoggedKick {
     measuredSpeedMs: k.measuredSpeedMs,
     launchAngleDeg: k.launchAngleDeg,
     measuredSpinRps: k.measuredSpinRps,
+    hangTimeS: k.hangTimeS ?? null,
     conditions: conditionsOf(s),
   };
 }

@@ -27,11 +27,20 @@ export const DEFAULT_REACH_RADIUS_M = 3;
 type CachedRow = typeof playerProfiles.$inferSelect;
 
 
+/**
+ * How long the API must have been quiet before the refresher fits another profile, ms. A fit holds the
+ * event loop for tens of milliseconds; under load the refits wait (lists answer `pending`) so pushes
+ * and queries keep their latency.
+ */
+export const REFRESH_IDLE_MS = 150;
+
 /** Computes, caches and serves launch profiles. */
 export class ProfileCache {
   private readonly queue = new Set<string>();
   private timer: NodeJS.Immediate | null = null;
+  private wait: NodeJS.Timeout | null = null;
   private running = false;
+  private lastRequestAt = Number.NEGATIVE_INFINITY;
 
   constructor(private readonly db: Db) {}
 
@@ -53,6 +62,14 @@ export class ProfileCache {
     return !row || row.modelVersion < PROFILE_MODEL_VERSION || row.kicksSeq < this.kicksSeq(playerId, technique);
   }
 
+  /** The stopwatch calibration of the player's club (timed repetitions are solved with it). */
+  private timingOf(playerId: string): { biasS: number; sdS: number } {
+    const row = this.db.$client
+      .prepare('SELECT c.timing_bias_s AS biasS, c.timing_sd_s AS sdS FROM players p JOIN clubs c ON c.id = p.club_id WHERE p.id = ?')
+      .get(playerId) as { biasS: number; sdS: number } | undefined;
+    return row ?? { biasS: 0.2, sdS: 0.08 };
+  }
+
   /** Fits and stores one profile now. */
   compute(playerId: string, technique: Technique): CachedRow {
     const seq = this.kicksSeq(playerId, technique);
@@ -61,7 +78,7 @@ export class ProfileCache {
         `SELECT k.technique, k.outcome, k.target_distance_m AS targetDistanceM, k.target_radius_m AS targetRadiusM,
                 k.backspin_step AS backspinStep, k.sidespin_step AS sidespinStep, k.carry_m AS carryM, k.lateral_m AS lateralM,
                 k.measured_speed_ms AS measuredSpeedMs, k.launch_angle_deg AS launchAngleDeg, k.measured_spin_rps AS measuredSpinRps,
-                s.temperature_c AS temperatureC, s.altitude_m AS altitudeM, s.relative_humidity_pct AS relativeHumidityPct,
+                k.hang_time_s AS hangTimeS, s.temperature_c AS temperatureC, s.altitude_m AS altitudeM, s.relative_humidity_pct AS relativeHumidityPct,
                 s.pressure_hpa AS pressureHpa, s.wind_speed_ms AS windSpeedMs, s.wind_from_deg AS windFromDeg, s.ball_size AS ballSize
            FROM kicks k JOIN training_sessions s ON s.id = k.session_id
           WHERE k.player_id = ? AND k.technique = ? AND k.deleted_at IS NULL AND s.deleted_at IS NULL
@@ -74,7 +91,7 @@ export class ProfileCache {
     let curve: ReachCurve | null = null;
     let reach: number | null = null;
     if (rows.length > 0) {
-      profile = fitProfile(rows.map((r) => loggedKickOf(r, r)));
+      profile = fitProfile(rows.map((r) => loggedKickOf(r, r)), undefined, { timing: this.timingOf(playerId) });
       const ballSize = rows[0]!.ballSize;
       curve = reachCurve(profile, standardConditions(ballSize), { samples: PROFILE_ENVELOPE_SAMPLES, seed: PROFILE_ENVELOPE_SEED });
       reach = reliableReachM(curve, reachRadiusM);
@@ -154,7 +171,14 @@ export class ProfileCache {
   stop(): void {
     this.running = false;
     if (this.timer) clearImmediate(this.timer);
+    if (this.wait) clearTimeout(this.wait);
     this.timer = null;
+    this.wait = null;
+  }
+
+  /** Notes API traffic: the refresher waits until the API has been quiet for REFRESH_IDLE_MS. */
+  noteRequest(): void {
+    this.lastRequestAt = performance.now();
   }
 
   /** Number of queued recomputations. */
@@ -163,7 +187,16 @@ export class ProfileCache {
   }
 
   private schedule(): void {
-    if (this.timer || !this.running || this.queue.size === 0) return;
+    if (this.timer || this.wait || !this.running || this.queue.size === 0) return;
+    const quietFor = performance.now() - this.lastRequestAt;
+    if (quietFor < REFRESH_IDLE_MS) {
+      this.wait = setTimeout(() => {
+        this.wait = null;
+        this.schedule();
+      }, REFRESH_IDLE_MS - quietFor);
+      this.wait.unref();
+      return;
+    }
     this.timer = setImmediate(() => {
       this.timer = null;
       const next = this.queue.values().next();

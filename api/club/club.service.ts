@@ -17,7 +17,11 @@ export function clubSettings(db: Db, scope: Scope): ClubSettings {
 /** Stores new settings for the caller's club and audits the change (old and new values). */
 export function updateClubSettings(db: Db, scope: Scope, next: ClubSettings): ClubSettings {
   const before = clubSettings(db, scope);
-  db.update(clubs).set({ timingBiasS: next.timingBiasS, timingSdS: next.timingSdS, updatedAt: new Date().toISOString() }).where(eq(clubs.id, scope.user.clubId)).run();
+  db.transaction(() => {
+    db.update(clubs).set({ timingBiasS: next.timingBiasS, timingSdS: next.timingSdS, updatedAt: new Date().toISOString() }).where(eq(clubs.id, scope.user.clubId)).run();
+    // Timed repetitions are solved with the calibration: profiles fitted with the old one are refitted.
+    db.$client.prepare('DELETE FROM player_profiles WHERE player_id IN (SELECT id FROM players WHERE club_id = ?)').run(scope.user.clubId);
+  });
   audit(db, { clubId: scope.user.clubId, userId: scope.user.id, action: 'club.settings_updated', entity: 'club', entityId: scope.user.clubId, detail: { before, after: next } });
   return clubSettings(db, scope);
 }

@@ -48,6 +48,7 @@ export { INVERSE_MAX_SPEED_MS, INVERSE_MIN_SPEED_MS, solveLaunchSpeed } from './
 export type { LaunchSpeedQuery } from './inverse';
 export { fitProfile } from './profile';
 export { CEILING_PRIOR_LOG_SD, DEFAULT_CEILINGS_MS, DEFAULT_PRIORS } from './profile-types';
+export type { FitOptions } from './profile-types';
 export type { KickProfile, LoggedKick, ProfileObservationCounts, ProfilePrior } from './profile-types';
 export { DEFAULT_WALL_HEIGHT_M, GOAL_CROSSING, setPieceCheck, setPieceCloud, setPieceGeometry } from './set-piece';
 export type { GoalCrossingKind, GoalMouthCloud, SetPieceCloudResult, SetPieceInput, SetPieceResult, SetPieceShares } from './set-piece';

@@ -23,6 +23,8 @@ const DEG = Math.PI / 180;
 export interface Censored {
   lo: number;
   hi: number;
+  /** For a point: its own measurement spread as a fraction of the value (a timed repetition's speed). */
+  relSd?: number;
 }
 
 /** One repetition after validation, with the launch the model will use for it. */
@@ -38,6 +40,7 @@ export interface PreparedKick {
   lateralM: number | null;
   carryM: number | null;
   measuredSpeedMs: number | null;
+  hangTimeS: number | null;
   conditions: FlightConditions;
 }
 
@@ -66,6 +69,7 @@ export function prepareKick(kick: LoggedKick, index: number): PreparedKick {
   );
   const angle = optional(at('launchAngleDeg'), kick.launchAngleDeg, (f, v) => requireInHalfOpen(f, v, 0, 90, '°'));
   const spin = optional(at('measuredSpinRps'), kick.measuredSpinRps, (f, v) => requireInRange(f, v, 0, 30, 'rev/s'));
+  const hangTimeS = optional(at('hangTimeS'), kick.hangTimeS, (f, v) => requireInRange(f, v, 0.2, 10, 's'));
   let backspinRps = SPIN_STEP_RPS[backStep];
   let sidespinRps = SIDESPIN_STEP_RPS[sideStep];
   if (spin !== null) {
@@ -90,6 +94,7 @@ export function prepareKick(kick: LoggedKick, index: number): PreparedKick {
     lateralM,
     carryM,
     measuredSpeedMs,
+    hangTimeS,
     conditions: kick.conditions ?? {},
   };
 }

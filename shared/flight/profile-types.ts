@@ -23,6 +23,8 @@ export interface LoggedKick {
   launchAngleDeg?: number | null;
   /** Measured total spin, rev/s. */
   measuredSpinRps?: number | null;
+  /** Pitchside stopwatch reading (foot contact → first bounce), s, uncorrected for the hand's delay. */
+  hangTimeS?: number | null;
   /** The session's conditions; `{}` or absent = defaults (still air, ISA sea level, size 5). */
   conditions?: FlightConditions;
 }
@@ -50,6 +52,16 @@ export interface ProfileObservationCounts {
   aimPoints: number;
   aimIntervals: number;
   aimBounds: number;
+  /** Repetitions timed with the stopwatch whose carry and hang time solved for speed and backspin. */
+  timed?: number;
+}
+
+/** Options of `fitProfile`. */
+export interface FitOptions {
+  /** The club's stopwatch calibration (default 0.2 s delay, 0.08 s spread: common practice). */
+  timing?: { biasS: number; sdS: number };
+  /** At most this many timed repetitions (the first ones given) are solved (default 60). */
+  maxTimed?: number;
 }
 
 /** A player's fitted launch distribution for one technique. JSON-serialisable. */

@@ -21,10 +21,12 @@ import {
   CEILING_PRIOR_LOG_SD,
   DEFAULT_CEILINGS_MS,
   DEFAULT_PRIORS,
+  type FitOptions,
   type KickProfile,
   type LoggedKick,
   type ProfilePrior,
 } from './profile-types';
+import { timedKickEvidence } from './speed-spin';
 import { inverseHessian, inverseHessian2, logNormalIntervalProbability, logNormalPdf, nelderMead } from './stats';
 import type { FlightConditions, Technique } from './types';
 import { requireInHalfOpen, requireInRange } from './validate';
@@ -133,11 +135,11 @@ function fitAimedSpeed(
   const n0 = prior.weightReps;
   const lnC0 = Math.log(ceilingPriorMs);
   const needs = new NeededSpeeds();
-  const obs: { lo: number; hi: number; need: number }[] = [];
+  const obs: { lo: number; hi: number; need: number; relSd: number }[] = [];
   prepared.forEach((k, i) => {
     const o = speedObs[i];
     if (!o) return;
-    obs.push({ lo: logBound(o.lo), hi: logBound(o.hi), need: needs.neededMs(k.targetDistanceM, k, k.conditions) });
+    obs.push({ lo: logBound(o.lo), hi: logBound(o.hi), need: needs.neededMs(k.targetDistanceM, k, k.conditions), relSd: o.relSd ?? 0 });
   });
   const f = (theta: number[]): number => {
     const [mu, logSd, logCeiling] = [theta[0]!, theta[1]!, theta[2]!];
@@ -147,8 +149,11 @@ function fitAimedSpeed(
     let nlp = 0;
     for (const o of obs) {
       const centre = softMinLog(Math.log(o.need), logCeiling) + mu;
-      if (o.lo === o.hi) nlp -= logNormalPdf((o.lo - centre) / sd) - logSd;
-      else nlp -= logNormalIntervalProbability((o.lo - centre) / sd, (o.hi - centre) / sd);
+      if (o.lo === o.hi) {
+        // A point with its own measurement spread (a timed repetition): the spreads add in quadrature.
+        const s = o.relSd > 0 ? Math.sqrt(sd * sd + o.relSd * o.relSd) : sd;
+        nlp -= logNormalPdf((o.lo - centre) / s) - Math.log(s);
+      } else nlp -= logNormalIntervalProbability((o.lo - centre) / sd, (o.hi - centre) / sd);
     }
     const dm = mu / sd0;
     const ds = logSd - Math.log(sd0);
@@ -199,9 +204,13 @@ function median(values: readonly number[]): number {
 export function fitProfile(
   kicks: readonly LoggedKick[],
   prior?: ProfilePrior & { technique?: Technique },
+  options: FitOptions = {},
 ): KickProfile {
   if (!Array.isArray(kicks)) throw new RangeError('kicks must be an array');
-  const prepared = kicks.map((k, i) => prepareKick(k, i));
+  const given = kicks.map((k, i) => prepareKick(k, i));
+  const timed = timedEvidence(given, options);
+  // A solved stopwatch reading replaces the backspin guessed by eye with the measured one.
+  const prepared = given.map((k, i) => (timed[i] ? { ...k, backspinRps: timed[i].backspinRps } : k));
   const technique = prepared[0]?.technique ?? prior?.technique;
   if (technique === undefined) throw new RangeError('kicks is empty and the prior names no technique');
   prepared.forEach((k) => {
@@ -213,7 +222,10 @@ export function fitProfile(
   const launch = launchSummary(prepared, technique);
 
   const bounds = new SpeedBounds();
-  const speedObs: (Censored | null)[] = prepared.map((k) => speedObservation(k, bounds));
+  const speedObs: (Censored | null)[] = prepared.map((k, i) => {
+    const t = timed[i];
+    return t ? { lo: t.speedMs, hi: t.speedMs, relSd: t.speedSdMs / t.speedMs } : speedObservation(k, bounds);
+  });
   const speedCount = speedObs.filter((o) => o !== null).length;
   const meanLaunch = { elevationDeg: launch.elevationDeg, backspinRps: launch.backspinRps, sidespinRps: launch.sidespinRps };
   const conditions0 = prepared[0]?.conditions ?? {};
@@ -296,9 +308,51 @@ export function fitProfile(
       aimPoints: count(aimObs, 'point'),
       aimIntervals: count(aimObs, 'interval'),
       aimBounds: count(aimObs, 'bound'),
+      timed: timed.filter((t) => t !== null).length,
     },
     prior: usedPrior,
   };
+}
+
+/** Default stopwatch calibration when the caller gives none (the club defaults; common practice). */
+const DEFAULT_TIMING = { biasS: 0.2, sdS: 0.08 };
+const DEFAULT_MAX_TIMED = 60;
+/** Timing samples per timed repetition inside a fit (the Player file's own estimate samples more). */
+const FIT_TIMING_SAMPLES = 16;
+
+/**
+ * Speed and backspin of each timed repetition that has a carry (logged, or the target distance ± half the
+ * radius for an on-target call), from its stopwatch reading and the club's calibration; null elsewhere and
+ * where the reading cannot be explained. Such a repetition enters the fit as a point with its own spread:
+ * stronger evidence than an outcome call, whose speed interval also leans on a spin guessed by eye.
+ */
+function timedEvidence(prepared: readonly PreparedKick[], options: FitOptions): (TimedSpeed | null)[] {
+  const timing = options.timing ?? DEFAULT_TIMING;
+  let left = options.maxTimed ?? DEFAULT_MAX_TIMED;
+  return prepared.map((k) => {
+    if (k.hangTimeS === null || left <= 0) return null;
+    const carry =
+      k.carryM !== null ? { carryM: k.carryM } : k.outcome === 'on_target' ? { carryM: k.targetDistanceM, carrySdM: k.targetRadiusM / 2 } : null;
+    if (carry === null) return null;
+    left--;
+    const evidence = timedKickEvidence({
+      ...carry,
+      hangTimeS: k.hangTimeS,
+      elevationDeg: k.elevationDeg,
+      sidespinRps: k.sidespinRps,
+      conditions: k.conditions,
+      timing,
+      samples: FIT_TIMING_SAMPLES,
+      seed: 1 + k.index,
+    });
+    return evidence.ok && evidence.speedSdMs > 0 ? { speedMs: evidence.speedMs, speedSdMs: evidence.speedSdMs, backspinRps: evidence.backspinRps } : null;
+  });
+}
+
+interface TimedSpeed {
+  speedMs: number;
+  speedSdMs: number;
+  backspinRps: number;
 }
 
 /** Carry of a launch at `speedMs` in the intention conditions (still air, ISA sea level). */

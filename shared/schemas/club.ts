@@ -25,7 +25,7 @@ const seconds = (name: string, [min, max]: readonly [number, number]) =>
     .max(max, { error: `${name} must be at most ${max} s` });
 
 /** Body of `PUT /api/club/settings` and answer of `GET /api/club/settings`. */
-export const clubSettingsSchema = z.object({
+export const clubSettingsSchema = z.strictObject({
   timingBiasS: seconds('timingBiasS', TIMING_BIAS_RANGE_S),
   timingSdS: seconds('timingSdS', TIMING_SD_RANGE_S),
 });

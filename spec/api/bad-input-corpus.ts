@@ -132,6 +132,7 @@ function jsonRoutes(c: CorpusContext): JsonRoute[] {
       body: { name: 'Longmere Lane', latitude: 52.77, longitude: -1.55, altitudeM: 88, kickingBearingDeg: 205 },
       fields: { name: text(true, { freeText: true }), latitude: of('number'), longitude: of('number'), altitudeM: of('number'), kickingBearingDeg: of('number') },
     },
+    { route: 'PUT /api/club/settings', as: 'admin', url: '/api/club/settings', body: { timingBiasS: 0.2, timingSdS: 0.08 }, fields: { timingBiasS: of('number'), timingSdS: of('number') } },
     { route: 'POST /api/digests/run', as: 'admin', url: '/api/digests/run', body: { weekStart: '2026-11-09' }, fields: { weekStart: of('date', false) } },
   ];
 }

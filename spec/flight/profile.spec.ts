@@ -84,6 +84,40 @@ describe('fitProfile (interval-censored maximum likelihood with shrinkage)', () 
     expect(Math.abs(p.meanSpeedMs - geometricMean)).toBeLessThan(0.05);
   });
 
+  it('weighs timed repetitions more than untimed ones and takes their measured backspin', () => {
+    // Kicks with 7 rev/s of backspin that the coach logged by eye as "light backspin" (3 rev/s), each with a
+    // paced carry and a stopwatch reading: the true flight time plus the club's 0.2 s delay.
+    const rng = { i: 0, next: () => [0.4, -0.9, 1.3, -0.2, 0.7, -1.1, 0.1, 0.9, -0.5, 0.3][rng.i++ % 10]! };
+    const logs: LoggedKick[] = Array.from({ length: 12 }, () => {
+      const speed = 22 * Math.exp(0.05 * rng.next());
+      const f = simulateKick({ speed, elevationDeg: 32, backspinRps: 7 });
+      return {
+        technique: 'lofted' as const,
+        outcome: 'on_target' as const,
+        targetDistanceM: 40,
+        targetRadiusM: 3,
+        backspinStep: 1 as const,
+        sidespinStep: 0 as const,
+        carryM: Math.round(f.carryM * 2) / 2,
+        hangTimeS: f.flightTimeS + 0.2,
+      };
+    });
+    const timing = { biasS: 0.2, sdS: 0.03 };
+    const timed = fitProfile(logs, undefined, { timing });
+    const untimed = fitProfile(logs.map((l) => ({ ...l, hangTimeS: null })), undefined, { timing });
+    expect(timed.observations.timed).toBe(12);
+    expect(untimed.observations.timed).toBe(0);
+    // The stopwatch recovers the spin the eye under-called (within 1 rev/s of the truth), where the
+    // untimed fit can only take the logged step.
+    expect(Math.abs(timed.backspinRps - 7)).toBeLessThan(1);
+    expect(untimed.backspinRps).toBe(3);
+    // The speed each kick needed is read with its true spin, so the fitted offset is near zero (the kicks
+    // were struck at 22 m/s × e^(0.05 z) against what 40 m needs with 7 rev/s).
+    expect(Number.isFinite(timed.aimedSpeed.offsetLogMean)).toBeTrue();
+    expect(timed.meanSpeedMs).toBeGreaterThan(20);
+    expect(timed.meanSpeedMs).toBeLessThan(24.5);
+  });
+
   it('returns a plain JSON-serialisable object', () => {
     const p = fitProfile(syntheticAimed(20, 7, truth, [30, 36]));
     expect(JSON.parse(JSON.stringify(p))).toEqual(p);
