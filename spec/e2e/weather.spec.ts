@@ -70,6 +70,8 @@ describe('Session conditions from the weather service (end to end)', () => {
     await page.getByRole('button', { name: 'Start session' }).click();
     await page.waitForURL(/\/pitchside\/[0-9a-f-]{36}$/);
     const sessionId = new URL(page.url()).pathname.split('/').at(-1) ?? '';
+    // The header reads "Pitchside" until the session has loaded from IndexedDB.
+    await page.locator('.pitchside__summary').filter({ hasText: '°C' }).waitFor();
     const summary = await page.locator('.pitchside__summary').innerText();
     expect(summary).toContain('8.5 °C');
     expect(summary).toContain('headwind moderate 6 m/s');
