@@ -49,7 +49,7 @@ export async function startServer(config: AppConfig, options: StartOptions = {})
   if (normalised) logger.info({ kicks: normalised }, 'normalised logged carries to still air');
   const stillAir = new StillAirRefresher(db);
   stillAir.start();
-  const profiles = new ProfileCache(db);
+  const profiles = new ProfileCache(db, config.dbPath);
   profiles.start();
   let smtp: FakeSmtp | null = null;
   if (!config.smtpUrl) {

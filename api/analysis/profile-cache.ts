@@ -5,11 +5,13 @@
  * small slices so the event loop is never blocked for long.
  */
 import { and, eq } from 'drizzle-orm';
+import { Worker } from 'node:worker_threads';
 import { CURVE_SAMPLES, fitProfile, reachCurve, reliableReachM, type KickProfile, type ReachCurve } from '../../shared/flight/index';
 import type { ProfileEntry } from '../../shared/schemas/analysis';
 import type { Technique } from '../../shared/schemas/sync';
 import type { Db } from '../db/client';
 import { playerProfiles } from '../db/schema';
+import { cachedStatement } from '../db/statements';
 import { loggedKickOf, standardConditions, type SessionConditions, type StoredKick } from './flight-inputs';
 
 /** Monte Carlo samples of the cached standard-conditions reach curve (the client draws with the same). */
@@ -33,6 +35,8 @@ type CachedRow = typeof playerProfiles.$inferSelect;
  * and queries keep their latency.
  */
 export const REFRESH_IDLE_MS = 150;
+/** Rest of the worker between fits while requests are coming in, ms. */
+const WORKER_REST_MS = 250;
 
 /** Computes, caches and serves launch profiles. */
 export class ProfileCache {
@@ -41,19 +45,32 @@ export class ProfileCache {
   private wait: NodeJS.Timeout | null = null;
   private running = false;
   private lastRequestAt = Number.NEGATIVE_INFINITY;
+  private worker: Worker | null = null;
+  private inFlight = false;
 
-  constructor(private readonly db: Db) {}
+  /** `workerDbPath`: fit in a worker thread on its own connection to this file (the server's way). */
+  constructor(
+    private readonly db: Db,
+    private readonly workerDbPath: string | null = null,
+  ) {}
 
   /** The highest change_seq among a player's kicks of one technique (tombstones included: a void changes the fit). */
   private kicksSeq(playerId: string, technique: Technique): number {
-    const row = this.db.$client
-      .prepare('SELECT MAX(change_seq) AS s FROM kicks WHERE player_id = ? AND technique = ?')
-      .get(playerId, technique) as { s: number | null };
+    const row = cachedStatement(this.db.$client, 'SELECT MAX(change_seq) AS s FROM kicks WHERE player_id = ? AND technique = ?').get(playerId, technique) as {
+      s: number | null;
+    };
     return row.s ?? 0;
   }
 
   private cached(playerId: string, technique: Technique): CachedRow | undefined {
-    return this.db.select().from(playerProfiles).where(and(eq(playerProfiles.playerId, playerId), eq(playerProfiles.technique, technique))).get();
+    // A prepared statement: Squad week reads ~100 of these per request, and building the query each time cost more than the read.
+    return cachedStatement(
+      this.db.$client,
+      `SELECT player_id AS playerId, technique, kicks_seq AS kicksSeq, repetitions, profile_json AS profileJson, cloud_json AS cloudJson,
+              reach_curve_json AS reachCurveJson, reliable_reach_m AS reliableReachM, reach_radius_m AS reachRadiusM,
+              model_version AS modelVersion, computed_at AS computedAt
+         FROM player_profiles WHERE player_id = ? AND technique = ?`,
+    ).get(playerId, technique) as CachedRow | undefined;
   }
 
   /** Whether the cache is missing or behind the player's kicks. */
@@ -160,16 +177,49 @@ export class ProfileCache {
     return pairs.length;
   }
 
-  /** Starts the background refresher (one fit per event-loop turn). */
+  /**
+   * Starts the background refresher: in a worker thread when a database file was given (one fit at a
+   * time, off the API's event loop), else one fit per quiet event-loop turn.
+   */
   start(): void {
     this.running = true;
+    if (this.workerDbPath && this.workerDbPath !== ':memory:' && !this.worker) this.startWorker(this.workerDbPath);
     this.enqueueAllStale();
     this.schedule();
+  }
+
+  private startWorker(dbPath: string): void {
+    const worker = new Worker(new URL('./profile-worker-boot.mjs', import.meta.url), { workerData: { dbPath } });
+    worker.unref();
+    worker.on('message', () => {
+      this.inFlight = false;
+      // Under API load the worker rests between fits, leaving the other core to the requests.
+      if (performance.now() - this.lastRequestAt < REFRESH_IDLE_MS) {
+        this.wait ??= setTimeout(() => {
+          this.wait = null;
+          this.schedule();
+        }, WORKER_REST_MS);
+        this.wait.unref();
+      } else this.schedule();
+    });
+    const fallBack = (): void => {
+      // Without the worker the refresher carries on in-process rather than leave profiles stale.
+      if (this.worker !== worker) return;
+      this.worker = null;
+      this.inFlight = false;
+      this.schedule();
+    };
+    worker.on('error', fallBack);
+    worker.on('exit', fallBack);
+    this.worker = worker;
   }
 
   /** Stops the refresher. */
   stop(): void {
     this.running = false;
+    const worker = this.worker;
+    this.worker = null;
+    if (worker) void worker.terminate();
     if (this.timer) clearImmediate(this.timer);
     if (this.wait) clearTimeout(this.wait);
     this.timer = null;
@@ -187,6 +237,16 @@ export class ProfileCache {
   }
 
   private schedule(): void {
+    if (this.worker) {
+      if (this.inFlight || this.wait || !this.running) return;
+      const next = this.queue.values().next();
+      if (next.done) return;
+      this.queue.delete(next.value);
+      const [playerId, technique] = next.value.split('|') as [string, Technique];
+      this.inFlight = true;
+      this.worker.postMessage({ playerId, technique });
+      return;
+    }
     if (this.timer || this.wait || !this.running || this.queue.size === 0) return;
     const quietFor = performance.now() - this.lastRequestAt;
     if (quietFor < REFRESH_IDLE_MS) {

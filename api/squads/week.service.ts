@@ -9,6 +9,7 @@ import type { CalibrationPoint, CarryBasis, SquadWeek, SquadWeekPlayer, ZoneHitR
 import type { Technique } from '../../shared/schemas/sync';
 import type { ProfileCache } from '../analysis/profile-cache';
 import type { Db } from '../db/client';
+import { cachedStatement } from '../db/statements';
 import { addDays, isoWeekStart } from '../../shared/dates';
 import { clubs, squads } from '../db/schema';
 import { NotFound } from '../errors';
@@ -42,11 +43,13 @@ export function squadWeek(db: Db, profiles: ProfileCache, scope: Scope, squadId:
   const weekEnd = addDays(weekStart, 7);
   const params = { squadId, weekStart, prevStart, weekEnd, limit };
   const sqlite = db.$client;
-  const roster = sqlite
-    .prepare(`SELECT id, display_name AS displayName, shirt_number AS shirtNumber FROM players WHERE squad_id = @squadId AND deleted_at IS NULL ORDER BY shirt_number, display_name`)
+  const roster = cachedStatement(
+    sqlite,
+    `SELECT id, display_name AS displayName, shirt_number AS shirtNumber FROM players WHERE squad_id = @squadId AND deleted_at IS NULL ORDER BY shirt_number, display_name`)
     .all(params) as { id: string; displayName: string; shirtNumber: number | null }[];
-  const techRows = sqlite
-    .prepare(
+  const techRows = cachedStatement(
+    sqlite,
+    
       `SELECT k.player_id, k.technique,
               SUM(k.recorded_at >= @weekStart) AS this_reps,
               SUM(k.recorded_at >= @weekStart AND k.outcome = 'on_target') AS this_hits,
@@ -58,8 +61,9 @@ export function squadWeek(db: Db, profiles: ProfileCache, scope: Scope, squadId:
         GROUP BY k.player_id, k.technique`,
     )
     .all(params) as TechRow[];
-  const loadRows = sqlite
-    .prepare(
+  const loadRows = cachedStatement(
+    sqlite,
+    
       `SELECT k.player_id, s.id AS session_id, s.started_at, COUNT(*) AS reps
          FROM training_sessions s JOIN kicks k ON k.session_id = s.id
         WHERE s.squad_id = @squadId AND s.deleted_at IS NULL AND s.started_at >= @weekStart AND s.started_at < @weekEnd AND k.deleted_at IS NULL
@@ -71,8 +75,9 @@ export function squadWeek(db: Db, profiles: ProfileCache, scope: Scope, squadId:
   const thisWeek = `FROM training_sessions s JOIN kicks k ON k.session_id = s.id
         WHERE s.squad_id = @squadId AND s.deleted_at IS NULL AND s.started_at >= @weekStart AND s.started_at < @weekEnd
           AND k.deleted_at IS NULL AND k.recorded_at >= @weekStart AND k.recorded_at < @weekEnd`;
-  const medians = sqlite
-    .prepare(
+  const medians = cachedStatement(
+    sqlite,
+    
       `WITH ranked AS (SELECT k.player_id, k.technique, ${carry} AS carry,
               ROW_NUMBER() OVER (PARTITION BY k.player_id, k.technique ORDER BY ${carry}) AS i,
               COUNT(*) OVER (PARTITION BY k.player_id, k.technique) AS n
@@ -81,14 +86,16 @@ export function squadWeek(db: Db, profiles: ProfileCache, scope: Scope, squadId:
         WHERE i = (n + 1) / 2 OR (n % 2 = 0 AND i = n / 2 + 1) GROUP BY player_id, technique`,
     )
     .all(params) as { player_id: string; technique: Technique; median: number }[];
-  const targets = sqlite
-    .prepare(
+  const targets = cachedStatement(
+    sqlite,
+    
       `SELECT k.player_id, k.technique, k.target_distance_m AS d, k.target_radius_m AS r, COUNT(*) AS n, SUM(k.outcome = 'on_target') AS hits
          ${thisWeek} GROUP BY k.player_id, k.technique, k.target_distance_m, k.target_radius_m`,
     )
     .all(params) as { player_id: string; technique: Technique; d: number; r: number; n: number; hits: number }[];
-  const zones = sqlite
-    .prepare(
+  const zones = cachedStatement(
+    sqlite,
+    
       `SELECT k.technique, CAST(k.target_distance_m / ${ZONE_BAND_M} AS INTEGER) AS band, COUNT(*) AS reps, AVG(k.outcome = 'on_target') AS hit_rate
          ${thisWeek} GROUP BY k.technique, band ORDER BY k.technique, band`,
     )

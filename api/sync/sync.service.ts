@@ -17,7 +17,7 @@ import {
   type SyncEntity,
 } from '../../shared/schemas/sync';
 import { clearSessionStillAirCarry } from '../analysis/still-air';
-import { nextChangeSeq, type Db } from '../db/client';
+import { nextChangeSeq, withChangeSeqBlock, type Db } from '../db/client';
 import { cachedStatement } from '../db/statements';
 import { changeCounter, drills, kicks, trainingSessions } from '../db/schema';
 import { fieldErrors, Forbidden } from '../errors';
@@ -62,18 +62,37 @@ export function push(db: Db, scope: Scope, deviceId: string, raw: unknown[]): Pu
 
   const sqlite = db.$client;
   const applyOne = sqlite.transaction((m: Parsed) => applyMutation(db, scope, deviceId, m));
+  const rejected = (m: Parsed, err: Rejection): MutationResult => ({
+    id: m.id,
+    status: 'rejected',
+    error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) },
+  });
   // IMMEDIATE: take the write lock at BEGIN, waiting up to the busy timeout. A deferred BEGIN would read first
   // and then fail at once with SQLITE_BUSY_SNAPSHOT if another connection committed meanwhile (SQLite documentation, "BEGIN TRANSACTION").
-  sqlite.transaction(() => {
-    for (const { index, m } of parsed) {
-      try {
-        results[index] = applyOne(m);
-      } catch (err) {
-        if (!(err instanceof Rejection)) throw err;
-        results[index] = { id: m.id, status: 'rejected', error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) } };
-      }
-    }
-  }).immediate();
+  // Fast path: the whole batch without savepoints. The first mutation that throws rolls it all back, and
+  // the batch runs again with a savepoint per mutation, so a rejected one undoes only itself.
+  const fast = sqlite.transaction(() =>
+    withChangeSeqBlock(db, () => {
+      for (const { index, m } of parsed) results[index] = applyMutation(db, scope, deviceId, m);
+    }),
+  );
+  try {
+    fast.immediate();
+  } catch (err) {
+    if (!(err instanceof Rejection)) throw err;
+    sqlite.transaction(() =>
+      withChangeSeqBlock(db, () => {
+        for (const { index, m } of parsed) {
+          try {
+            results[index] = applyOne(m);
+          } catch (e) {
+            if (!(e instanceof Rejection)) throw e;
+            results[index] = rejected(m, e);
+          }
+        }
+      }),
+    ).immediate();
+  }
   return { results, cursor: currentCursor(db) };
 }
 

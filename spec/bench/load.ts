@@ -99,7 +99,12 @@ export interface PhaseOptions {
   url: string;
   connections: number;
   durationS: number;
-  /** Requests per second over all connections (absent: as fast as answers come back). */
+  /**
+   * Requests per second over all connections (absent: as fast as answers come back). Paced as that many
+   * autocannon streams of one request a second each, their starts spread evenly over the first second:
+   * one instance with `overallRate` sends each second's requests together at the top of the second (it
+   * resets a per-connection count every second), so its latencies would be the queue of a burst.
+   */
   overallRate?: number;
   method?: 'GET' | 'POST';
   headers: Record<string, string>;
@@ -112,36 +117,19 @@ export interface PhaseOptions {
 /** Runs a phase with autocannon from this process (the server is another process). */
 export async function runPhase(o: PhaseOptions): Promise<PhaseResult> {
   const times: number[] = [];
-  let finish: (r: autocannon.Result) => void = () => undefined;
-  let fail: (e: Error) => void = () => undefined;
-  const done = new Promise<autocannon.Result>((ok, bad) => {
-    finish = ok;
-    fail = bad;
-  });
-  const instance = autocannon({
-    url: o.url,
-    connections: o.connections,
-    duration: o.durationS,
-    ...(o.overallRate ? { overallRate: o.overallRate } : {}),
-    timeout: 30,
-    requests: [
-      {
-        method: o.method ?? 'GET',
-        headers: o.headers,
-        setupRequest: (req, context) => {
-          const { path, body } = o.next(context as Record<string, unknown>);
-          return { ...req, path, ...(body === undefined ? {} : { body }) };
-        },
-        onResponse: (status, body, context) => o.answered?.(status, body, context as Record<string, unknown>),
-      },
-    ],
-  }, (err, result) => (err ? fail(err) : finish(result)));
-  // autocannon emits (client, statusCode, resBytes, responseTime in ms) for every answer.
-  (instance as NodeJS.EventEmitter).on('response', (...args: unknown[]) => {
-    const ms = args[3];
-    if (typeof ms === 'number') times.push(ms);
-  });
-  const result = await done;
+  const streams = o.overallRate ? Math.max(1, Math.round(o.overallRate)) : 1;
+  const runs: Promise<autocannon.Result>[] = [];
+  for (let i = 0; i < streams; i++) {
+    const delayMs = o.overallRate ? (1000 * i) / streams : 0;
+    runs.push(new Promise((ok) => setTimeout(ok, delayMs)).then(() => runStream(o, o.overallRate ? 1 : o.connections, o.overallRate ? 1 : undefined, times)));
+  }
+  const results = await Promise.all(runs);
+  const result = {
+    duration: Math.max(...results.map((r) => r.duration)),
+    non2xx: results.reduce((a, r) => a + r.non2xx, 0),
+    errors: results.reduce((a, r) => a + r.errors, 0),
+    timeouts: results.reduce((a, r) => a + r.timeouts, 0),
+  };
   times.sort((a, b) => a - b);
   const seconds = result.duration;
   return {
@@ -157,4 +145,41 @@ export async function runPhase(o: PhaseOptions): Promise<PhaseResult> {
     p99: percentile(times, 99),
     max: times.at(-1) ?? NaN,
   };
+}
+
+/** One autocannon instance of a phase; every answer's latency goes into `times`. */
+function runStream(o: PhaseOptions, connections: number, rate: number | undefined, times: number[]): Promise<autocannon.Result> {
+  let finish: (r: autocannon.Result) => void = () => undefined;
+  let fail: (e: Error) => void = () => undefined;
+  const done = new Promise<autocannon.Result>((ok, bad) => {
+    finish = ok;
+    fail = bad;
+  });
+  const instance = autocannon(
+    {
+      url: o.url,
+      connections,
+      duration: o.durationS,
+      ...(rate ? { overallRate: rate } : {}),
+      timeout: 30,
+      requests: [
+        {
+          method: o.method ?? 'GET',
+          headers: o.headers,
+          setupRequest: (req, context) => {
+            const { path, body } = o.next(context as Record<string, unknown>);
+            return { ...req, path, ...(body === undefined ? {} : { body }) };
+          },
+          onResponse: (status, body, context) => o.answered?.(status, body, context as Record<string, unknown>),
+        },
+      ],
+    },
+    (err, result) => (err ? fail(err) : finish(result)),
+  );
+  // autocannon emits (client, statusCode, resBytes, responseTime in ms) for every answer.
+  (instance as NodeJS.EventEmitter).on('response', (...args: unknown[]) => {
+    const ms = args[3];
+    if (typeof ms === 'number') times.push(ms);
+  });
+  return done;
 }

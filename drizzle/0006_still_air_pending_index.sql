@@ -1,0 +1,1 @@
+CREATE INDEX `kicks_still_air_pending_idx` ON `kicks` (`change_seq`) WHERE carry_m IS NOT NULL AND still_air_carry_m IS NULL;
