@@ -32,6 +32,8 @@ export interface OutgoingMail {
 
 /** Attempts before a message is marked failed (it stays visible with its last error). */
 export const MAX_MAIL_ATTEMPTS = 6;
+/** How long a flushing process holds a claimed message before another may try it, ms. */
+const MAIL_LEASE_MS = 5 * 60_000;
 
 /** Queues and sends mail. */
 export class Mailer {
@@ -89,6 +91,20 @@ export class Mailer {
       .all();
     let sent = 0;
     for (const row of due) {
+      // Claim the row with a lease before sending, so two processes flushing one outbox never both send it;
+      // a process that dies mid-send leaves the lease to run out and the message is tried again.
+      const claimed = this.db
+        .update(mailOutbox)
+        .set({ nextAttemptAt: new Date(Date.now() + MAIL_LEASE_MS).toISOString() })
+        .where(
+          and(
+            eq(mailOutbox.id, row.id),
+            eq(mailOutbox.status, 'queued'),
+            or(isNull(mailOutbox.nextAttemptAt), lte(mailOutbox.nextAttemptAt, now)),
+          ),
+        )
+        .run();
+      if (claimed.changes !== 1) continue;
       try {
         const attachments = row.attachmentsJson ? (JSON.parse(row.attachmentsJson) as InlineAttachment[]) : [];
         await transport.sendMail({
