@@ -26,7 +26,7 @@ import {
   type LoggedKick,
   type ProfilePrior,
 } from './profile-types';
-import { timedKickEvidence } from './speed-spin';
+import { timedEvidence } from './profile-timed';
 import { inverseHessian, inverseHessian2, logNormalIntervalProbability, logNormalPdf, nelderMead } from './stats';
 import type { FlightConditions, Technique } from './types';
 import { requireInHalfOpen, requireInRange } from './validate';
@@ -312,47 +312,6 @@ export function fitProfile(
     },
     prior: usedPrior,
   };
-}
-
-/** Default stopwatch calibration when the caller gives none (the club defaults; common practice). */
-const DEFAULT_TIMING = { biasS: 0.2, sdS: 0.08 };
-const DEFAULT_MAX_TIMED = 60;
-/** Timing samples per timed repetition inside a fit (the Player file's own estimate samples more). */
-const FIT_TIMING_SAMPLES = 16;
-
-/**
- * Speed and backspin of each timed repetition that has a carry (logged, or the target distance ± half the
- * radius for an on-target call), from its stopwatch reading and the club's calibration; null elsewhere and
- * where the reading cannot be explained. Such a repetition enters the fit as a point with its own spread:
- * stronger evidence than an outcome call, whose speed interval also leans on a spin guessed by eye.
- */
-function timedEvidence(prepared: readonly PreparedKick[], options: FitOptions): (TimedSpeed | null)[] {
-  const timing = options.timing ?? DEFAULT_TIMING;
-  let left = options.maxTimed ?? DEFAULT_MAX_TIMED;
-  return prepared.map((k) => {
-    if (k.hangTimeS === null || left <= 0) return null;
-    const carry =
-      k.carryM !== null ? { carryM: k.carryM } : k.outcome === 'on_target' ? { carryM: k.targetDistanceM, carrySdM: k.targetRadiusM / 2 } : null;
-    if (carry === null) return null;
-    left--;
-    const evidence = timedKickEvidence({
-      ...carry,
-      hangTimeS: k.hangTimeS,
-      elevationDeg: k.elevationDeg,
-      sidespinRps: k.sidespinRps,
-      conditions: k.conditions,
-      timing,
-      samples: FIT_TIMING_SAMPLES,
-      seed: 1 + k.index,
-    });
-    return evidence.ok && evidence.speedSdMs > 0 ? { speedMs: evidence.speedMs, speedSdMs: evidence.speedSdMs, backspinRps: evidence.backspinRps } : null;
-  });
-}
-
-interface TimedSpeed {
-  speedMs: number;
-  speedSdMs: number;
-  backspinRps: number;
 }
 
 /** Carry of a launch at `speedMs` in the intention conditions (still air, ISA sea level). */
