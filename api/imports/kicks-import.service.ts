@@ -9,11 +9,12 @@ import { createHash, randomUUID } from 'node:crypto';
 import { and, eq, isNull } from 'drizzle-orm';
 import * as z from 'zod';
 import { DEFAULT_ELEVATION_DEG, SPIN_STEP_RPS, simulateKick, type BackspinStep } from '../../shared/flight/index';
+import { parseLocalDateTime } from '../../shared/dates';
 import { TECHNIQUES, type Outcome } from '../../shared/schemas/sync';
 import { ballOf } from '../analysis/flight-inputs';
 import { nextChangeSeq, type Db } from '../db/client';
 import { cachedStatement } from '../db/statements';
-import { drills, players, squads, trainingSessions, uploads } from '../db/schema';
+import { clubs, drills, players, squads, trainingSessions, uploads } from '../db/schema';
 import { Forbidden, Invalid, parseOrThrow } from '../errors';
 import type { Scope } from '../scope/scope';
 import { readCsv } from './csv';
@@ -85,6 +86,8 @@ export function importKicks(db: Db, scope: Scope, file: { name: string; buffer: 
   const mapping = parseOrThrow(kickMappingSchema, rawMapping, 'Mapping');
   const squad = db.select().from(squads).where(and(eq(squads.id, mapping.squadId), isNull(squads.deletedAt))).get();
   if (!squad || squad.clubId !== scope.user.clubId || !scope.canWriteSquad(squad.id)) throw new Forbidden('You may not import kicks into this squad');
+  // Device times without a zone are the club's wall-clock time.
+  const clubTimeZone = db.select({ tz: clubs.timezone }).from(clubs).where(eq(clubs.id, squad.clubId)).get()?.tz ?? 'UTC';
   const cols = mapping.columns;
   const used = Object.entries(cols).filter((e): e is [string, string] => typeof e[1] === 'string');
   const table = readCsv(file.buffer, used.map(([, c]) => c));
@@ -128,9 +131,9 @@ export function importKicks(db: Db, scope: Scope, file: { name: string; buffer: 
     const lateralM = read('lateral', (n) => distanceToM(n, mapping.units.distance), -75, 75, 'Lateral (m)');
     let recordedAt = new Date().toISOString();
     if (cols.time) {
-      const t = Date.parse(values[cols.time.toLowerCase()]?.trim().replace(' ', 'T') ?? '');
-      if (Number.isNaN(t)) err(cols.time, 'Time is not a date and time (e.g. 2026-11-30 18:05:10)');
-      else recordedAt = new Date(t).toISOString();
+      const t = parseLocalDateTime(values[cols.time.toLowerCase()] ?? '', clubTimeZone);
+      if (t === null) err(cols.time, 'Time is not a date and time (e.g. 2026-11-30 18:05:10)');
+      else recordedAt = t.toISOString();
     }
     if (!player || errors.some((e) => e.row === row)) continue;
     let modelled = carryM;
