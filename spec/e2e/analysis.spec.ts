@@ -11,6 +11,7 @@ import { join } from 'node:path';
 import type { Locator, Page } from 'playwright-core';
 import { demoPeriod } from '../../seed/calendar';
 import { launchContext } from './support/browser';
+import { profilesFitted } from './support/profiles';
 import { startE2eServer, type E2eServer } from './support/server';
 
 const PASSWORD = 'loftline-demo';
@@ -33,25 +34,6 @@ async function apiToken(baseUrl: string, email: string): Promise<string> {
 async function apiGet<T>(baseUrl: string, token: string, path: string): Promise<T> {
   const res = await fetch(baseUrl + path, { headers: { Authorization: `Bearer ${token}` } });
   return (await res.json()) as T;
-}
-
-/**
- * Waits until the server has fitted every profile of the head coach's squads (a fresh demo database
- * fits them in the background after start-up), so Squad week shows reliable reach, not "updating".
- */
-async function profilesFitted(baseUrl: string, token: string, weekStart: string): Promise<void> {
-  const { squads } = await apiGet<{ squads: { id: string }[] }>(baseUrl, token, '/api/squads');
-  const deadline = Date.now() + 150_000;
-  for (;;) {
-    let pending = 0;
-    for (const squad of squads) {
-      const week = await apiGet<{ players: { reach: { pending: boolean }[] }[] }>(baseUrl, token, `/api/squads/${squad.id}/week?start=${weekStart}`);
-      pending += week.players.reduce((n, p) => n + p.reach.filter((r) => r.pending).length, 0);
-    }
-    if (pending === 0) return;
-    if (Date.now() > deadline) throw new Error(`${pending} profiles still being fitted after 150 s`);
-    await new Promise((done) => setTimeout(done, 1000));
-  }
 }
 
 /**
@@ -96,7 +78,7 @@ describe('Player file and Squad week (end to end, Chromium)', () => {
     try {
       const page = await context.newPage();
       const lastWeek = demoPeriod(new Date()).weekStarts.at(-1)!.toISOString().slice(0, 10);
-      await profilesFitted(server.baseUrl, await apiToken(server.baseUrl, HEAD_COACH), lastWeek);
+      await profilesFitted(server.baseUrl, HEAD_COACH);
       await signIn(page, server.baseUrl, HEAD_COACH);
       const weekAnswer = page.waitForResponse((r) => r.url().includes('/week?') && r.url().includes(`start=${lastWeek}`));
       await page.getByRole('link', { name: 'Squad week' }).first().click();

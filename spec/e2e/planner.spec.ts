@@ -10,6 +10,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { Locator, Page } from 'playwright-core';
 import { launchContext } from './support/browser';
+import { profilesFitted } from './support/profiles';
 import { startE2eServer, type E2eServer } from './support/server';
 
 const PASSWORD = 'loftline-demo';
@@ -139,13 +140,15 @@ describe('set-piece planner (end to end, Chromium)', () => {
     const { context, close } = await launchContext();
     try {
       const page = await context.newPage();
+      // The ranking to keep is the settled one: every profile fitted on the server first.
+      await profilesFitted(offlineServer.baseUrl, HEAD_COACH);
       await openPlanner(page, offlineServer);
       // The service worker must control the page so the shell loads without the server.
       await page.evaluate(async () => {
         await navigator.serviceWorker.ready;
       });
       // Every profile in and the ranking settled, then a second's rest: the ranking is kept.
-      await page.waitForFunction(() => !document.body.textContent?.includes('still computing') && !document.querySelector('mat-progress-bar'), undefined, {
+      await page.waitForFunction(() => !/still computing|computing…/.test(document.body.textContent ?? '') && !document.querySelector('mat-progress-bar'), undefined, {
         timeout: 120_000,
       });
       const online = await page.locator('table tbody tr').allInnerTexts();
