@@ -145,46 +145,31 @@ async function main(): Promise<void> {
     const pushedKicks = batches.filter((b) => b.answered).length * BATCH;
 
     const squadStart = academy.lastWeekStart;
-    const pull = await runPhase({
-      label: `sync pull (500 changes a page), offered ${QUERY_RATE}/s`,
-      url: base,
-      connections: 4,
-      durationS: QUERY_S,
-      overallRate: QUERY_RATE,
-      headers: auth,
-      next: (ctx) => {
-        const page = ((ctx['page'] as number | undefined) ?? 0) + 1;
-        ctx['page'] = page;
-        // Pages through the season from different starting points, as devices catching up would.
-        return { path: `/api/sync/pull?since=${(page * 7919) % Math.max(1, KICKS)}&limit=500` };
-      },
-    });
-    const week = await runPhase({
-      label: `Squad week (GET /api/squads/:id/week), offered ${QUERY_RATE}/s`,
-      url: base,
-      connections: 4,
-      durationS: QUERY_S,
-      overallRate: QUERY_RATE,
-      headers: auth,
-      next: (ctx) => {
-        const i = ((ctx['i'] as number | undefined) ?? Math.floor(Math.random() * 12)) + 1;
-        ctx['i'] = i;
-        return { path: `/api/squads/${academy.squadIds[i % academy.squadIds.length]}/week?start=${squadStart}` };
-      },
-    });
-    const progress = await runPhase({
-      label: `Player progress (GET /api/players/:id/progress), offered ${QUERY_RATE}/s`,
-      url: base,
-      connections: 4,
-      durationS: QUERY_S,
-      overallRate: QUERY_RATE,
-      headers: auth,
-      next: (ctx) => {
-        const i = ((ctx['i'] as number | undefined) ?? Math.floor(Math.random() * 300)) + 1;
-        ctx['i'] = i;
-        return { path: `/api/players/${academy.playerIds[i % academy.playerIds.length]}/progress` };
-      },
-    });
+    /** A read phase at the offered query rate; `path(n)` is a connection's n-th request (n from 1). */
+    const queryPhase = (label: string, path: (n: number) => string) =>
+      runPhase({
+        label: `${label}, offered ${QUERY_RATE}/s`,
+        url: base,
+        connections: 4,
+        durationS: QUERY_S,
+        overallRate: QUERY_RATE,
+        headers: auth,
+        next: (ctx) => {
+          const n = ((ctx['n'] as number | undefined) ?? Math.floor(Math.random() * 1000)) + 1;
+          ctx['n'] = n;
+          return { path: path(n) };
+        },
+      });
+    // Pages through the season from different starting points, as devices catching up would.
+    const pull = await queryPhase('sync pull (500 changes a page)', (n) => `/api/sync/pull?since=${(n * 7919) % Math.max(1, KICKS)}&limit=500`);
+    const week = await queryPhase(
+      'Squad week (GET /api/squads/:id/week)',
+      (n) => `/api/squads/${academy.squadIds[n % academy.squadIds.length]}/week?start=${squadStart}`,
+    );
+    const progress = await queryPhase(
+      'Player progress (GET /api/players/:id/progress)',
+      (n) => `/api/players/${academy.playerIds[n % academy.playerIds.length]}/progress`,
+    );
 
     // Exactly once: retry every batch that got no answer, replay a sample of answered ones.
     const unanswered = batches.filter((b) => !b.answered);
