@@ -9,6 +9,7 @@ import {
   DEFAULT_ELEVATION_DEG,
   SIDESPIN_STEP_RPS,
   SPIN_STEP_RPS,
+  timedCarryOf,
   timedKickEvidence,
   type BackspinStep,
   type SidespinStep,
@@ -71,16 +72,6 @@ function evidenceOf(input: TimedKickInput): TimedKickEvidence {
   return evidence;
 }
 
-/**
- * The carry a timed repetition is solved on: the logged carry (exact), or for an on-target call the target
- * distance with the spread of a landing spread evenly over the target circle (along the line, r/2).
- */
-function carryOf(row: TimedRow): { carryM: number; carrySdM: number } | null {
-  if (row.carryM !== null && row.carryM > 0) return { carryM: row.carryM, carrySdM: 0 };
-  if (row.outcome === 'on_target') return { carryM: row.targetDistanceM, carrySdM: row.targetRadiusM / 2 };
-  return null;
-}
-
 interface Weighted {
   value: number;
   sd: number;
@@ -124,7 +115,7 @@ export function playerSpinEstimates(db: Db, scope: Scope, playerId: string): Spi
     const speeds: Weighted[] = [];
     let eyeSum = 0;
     for (const row of timed) {
-      const carry = carryOf(row);
+      const carry = timedCarryOf(row);
       if (!carry) {
         skipped.no_carry++;
         continue;

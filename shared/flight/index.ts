@@ -58,6 +58,7 @@ export {
   SPEED_SPIN_DEFAULT_SAMPLES,
   solveSpeedAndSpin,
   TIMED_KICK_DEFAULT_SAMPLES,
+  timedCarryOf,
   timedKickEvidence,
 } from './speed-spin';
 export type {

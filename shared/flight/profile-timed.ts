@@ -5,7 +5,7 @@
 
 import type { PreparedKick } from './profile-observations';
 import type { FitOptions } from './profile-types';
-import { timedKickEvidence } from './speed-spin';
+import { timedCarryOf, timedKickEvidence } from './speed-spin';
 
 /** Default stopwatch calibration when the caller gives none (the club defaults; common practice). */
 const DEFAULT_TIMING = { biasS: 0.2, sdS: 0.08 };
@@ -24,8 +24,7 @@ export function timedEvidence(prepared: readonly PreparedKick[], options: FitOpt
   let left = options.maxTimed ?? DEFAULT_MAX_TIMED;
   return prepared.map((k) => {
     if (k.hangTimeS === null || left <= 0) return null;
-    const carry =
-      k.carryM !== null ? { carryM: k.carryM } : k.outcome === 'on_target' ? { carryM: k.targetDistanceM, carrySdM: k.targetRadiusM / 2 } : null;
+    const carry = timedCarryOf(k);
     if (carry === null) return null;
     left--;
     const evidence = timedKickEvidence({

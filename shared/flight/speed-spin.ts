@@ -187,6 +187,22 @@ export type TimedKickEvidence =
       feasibleTimeS: { min: number; max: number } | null;
     };
 
+/**
+ * The carry a timed repetition is solved on: the logged carry (exact), or for an on-target call the target
+ * distance with the spread of a landing spread evenly over the target circle (along the line, r/2); null
+ * when the repetition says no more than that it missed.
+ */
+export function timedCarryOf(kick: {
+  carryM: number | null;
+  outcome: string;
+  targetDistanceM: number;
+  targetRadiusM: number;
+}): { carryM: number; carrySdM: number } | null {
+  if (kick.carryM !== null && kick.carryM > 0) return { carryM: kick.carryM, carrySdM: 0 };
+  if (kick.outcome === 'on_target') return { carryM: kick.targetDistanceM, carrySdM: kick.targetRadiusM / 2 };
+  return null;
+}
+
 /** Default samples for one timed repetition. */
 export const TIMED_KICK_DEFAULT_SAMPLES = 64;
 

@@ -4,72 +4,14 @@
  * read off autocannon's fixed buckets (it has no p95).
  */
 import autocannon from 'autocannon';
-import { spawn, type ChildProcess } from 'node:child_process';
-import { createServer } from 'node:net';
-import { resolve } from 'node:path';
-
-/** A server process started for the benchmark. */
-export interface BenchServer {
-  baseUrl: string;
-  process: ChildProcess;
-  log(): string;
-  stop(): Promise<void>;
-}
-
-function freePort(): Promise<number> {
-  return new Promise((done, reject) => {
-    const s = createServer();
-    s.once('error', reject);
-    s.listen(0, '127.0.0.1', () => {
-      const address = s.address();
-      const port = typeof address === 'object' && address ? address.port : 0;
-      s.close(() => done(port));
-    });
-  });
-}
+import { spawnApiServer, type ServerProcess } from '../support/server-process';
 
 /** Starts `api/cli/start.ts --api-only` (what `npm run start:api` runs) on 127.0.0.1 with this database. */
-export async function startBenchServer(dbPath: string, jwtSecret: string): Promise<BenchServer> {
-  const port = await freePort();
-  let output = '';
-  const child = spawn(process.execPath, ['--import', 'tsx', resolve('api/cli/start.ts'), '--api-only'], {
-    env: {
-      ...process.env,
-      NODE_ENV: 'production',
-      PORT: String(port),
-      LOFTLINE_HOST: '127.0.0.1',
-      LOFTLINE_DB: dbPath,
-      LOFTLINE_SMTP_PORT: '0',
-      LOFTLINE_LOG_LEVEL: 'warn',
-      LOFTLINE_JWT_SECRET: jwtSecret,
-    },
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
-  child.stdout?.on('data', (c: Buffer) => (output += c.toString()));
-  child.stderr?.on('data', (c: Buffer) => (output += c.toString()));
-  const baseUrl = `http://127.0.0.1:${port}`;
-  const deadline = Date.now() + 180_000;
-  for (;;) {
-    if (child.exitCode !== null) throw new Error(`server exited early (${child.exitCode}):\n${output}`);
-    try {
-      if ((await fetch(`${baseUrl}/api/health`)).ok) break;
-    } catch {
-      // not listening yet
-    }
-    if (Date.now() > deadline) throw new Error(`server did not answer within 180 s:\n${output}`);
-    await new Promise((r) => setTimeout(r, 200));
-  }
-  return {
-    baseUrl,
-    process: child,
-    log: () => output,
-    stop: () =>
-      new Promise<void>((done) => {
-        if (child.exitCode !== null || child.signalCode !== null) return done();
-        child.once('exit', () => done());
-        child.kill('SIGTERM');
-      }),
-  };
+export function startBenchServer(dbPath: string, jwtSecret: string): Promise<ServerProcess> {
+  return spawnApiServer(
+    { NODE_ENV: 'production', LOFTLINE_HOST: '127.0.0.1', LOFTLINE_DB: dbPath, LOFTLINE_JWT_SECRET: jwtSecret },
+    { readyTimeoutMs: 180_000 },
+  );
 }
 
 /** Exact percentile (nearest rank) of a sample. */
