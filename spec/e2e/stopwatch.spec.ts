@@ -101,6 +101,8 @@ describe('Pitchside stopwatch to Player file (end to end)', () => {
     const reading = Number(await page.getByTestId('hang-time').inputValue());
     expect(reading).toBeGreaterThan(2.7);
     expect(reading).toBeLessThan(3.3);
+    // The corrected time renders after the reading (a tick later): wait for it rather than count at once.
+    await page.getByText(/in the air after the club's 0\.20 s timing bias/).waitFor({ timeout: 5_000 });
     expect(await page.getByText(/in the air after the club's 0\.20 s timing bias/).count()).toBe(1);
 
     await page.getByLabel('Carry', { exact: true }).fill('30.9');
