@@ -45,12 +45,7 @@ export default function karmaConfig(config) {
   config.set({
     basePath: '',
     frameworks: ['jasmine'],
-    plugins: [
-      karmaJasmine,
-      karmaChromeLauncher,
-      karmaCoverage,
-      { 'reporter:summary-line': ['type', SummaryLineReporter] },
-    ],
+    plugins: [karmaJasmine, karmaChromeLauncher, karmaCoverage, { 'reporter:summary-line': ['type', SummaryLineReporter] }],
     client: {
       jasmine: {
         random: true,

@@ -78,7 +78,9 @@ export function createApp(deps: AppDeps): Express {
     weather,
     {
       cacheTtlS: config.weatherCacheTtlS,
-      noServiceReason: config.weatherOff ? 'The weather service is switched off on this server' : 'No weather service is configured on this server',
+      noServiceReason: config.weatherOff
+        ? 'The weather service is switched off on this server'
+        : 'No weather service is configured on this server',
     },
     logger,
   );
@@ -131,10 +133,14 @@ export function createApp(deps: AppDeps): Express {
   api.use(() => {
     throw new NotFound('No such API route');
   });
-  app.use('/api', (_req, res, next) => {
-    res.setHeader('Cache-Control', 'no-store');
-    next();
-  }, api);
+  app.use(
+    '/api',
+    (_req, res, next) => {
+      res.setHeader('Cache-Control', 'no-store');
+      next();
+    },
+    api,
+  );
 
   serveClient(app, config.clientDir);
   app.use(errorMiddleware);

@@ -16,6 +16,14 @@ export interface AuditEntry {
 /** Appends an entry (inside the caller's transaction when there is one). */
 export function audit(db: Db, e: AuditEntry): void {
   db.insert(auditLog)
-    .values({ id: randomUUID(), clubId: e.clubId ?? null, userId: e.userId, action: e.action, entity: e.entity ?? null, entityId: e.entityId ?? null, detailJson: e.detail ? JSON.stringify(e.detail) : null })
+    .values({
+      id: randomUUID(),
+      clubId: e.clubId ?? null,
+      userId: e.userId,
+      action: e.action,
+      entity: e.entity ?? null,
+      entityId: e.entityId ?? null,
+      detailJson: e.detail ? JSON.stringify(e.detail) : null,
+    })
     .run();
 }

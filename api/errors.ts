@@ -120,13 +120,19 @@ export const errorMiddleware: ErrorRequestHandler = (err: unknown, req, res, _ne
   if (err instanceof DatabaseBusy) res.setHeader('Retry-After', String(err.retryAfterS));
   if (err instanceof HttpError) {
     const extra = err instanceof HttpErrorWithBody ? err.body : {};
-    res.status(err.status).json({ ...extra, error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) } });
+    res
+      .status(err.status)
+      .json({ ...extra, error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) } });
     return;
   }
   const bp = err as BodyParserError;
   if (bp && bp.type === 'entity.parse.failed') {
     res.status(400).json({
-      error: { code: 'invalid_json', message: 'The request body is not valid JSON', fields: [{ field: 'body', message: 'Malformed JSON' }] },
+      error: {
+        code: 'invalid_json',
+        message: 'The request body is not valid JSON',
+        fields: [{ field: 'body', message: 'Malformed JSON' }],
+      },
     });
     return;
   }

@@ -20,7 +20,8 @@ export function unsafeJsonPath(value: unknown): { field: string; message: string
   while (stack.length) {
     const { v, path } = stack.pop()!;
     if (v === null || typeof v !== 'object') continue;
-    if (path.length >= MAX_JSON_DEPTH) return { field: path.join('.') || 'body', message: `Nested more than ${MAX_JSON_DEPTH} levels deep` };
+    if (path.length >= MAX_JSON_DEPTH)
+      return { field: path.join('.') || 'body', message: `Nested more than ${MAX_JSON_DEPTH} levels deep` };
     for (const key of Object.keys(v)) {
       if (FORBIDDEN_KEYS.has(key)) return { field: [...path, key].join('.'), message: 'This key is not allowed' };
       stack.push({ v: (v as Record<string, unknown>)[key], path: [...path, key] });

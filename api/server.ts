@@ -55,7 +55,10 @@ export async function startServer(config: AppConfig, options: StartOptions = {})
   if (!config.smtpUrl) {
     try {
       smtp = await startFakeSmtp(db, config.smtpPort);
-      logger.info({ port: smtp.port }, 'no SMTP_URL: a local fake SMTP server captures all mail on 127.0.0.1 (admins read it at /admin/mail)');
+      logger.info(
+        { port: smtp.port },
+        'no SMTP_URL: a local fake SMTP server captures all mail on 127.0.0.1 (admins read it at /admin/mail)',
+      );
     } catch (err) {
       logger.warn({ err }, 'the fake SMTP server could not start; mail stays queued in the outbox');
     }
@@ -69,7 +72,10 @@ export async function startServer(config: AppConfig, options: StartOptions = {})
   if (!config.weatherUrl && !config.weatherOff && config.env !== 'production') {
     try {
       fakeWeather = await startFakeWeather(config.weatherFakePort);
-      logger.info({ url: fakeWeather.url }, 'no WEATHER_URL: a local fake weather service answers session conditions (deterministic per coordinate)');
+      logger.info(
+        { url: fakeWeather.url },
+        'no WEATHER_URL: a local fake weather service answers session conditions (deterministic per coordinate)',
+      );
     } catch (err) {
       logger.warn({ err }, 'the fake weather service could not start; Pitchside keeps the coach’s taps');
     }

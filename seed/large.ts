@@ -93,7 +93,9 @@ export function generateLargeAcademy(db: Db, options: LargeAcademyOptions): Larg
         }
       }
     }
-    sqlite.prepare('INSERT INTO change_counter (id, last_seq) VALUES (1, ?) ON CONFLICT(id) DO UPDATE SET last_seq = excluded.last_seq').run(seq);
+    sqlite
+      .prepare('INSERT INTO change_counter (id, last_seq) VALUES (1, ?) ON CONFLICT(id) DO UPDATE SET last_seq = excluded.last_seq')
+      .run(seq);
   })();
   sqlite.pragma('optimize');
   return { clubId, squadIds, playerIds, sessions, kicks: kicksWritten, lastWeekStart: lastMonday.toISOString().slice(0, 10) };

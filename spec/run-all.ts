@@ -83,10 +83,14 @@ export function parseKarma(output: string): Counts | null {
 
 async function runKarma(): Promise<Counts> {
   console.log('\n── Karma (src/**/*.spec.ts, headless Chromium) ──');
-  const { code, output } = await run(resolve('node_modules/.bin/ng'), ['test', '--watch=false', '--browsers=ChromeHeadlessCI', '--no-progress'], {
-    CHROME_BIN: CHROMIUM,
-    NG_CLI_ANALYTICS: 'false',
-  });
+  const { code, output } = await run(
+    resolve('node_modules/.bin/ng'),
+    ['test', '--watch=false', '--browsers=ChromeHeadlessCI', '--no-progress'],
+    {
+      CHROME_BIN: CHROMIUM,
+      NG_CLI_ANALYTICS: 'false',
+    },
+  );
   const counts = parseKarma(output) ?? { passed: 0, failed: 0, skipped: 0 };
   if (code !== 0 && counts.failed === 0) counts.failed = 1;
   return counts;

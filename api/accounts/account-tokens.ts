@@ -26,7 +26,9 @@ export function issueAccountToken(db: Db, userId: string, kind: Kind, createdBy:
     .run();
   const token = randomBytes(32).toString('base64url');
   const expiresAt = new Date(now.getTime() + TOKEN_TTL_MS[kind]).toISOString();
-  db.insert(accountTokens).values({ id: randomUUID(), userId, kind, tokenHash: hash(token), expiresAt, createdBy }).run();
+  db.insert(accountTokens)
+    .values({ id: randomUUID(), userId, kind, tokenHash: hash(token), expiresAt, createdBy })
+    .run();
   return { token, expiresAt };
 }
 
@@ -45,7 +47,11 @@ const MESSAGES: Record<Kind, Record<'invalid' | 'used' | 'expired', string>> = {
 
 /** Finds a usable token or throws 400 with a clear, specific message. Does not consume it. */
 export function checkAccountToken(db: Db, token: string, kind: Kind): { id: string; userId: string } {
-  const row = db.select().from(accountTokens).where(and(eq(accountTokens.tokenHash, hash(token)), eq(accountTokens.kind, kind))).get();
+  const row = db
+    .select()
+    .from(accountTokens)
+    .where(and(eq(accountTokens.tokenHash, hash(token)), eq(accountTokens.kind, kind)))
+    .get();
   const code = kind === 'invite' ? 'invite' : 'reset';
   if (!row) throw new HttpError(400, `${code}_invalid`, MESSAGES[kind].invalid);
   if (row.usedAt) throw new HttpError(400, `${code}_used`, MESSAGES[kind].used);

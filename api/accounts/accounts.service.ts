@@ -31,29 +31,60 @@ export class AccountsService {
     }
     const staff = req.role === 'head_coach' || req.role === 'assistant_coach';
     if (req.squadIds?.length) {
-      const found = this.db.select({ id: squads.id }).from(squads).where(and(inArray(squads.id, req.squadIds), eq(squads.clubId, admin.clubId))).all();
-      if (found.length !== new Set(req.squadIds).size) throw new Invalid('A squad is not in your club', [{ field: 'squadIds', message: 'Unknown squad' }]);
+      const found = this.db
+        .select({ id: squads.id })
+        .from(squads)
+        .where(and(inArray(squads.id, req.squadIds), eq(squads.clubId, admin.clubId)))
+        .all();
+      if (found.length !== new Set(req.squadIds).size)
+        throw new Invalid('A squad is not in your club', [{ field: 'squadIds', message: 'Unknown squad' }]);
     }
     if ((req.role === 'player' || req.role === 'guardian') && !req.playerId) {
       throw new Invalid(`A ${req.role} invite needs the player it is for`, [{ field: 'playerId', message: 'Required for this role' }]);
     }
     if (req.playerId) {
       const p = this.db.select().from(players).where(eq(players.id, req.playerId)).get();
-      if (!p || p.clubId !== admin.clubId) throw new Invalid('The player is not in your club', [{ field: 'playerId', message: 'Unknown player' }]);
-      if (req.role === 'player' && p.userId) throw new Invalid('This player already has an account', [{ field: 'playerId', message: 'Already linked' }]);
+      if (!p || p.clubId !== admin.clubId)
+        throw new Invalid('The player is not in your club', [{ field: 'playerId', message: 'Unknown player' }]);
+      if (req.role === 'player' && p.userId)
+        throw new Invalid('This player already has an account', [{ field: 'playerId', message: 'Already linked' }]);
     }
     const userId = randomUUID();
     const now = new Date().toISOString();
     const result = this.db.transaction(() => {
-      this.db.insert(users).values({ id: userId, clubId: admin.clubId, email: req.email, displayName: req.displayName, role: req.role, passwordHash: null, invitedAt: now }).run();
+      this.db
+        .insert(users)
+        .values({
+          id: userId,
+          clubId: admin.clubId,
+          email: req.email,
+          displayName: req.displayName,
+          role: req.role,
+          passwordHash: null,
+          invitedAt: now,
+        })
+        .run();
       if (staff && req.squadIds) for (const squadId of new Set(req.squadIds)) this.db.insert(squadStaff).values({ squadId, userId }).run();
       if (req.role === 'player' && req.playerId) this.db.update(players).set({ userId }).where(eq(players.id, req.playerId)).run();
-      if (req.role === 'guardian' && req.playerId) this.db.insert(guardianLinks).values({ id: randomUUID(), guardianUserId: userId, playerId: req.playerId }).run();
+      if (req.role === 'guardian' && req.playerId)
+        this.db.insert(guardianLinks).values({ id: randomUUID(), guardianUserId: userId, playerId: req.playerId }).run();
       const { token, expiresAt } = issueAccountToken(this.db, userId, 'invite', admin.id);
       const club = this.db.select({ name: clubs.name }).from(clubs).where(eq(clubs.id, admin.clubId)).get();
-      const mail = inviteMail({ name: req.displayName, clubName: club?.name ?? 'your club', inviter: admin.displayName, link: `${this.config.publicUrl}/accept-invite?token=${token}` });
+      const mail = inviteMail({
+        name: req.displayName,
+        clubName: club?.name ?? 'your club',
+        inviter: admin.displayName,
+        link: `${this.config.publicUrl}/accept-invite?token=${token}`,
+      });
       this.mailer.queue({ clubId: admin.clubId, kind: 'invite', dedupeKey: `invite:${userId}:${now}`, to: req.email, ...mail });
-      audit(this.db, { clubId: admin.clubId, userId: admin.id, action: 'invite.created', entity: 'user', entityId: userId, detail: { role: req.role } });
+      audit(this.db, {
+        clubId: admin.clubId,
+        userId: admin.id,
+        action: 'invite.created',
+        entity: 'user',
+        entityId: userId,
+        detail: { role: req.role },
+      });
       return { userId, email: req.email, expiresAt };
     });
     void this.mailer.flush();
@@ -87,7 +118,13 @@ export class AccountsService {
     if (!user || user.disabledAt || !user.passwordHash) return;
     const { token } = issueAccountToken(this.db, user.id, 'reset', null);
     const mail = resetMail({ name: user.displayName, link: `${this.config.publicUrl}/reset-password?token=${token}` });
-    this.mailer.queue({ clubId: user.clubId, kind: 'password_reset', dedupeKey: `reset:${user.id}:${Date.now()}`, to: user.email, ...mail });
+    this.mailer.queue({
+      clubId: user.clubId,
+      kind: 'password_reset',
+      dedupeKey: `reset:${user.id}:${Date.now()}`,
+      to: user.email,
+      ...mail,
+    });
     void this.mailer.flush();
   }
 
@@ -103,4 +140,3 @@ export class AccountsService {
     });
   }
 }
-

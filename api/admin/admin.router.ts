@@ -26,15 +26,41 @@ export function adminRouter(db: Db, accounts: AccountsService): Router {
       .where(role ? and(eq(users.clubId, clubId), eq(users.role, role)) : eq(users.clubId, clubId))
       .orderBy(users.displayName)
       .all();
-    res.json({ users: rows.map((u) => ({ id: u.id, email: u.email, displayName: u.displayName, role: u.role, invitedAt: u.invitedAt, activated: u.passwordHash !== null, disabled: u.disabledAt !== null })) });
+    res.json({
+      users: rows.map((u) => ({
+        id: u.id,
+        email: u.email,
+        displayName: u.displayName,
+        role: u.role,
+        invitedAt: u.invitedAt,
+        activated: u.passwordHash !== null,
+        disabled: u.disabledAt !== null,
+      })),
+    });
   });
   router.post('/invites', (req, res) => {
     const body = parseOrThrow(inviteRequestSchema, req.body, 'Invite');
     res.status(201).json(accounts.invite(scopeOf(req).user, body));
   });
   router.get('/outbox', (req, res) => {
-    const rows = db.select().from(mailOutbox).where(eq(mailOutbox.clubId, scopeOf(req).user.clubId)).orderBy(desc(mailOutbox.createdAt)).limit(500).all();
-    const mails: OutboxMail[] = rows.map((r) => ({ id: r.id, kind: r.kind, toAddress: r.toAddress, subject: r.subject, status: r.status, attempts: r.attempts, lastError: r.lastError, createdAt: r.createdAt, sentAt: r.sentAt }));
+    const rows = db
+      .select()
+      .from(mailOutbox)
+      .where(eq(mailOutbox.clubId, scopeOf(req).user.clubId))
+      .orderBy(desc(mailOutbox.createdAt))
+      .limit(500)
+      .all();
+    const mails: OutboxMail[] = rows.map((r) => ({
+      id: r.id,
+      kind: r.kind,
+      toAddress: r.toAddress,
+      subject: r.subject,
+      status: r.status,
+      attempts: r.attempts,
+      lastError: r.lastError,
+      createdAt: r.createdAt,
+      sentAt: r.sentAt,
+    }));
     res.json({ mails });
   });
   return router;

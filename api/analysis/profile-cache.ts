@@ -28,7 +28,6 @@ export const DEFAULT_REACH_RADIUS_M = 3;
 
 type CachedRow = typeof playerProfiles.$inferSelect;
 
-
 /**
  * How long the API must have been quiet before the refresher fits another profile, ms. A fit holds the
  * event loop for tens of milliseconds; under load the refits wait (lists answer `pending`) so pushes
@@ -56,7 +55,10 @@ export class ProfileCache {
 
   /** The highest change_seq among a player's kicks of one technique (tombstones included: a void changes the fit). */
   private kicksSeq(playerId: string, technique: Technique): number {
-    const row = cachedStatement(this.db.$client, 'SELECT MAX(change_seq) AS s FROM kicks WHERE player_id = ? AND technique = ?').get(playerId, technique) as {
+    const row = cachedStatement(this.db.$client, 'SELECT MAX(change_seq) AS s FROM kicks WHERE player_id = ? AND technique = ?').get(
+      playerId,
+      technique,
+    ) as {
       s: number | null;
     };
     return row.s ?? 0;
@@ -108,7 +110,11 @@ export class ProfileCache {
     let curve: ReachCurve | null = null;
     let reach: number | null = null;
     if (rows.length > 0) {
-      profile = fitProfile(rows.map((r) => loggedKickOf(r, r)), undefined, { timing: this.timingOf(playerId) });
+      profile = fitProfile(
+        rows.map((r) => loggedKickOf(r, r)),
+        undefined,
+        { timing: this.timingOf(playerId) },
+      );
       const ballSize = rows[0]!.ballSize;
       curve = reachCurve(profile, standardConditions(ballSize), { samples: PROFILE_ENVELOPE_SAMPLES, seed: PROFILE_ENVELOPE_SEED });
       reach = reliableReachM(curve, reachRadiusM);
@@ -146,7 +152,16 @@ export class ProfileCache {
     const stale = !row || row.modelVersion < PROFILE_MODEL_VERSION || row.kicksSeq < this.kicksSeq(playerId, technique);
     if (stale) this.enqueue(playerId, technique);
     if (!row) {
-      return { playerId, technique, profile: null, repetitions: 0, reliableReachM: null, reachRadiusM: DEFAULT_REACH_RADIUS_M, computedAt: null, pending: true };
+      return {
+        playerId,
+        technique,
+        profile: null,
+        repetitions: 0,
+        reliableReachM: null,
+        reachRadiusM: DEFAULT_REACH_RADIUS_M,
+        computedAt: null,
+        pending: true,
+      };
     }
     return toEntry(row, stale);
   }

@@ -25,8 +25,12 @@ const rewind = new WeakMap<Db['$client'], number>();
 
 /** Marks a session's kicks for renormalisation (its conditions changed); call in the write transaction. */
 export function clearSessionStillAirCarry(db: Db, sessionId: string): void {
-  const first = cachedStatement(db.$client, 'SELECT MIN(change_seq) AS s FROM kicks WHERE session_id = ? AND carry_m IS NOT NULL').get(sessionId) as { s: number | null };
-  cachedStatement(db.$client, 'UPDATE kicks SET still_air_carry_m = NULL WHERE session_id = ? AND still_air_carry_m IS NOT NULL').run(sessionId);
+  const first = cachedStatement(db.$client, 'SELECT MIN(change_seq) AS s FROM kicks WHERE session_id = ? AND carry_m IS NOT NULL').get(
+    sessionId,
+  ) as { s: number | null };
+  cachedStatement(db.$client, 'UPDATE kicks SET still_air_carry_m = NULL WHERE session_id = ? AND still_air_carry_m IS NOT NULL').run(
+    sessionId,
+  );
   if (first.s !== null) rewind.set(db.$client, Math.min(rewind.get(db.$client) ?? Infinity, first.s - 1));
 }
 

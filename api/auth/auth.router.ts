@@ -82,7 +82,9 @@ export function authRouter(auth: AuthService, accounts: AccountsService, config:
   router.post('/forgot-password', perIpAccountMail, (req, res) => {
     const { email } = parseOrThrow(forgotPasswordSchema, req.body, 'Password reset');
     accounts.forgotPassword(email);
-    res.status(202).json({ message: 'If an account uses this e-mail, a link to choose a new password is on its way. It works for 1 hour.' });
+    res
+      .status(202)
+      .json({ message: 'If an account uses this e-mail, a link to choose a new password is on its way. It works for 1 hour.' });
   });
 
   router.post('/reset-password', perIp, async (req, res) => {

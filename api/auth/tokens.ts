@@ -29,11 +29,18 @@ function hashToken(token: string): string {
 }
 
 /** Issues a new refresh token (optionally continuing a family) and stores its hash. */
-export function issueRefreshToken(db: Db, config: AppConfig, userId: string, familyId: string = randomUUID()): { token: string; id: string } {
+export function issueRefreshToken(
+  db: Db,
+  config: AppConfig,
+  userId: string,
+  familyId: string = randomUUID(),
+): { token: string; id: string } {
   const token = randomBytes(32).toString('base64url');
   const id = randomUUID();
   const expiresAt = new Date(Date.now() + config.refreshTokenTtlS * 1000).toISOString();
-  db.insert(refreshTokens).values({ id, userId, familyId, tokenHash: hashToken(token), expiresAt }).run();
+  db.insert(refreshTokens)
+    .values({ id, userId, familyId, tokenHash: hashToken(token), expiresAt })
+    .run();
   return { token, id };
 }
 
@@ -51,7 +58,11 @@ export function rotateRefreshToken(
 ): { ok: true; userId: string; token: string } | { ok: false; reason: RefreshFailure } {
   // better-sqlite3 transactions run on the one connection, so `db` inside is the transaction.
   return db.transaction(() => {
-    const row = db.select().from(refreshTokens).where(eq(refreshTokens.tokenHash, hashToken(token))).get();
+    const row = db
+      .select()
+      .from(refreshTokens)
+      .where(eq(refreshTokens.tokenHash, hashToken(token)))
+      .get();
     if (!row) return { ok: false as const, reason: 'unknown' as const };
     const now = new Date().toISOString();
     if (row.revokedAt) {
@@ -70,7 +81,11 @@ export function rotateRefreshToken(
 
 /** Revokes the family a refresh token belongs to (sign-out). Unknown tokens are ignored. */
 export function revokeRefreshFamily(db: Db, token: string): void {
-  const row = db.select().from(refreshTokens).where(eq(refreshTokens.tokenHash, hashToken(token))).get();
+  const row = db
+    .select()
+    .from(refreshTokens)
+    .where(eq(refreshTokens.tokenHash, hashToken(token)))
+    .get();
   if (!row) return;
   db.update(refreshTokens)
     .set({ revokedAt: new Date().toISOString() })

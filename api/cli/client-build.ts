@@ -6,7 +6,17 @@ import { spawnSync } from 'node:child_process';
 import { existsSync, readdirSync, statSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 
-const CLIENT_SOURCES = ['src', 'shared', 'public', 'angular.json', 'ngsw-config.json', 'tsconfig.json', 'tsconfig.app.json', 'tsconfig.worker.json', 'package-lock.json'];
+const CLIENT_SOURCES = [
+  'src',
+  'shared',
+  'public',
+  'angular.json',
+  'ngsw-config.json',
+  'tsconfig.json',
+  'tsconfig.app.json',
+  'tsconfig.worker.json',
+  'package-lock.json',
+];
 const STAMP = resolve('dist/loftline/.build-stamp');
 
 function newestMtimeMs(path: string): number {
@@ -38,4 +48,3 @@ export function buildClient(): void {
   }
   writeFileSync(STAMP, new Date().toISOString() + '\n');
 }
-

@@ -53,7 +53,8 @@ async function main(): Promise<void> {
     const target = resolve(file ?? `data/backups/loftline-${new Date().toISOString().replace(/[:.]/g, '-')}.db`);
     console.log(`Backed up ${config.dbPath} to ${await backupDatabase(config.dbPath, target)}`);
   } else if (command === 'restore') {
-    if (!file || !existsSync(file)) throw new ConfigError('Usage: npm run db:restore -- FILE (an existing backup file). Stop the server first.');
+    if (!file || !existsSync(file))
+      throw new ConfigError('Usage: npm run db:restore -- FILE (an existing backup file). Stop the server first.');
     restoreDatabase(resolve(file), config.dbPath);
     console.log(`Restored ${config.dbPath} from ${resolve(file)}`);
   } else {

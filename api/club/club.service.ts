@@ -9,7 +9,11 @@ import type { Scope } from '../scope/scope';
 
 /** The stopwatch calibration of the caller's club (scoped by club: nobody reads another club's). */
 export function clubSettings(db: Db, scope: Scope): ClubSettings {
-  const row = db.select({ timingBiasS: clubs.timingBiasS, timingSdS: clubs.timingSdS }).from(clubs).where(eq(clubs.id, scope.user.clubId)).get();
+  const row = db
+    .select({ timingBiasS: clubs.timingBiasS, timingSdS: clubs.timingSdS })
+    .from(clubs)
+    .where(eq(clubs.id, scope.user.clubId))
+    .get();
   if (!row) throw new NotFound('Your club no longer exists');
   return row;
 }
@@ -18,10 +22,20 @@ export function clubSettings(db: Db, scope: Scope): ClubSettings {
 export function updateClubSettings(db: Db, scope: Scope, next: ClubSettings): ClubSettings {
   const before = clubSettings(db, scope);
   db.transaction(() => {
-    db.update(clubs).set({ timingBiasS: next.timingBiasS, timingSdS: next.timingSdS, updatedAt: new Date().toISOString() }).where(eq(clubs.id, scope.user.clubId)).run();
+    db.update(clubs)
+      .set({ timingBiasS: next.timingBiasS, timingSdS: next.timingSdS, updatedAt: new Date().toISOString() })
+      .where(eq(clubs.id, scope.user.clubId))
+      .run();
     // Timed repetitions are solved with the calibration: profiles fitted with the old one are refitted.
     db.$client.prepare('DELETE FROM player_profiles WHERE player_id IN (SELECT id FROM players WHERE club_id = ?)').run(scope.user.clubId);
   });
-  audit(db, { clubId: scope.user.clubId, userId: scope.user.id, action: 'club.settings_updated', entity: 'club', entityId: scope.user.clubId, detail: { before, after: next } });
+  audit(db, {
+    clubId: scope.user.clubId,
+    userId: scope.user.id,
+    action: 'club.settings_updated',
+    entity: 'club',
+    entityId: scope.user.clubId,
+    detail: { before, after: next },
+  });
   return clubSettings(db, scope);
 }

@@ -45,7 +45,8 @@ const openBlocks = new WeakMap<Database.Database, { last: number; start: number 
 export function withChangeSeqBlock<T>(db: Db, fn: () => T): T {
   const sqlite = db.$client;
   if (openBlocks.has(sqlite)) return fn();
-  const current = (cachedStatement(sqlite, 'SELECT last_seq AS s FROM change_counter WHERE id = 1').get() as { s: number } | undefined)?.s ?? 0;
+  const current =
+    (cachedStatement(sqlite, 'SELECT last_seq AS s FROM change_counter WHERE id = 1').get() as { s: number } | undefined)?.s ?? 0;
   const block = { last: current, start: current };
   openBlocks.set(sqlite, block);
   try {

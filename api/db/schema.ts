@@ -10,8 +10,14 @@
 import { sql } from 'drizzle-orm';
 import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 
-const createdAt = () => text('created_at').notNull().default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ', 'now'))`);
-const updatedAt = () => text('updated_at').notNull().default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ', 'now'))`);
+const createdAt = () =>
+  text('created_at')
+    .notNull()
+    .default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ', 'now'))`);
+const updatedAt = () =>
+  text('updated_at')
+    .notNull()
+    .default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ', 'now'))`);
 
 /** A club (or academy). Every other row hangs off one, and every query is scoped by it. */
 export const clubs = sqliteTable('clubs', {
@@ -40,7 +46,9 @@ export const trainingGrounds = sqliteTable(
   'training_grounds',
   {
     id: text('id').primaryKey(),
-    clubId: text('club_id').notNull().references(() => clubs.id),
+    clubId: text('club_id')
+      .notNull()
+      .references(() => clubs.id),
     name: text('name').notNull(),
     latitude: real('latitude'),
     longitude: real('longitude'),
@@ -79,7 +87,9 @@ export const users = sqliteTable(
   'users',
   {
     id: text('id').primaryKey(),
-    clubId: text('club_id').notNull().references(() => clubs.id),
+    clubId: text('club_id')
+      .notNull()
+      .references(() => clubs.id),
     email: text('email').notNull(),
     displayName: text('display_name').notNull(),
     role: text('role', { enum: ['admin', 'head_coach', 'assistant_coach', 'player', 'guardian'] }).notNull(),
@@ -97,7 +107,9 @@ export const refreshTokens = sqliteTable(
   'refresh_tokens',
   {
     id: text('id').primaryKey(),
-    userId: text('user_id').notNull().references(() => users.id),
+    userId: text('user_id')
+      .notNull()
+      .references(() => users.id),
     familyId: text('family_id').notNull(),
     tokenHash: text('token_hash').notNull(),
     createdAt: createdAt(),
@@ -113,7 +125,9 @@ export const squads = sqliteTable(
   'squads',
   {
     id: text('id').primaryKey(),
-    clubId: text('club_id').notNull().references(() => clubs.id),
+    clubId: text('club_id')
+      .notNull()
+      .references(() => clubs.id),
     name: text('name').notNull(),
     ageGroup: text('age_group').notNull(),
     ballSize: integer('ball_size').notNull().default(5),
@@ -129,8 +143,12 @@ export const squads = sqliteTable(
 export const squadStaff = sqliteTable(
   'squad_staff',
   {
-    squadId: text('squad_id').notNull().references(() => squads.id),
-    userId: text('user_id').notNull().references(() => users.id),
+    squadId: text('squad_id')
+      .notNull()
+      .references(() => squads.id),
+    userId: text('user_id')
+      .notNull()
+      .references(() => users.id),
     createdAt: createdAt(),
   },
   (t) => [primaryKey({ columns: [t.squadId, t.userId] }), index('squad_staff_user_idx').on(t.userId)],
@@ -141,12 +159,18 @@ export const players = sqliteTable(
   'players',
   {
     id: text('id').primaryKey(),
-    clubId: text('club_id').notNull().references(() => clubs.id),
-    squadId: text('squad_id').notNull().references(() => squads.id),
+    clubId: text('club_id')
+      .notNull()
+      .references(() => clubs.id),
+    squadId: text('squad_id')
+      .notNull()
+      .references(() => squads.id),
     userId: text('user_id').references(() => users.id),
     displayName: text('display_name').notNull(),
     shirtNumber: integer('shirt_number'),
-    dominantFoot: text('dominant_foot', { enum: ['left', 'right'] }).notNull().default('right'),
+    dominantFoot: text('dominant_foot', { enum: ['left', 'right'] })
+      .notNull()
+      .default('right'),
     birthDate: text('birth_date'),
     /** An adult player's own opt-in to Family digests about them (DESIGN §10: none for adults otherwise). */
     digestSelfOptIn: integer('digest_self_opt_in', { mode: 'boolean' }).notNull().default(false),
@@ -154,11 +178,7 @@ export const players = sqliteTable(
     updatedAt: updatedAt(),
     deletedAt: text('deleted_at'),
   },
-  (t) => [
-    index('players_squad_idx').on(t.squadId),
-    index('players_club_idx').on(t.clubId),
-    uniqueIndex('players_user_uq').on(t.userId),
-  ],
+  (t) => [index('players_squad_idx').on(t.squadId), index('players_club_idx').on(t.clubId), uniqueIndex('players_user_uq').on(t.userId)],
 );
 
 /** Guardian ↔ player links with the consent record a Family digest requires. */
@@ -166,8 +186,12 @@ export const guardianLinks = sqliteTable(
   'guardian_links',
   {
     id: text('id').primaryKey(),
-    guardianUserId: text('guardian_user_id').notNull().references(() => users.id),
-    playerId: text('player_id').notNull().references(() => players.id),
+    guardianUserId: text('guardian_user_id')
+      .notNull()
+      .references(() => users.id),
+    playerId: text('player_id')
+      .notNull()
+      .references(() => players.id),
     relationship: text('relationship').notNull().default('guardian'),
     consentAt: text('consent_at'),
     consentRecordedBy: text('consent_recorded_by').references(() => users.id),
@@ -178,10 +202,7 @@ export const guardianLinks = sqliteTable(
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
-  (t) => [
-    uniqueIndex('guardian_links_pair_uq').on(t.guardianUserId, t.playerId),
-    index('guardian_links_player_idx').on(t.playerId),
-  ],
+  (t) => [uniqueIndex('guardian_links_pair_uq').on(t.guardianUserId, t.playerId), index('guardian_links_player_idx').on(t.playerId)],
 );
 
 /** A training session and its conditions (client-created, synced). */
@@ -189,8 +210,12 @@ export const trainingSessions = sqliteTable(
   'training_sessions',
   {
     id: text('id').primaryKey(),
-    clubId: text('club_id').notNull().references(() => clubs.id),
-    squadId: text('squad_id').notNull().references(() => squads.id),
+    clubId: text('club_id')
+      .notNull()
+      .references(() => clubs.id),
+    squadId: text('squad_id')
+      .notNull()
+      .references(() => squads.id),
     groundId: text('ground_id').references(() => trainingGrounds.id),
     startedAt: text('started_at').notNull(),
     endedAt: text('ended_at'),
@@ -226,8 +251,12 @@ export const drills = sqliteTable(
   'drills',
   {
     id: text('id').primaryKey(),
-    clubId: text('club_id').notNull().references(() => clubs.id),
-    sessionId: text('session_id').notNull().references(() => trainingSessions.id),
+    clubId: text('club_id')
+      .notNull()
+      .references(() => clubs.id),
+    sessionId: text('session_id')
+      .notNull()
+      .references(() => trainingSessions.id),
     technique: text('technique', { enum: ['driven', 'lofted', 'chipped', 'curled'] }).notNull(),
     targetDistanceM: real('target_distance_m').notNull(),
     targetRadiusM: real('target_radius_m').notNull(),
@@ -249,10 +278,16 @@ export const kicks = sqliteTable(
   'kicks',
   {
     id: text('id').primaryKey(),
-    clubId: text('club_id').notNull().references(() => clubs.id),
-    sessionId: text('session_id').notNull().references(() => trainingSessions.id),
+    clubId: text('club_id')
+      .notNull()
+      .references(() => clubs.id),
+    sessionId: text('session_id')
+      .notNull()
+      .references(() => trainingSessions.id),
     drillId: text('drill_id').references(() => drills.id),
-    playerId: text('player_id').notNull().references(() => players.id),
+    playerId: text('player_id')
+      .notNull()
+      .references(() => players.id),
     technique: text('technique', { enum: ['driven', 'lofted', 'chipped', 'curled'] }).notNull(),
     foot: text('foot', { enum: ['left', 'right'] }).notNull(),
     /** −3..3, + = backspin (DESIGN §3 seven-step scale). */
@@ -287,7 +322,9 @@ export const kicks = sqliteTable(
     index('kicks_club_seq_idx').on(t.clubId, t.changeSeq),
     index('kicks_player_technique_seq_idx').on(t.playerId, t.technique, t.changeSeq),
     // The still-air refresher's work list: without it each tick scans the whole table (200 ms at 1M kicks).
-    index('kicks_still_air_pending_idx').on(t.changeSeq).where(sql`carry_m IS NOT NULL AND still_air_carry_m IS NULL`),
+    index('kicks_still_air_pending_idx')
+      .on(t.changeSeq)
+      .where(sql`carry_m IS NOT NULL AND still_air_carry_m IS NULL`),
   ],
 );
 
@@ -298,7 +335,9 @@ export const kicks = sqliteTable(
 export const playerProfiles = sqliteTable(
   'player_profiles',
   {
-    playerId: text('player_id').notNull().references(() => players.id),
+    playerId: text('player_id')
+      .notNull()
+      .references(() => players.id),
     technique: text('technique', { enum: ['driven', 'lofted', 'chipped', 'curled'] }).notNull(),
     /** Highest kick change_seq the cached profile saw. */
     kicksSeq: integer('kicks_seq').notNull(),
@@ -322,7 +361,9 @@ export const appliedMutations = sqliteTable(
   'applied_mutations',
   {
     id: text('id').primaryKey(),
-    userId: text('user_id').notNull().references(() => users.id),
+    userId: text('user_id')
+      .notNull()
+      .references(() => users.id),
     deviceId: text('device_id'),
     entity: text('entity').notNull(),
     entityId: text('entity_id').notNull(),
@@ -343,8 +384,12 @@ export const uploads = sqliteTable(
   'uploads',
   {
     id: text('id').primaryKey(),
-    clubId: text('club_id').notNull().references(() => clubs.id),
-    uploadedBy: text('uploaded_by').notNull().references(() => users.id),
+    clubId: text('club_id')
+      .notNull()
+      .references(() => clubs.id),
+    uploadedBy: text('uploaded_by')
+      .notNull()
+      .references(() => users.id),
     kind: text('kind', { enum: ['roster', 'measured_kicks'] }).notNull(),
     filename: text('filename').notNull(),
     sizeBytes: integer('size_bytes').notNull(),
@@ -353,7 +398,9 @@ export const uploads = sqliteTable(
     /** What the commit did (JSON), returned again when the same file comes back. */
     summaryJson: text('summary_json'),
     content: text('content').notNull(),
-    status: text('status', { enum: ['uploaded', 'previewed', 'committed', 'failed'] }).notNull().default('uploaded'),
+    status: text('status', { enum: ['uploaded', 'previewed', 'committed', 'failed'] })
+      .notNull()
+      .default('uploaded'),
     error: text('error'),
     createdAt: createdAt(),
     committedAt: text('committed_at'),
@@ -378,7 +425,9 @@ export const mailOutbox = sqliteTable(
     headersJson: text('headers_json'),
     /** Inline attachments (JSON: filename, cid, contentType, base64 content). */
     attachmentsJson: text('attachments_json'),
-    status: text('status', { enum: ['queued', 'sent', 'failed'] }).notNull().default('queued'),
+    status: text('status', { enum: ['queued', 'sent', 'failed'] })
+      .notNull()
+      .default('queued'),
     attempts: integer('attempts').notNull().default(0),
     lastError: text('last_error'),
     nextAttemptAt: text('next_attempt_at'),
@@ -393,10 +442,14 @@ export const digestRuns = sqliteTable(
   'digest_runs',
   {
     id: text('id').primaryKey(),
-    clubId: text('club_id').notNull().references(() => clubs.id),
+    clubId: text('club_id')
+      .notNull()
+      .references(() => clubs.id),
     kind: text('kind', { enum: ['family_digest', 'squad_week'] }).notNull(),
     periodStart: text('period_start').notNull(),
-    status: text('status', { enum: ['running', 'done', 'failed'] }).notNull().default('running'),
+    status: text('status', { enum: ['running', 'done', 'failed'] })
+      .notNull()
+      .default('running'),
     sentCount: integer('sent_count').notNull().default(0),
     startedAt: createdAt(),
     finishedAt: text('finished_at'),
@@ -425,7 +478,9 @@ export const accountTokens = sqliteTable(
   'account_tokens',
   {
     id: text('id').primaryKey(),
-    userId: text('user_id').notNull().references(() => users.id),
+    userId: text('user_id')
+      .notNull()
+      .references(() => users.id),
     kind: text('kind', { enum: ['invite', 'reset'] }).notNull(),
     tokenHash: text('token_hash').notNull(),
     expiresAt: text('expires_at').notNull(),
@@ -448,7 +503,9 @@ export const capturedMail = sqliteTable(
     htmlBody: text('html_body'),
     headersJson: text('headers_json').notNull(),
     attachmentCount: integer('attachment_count').notNull().default(0),
-    receivedAt: text('received_at').notNull().default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ', 'now'))`),
+    receivedAt: text('received_at')
+      .notNull()
+      .default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ', 'now'))`),
   },
   (t) => [index('captured_mail_received_idx').on(t.receivedAt)],
 );

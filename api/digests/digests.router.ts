@@ -22,7 +22,12 @@ export function unsubscribeRouter(db: Db, config: AppConfig): Router {
     const token = typeof req.query['token'] === 'string' ? req.query['token'] : '';
     const linkId = verifyUnsubscribeToken(config.jwtSecret, token);
     const link = linkId ? db.select().from(guardianLinks).where(eq(guardianLinks.id, linkId)).get() : undefined;
-    if (!link) throw new HttpError(400, 'unsubscribe_invalid', 'This unsubscribe link is not valid or has expired; sign in to change your digest settings');
+    if (!link)
+      throw new HttpError(
+        400,
+        'unsubscribe_invalid',
+        'This unsubscribe link is not valid or has expired; sign in to change your digest settings',
+      );
     if (link.digestOptIn) {
       db.update(guardianLinks).set({ digestOptIn: false, updatedAt: new Date().toISOString() }).where(eq(guardianLinks.id, link.id)).run();
       audit(db, { userId: link.guardianUserId, action: 'digest.unsubscribed', entity: 'guardian_link', entityId: link.id });

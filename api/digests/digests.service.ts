@@ -35,10 +35,20 @@ export class DigestJob {
   /** Queues and sends the week's digests; returns what was queued this time. */
   async run(options: { clubId?: string; weekStart?: string; now?: Date } = {}): Promise<DigestRunResult> {
     const weekStart = options.weekStart ? isoWeekStart(options.weekStart) : lastCompleteWeek(options.now ?? new Date());
-    const clubIds = options.clubId ? [options.clubId] : this.db.select({ id: clubs.id }).from(clubs).all().map((c) => c.id);
+    const clubIds = options.clubId
+      ? [options.clubId]
+      : this.db
+          .select({ id: clubs.id })
+          .from(clubs)
+          .all()
+          .map((c) => c.id);
     const total: DigestRunResult = { weekStart, familySent: 0, familySkipped: 0, squadWeekSent: 0 };
     for (const clubId of clubIds) {
-      this.db.insert(digestRuns).values({ id: randomUUID(), clubId, kind: 'family_digest', periodStart: weekStart }).onConflictDoNothing().run();
+      this.db
+        .insert(digestRuns)
+        .values({ id: randomUUID(), clubId, kind: 'family_digest', periodStart: weekStart })
+        .onConflictDoNothing()
+        .run();
       const family = this.queueFamily(clubId, weekStart);
       total.familySent += family.sent;
       total.familySkipped += family.skipped;
@@ -75,7 +85,9 @@ export class DigestJob {
       const weeks = this.weeklyFigures(player.id, addDays(weekStart, -7 * (CHART_WEEKS - 1)), weekEnd);
       const current = weeks.at(-1)!;
       const previous = weeks.slice(0, -1).filter((w) => w.reps > 0);
-      const prevRate = previous.length ? previous.reduce((a, w) => a + (w.hitRate ?? 0) * w.reps, 0) / previous.reduce((a, w) => a + w.reps, 0) : null;
+      const prevRate = previous.length
+        ? previous.reduce((a, w) => a + (w.hitRate ?? 0) * w.reps, 0) / previous.reduce((a, w) => a + w.reps, 0)
+        : null;
       const trend =
         current.hitRate === null || prevRate === null
           ? 'Not enough repetitions yet to show a trend.'
@@ -109,7 +121,14 @@ export class DigestJob {
         ...mail,
         // RFC 8058 §3.1: an HTTPS URI in List-Unsubscribe plus List-Unsubscribe-Post: List-Unsubscribe=One-Click.
         headers: { 'List-Unsubscribe': `<${oneClick}>`, 'List-Unsubscribe-Post': 'List-Unsubscribe=One-Click' },
-        attachments: [{ filename: 'week.png', cid: chartCid, contentType: 'image/png', contentBase64: barChartPng(weeks.map((w) => w.hitRate)).toString('base64') }],
+        attachments: [
+          {
+            filename: 'week.png',
+            cid: chartCid,
+            contentType: 'image/png',
+            contentBase64: barChartPng(weeks.map((w) => w.hitRate)).toString('base64'),
+          },
+        ],
       });
       if (queued) sent++;
       else skipped++;
@@ -134,23 +153,37 @@ export class DigestJob {
 
   private highlight(playerId: string, from: string, to: string): string | null {
     const longest = this.db.$client
-      .prepare(`SELECT technique, MAX(carry_m) AS carry FROM kicks WHERE player_id = ? AND deleted_at IS NULL AND outcome = 'on_target' AND carry_m IS NOT NULL AND recorded_at >= ? AND recorded_at < ?`)
+      .prepare(
+        `SELECT technique, MAX(carry_m) AS carry FROM kicks WHERE player_id = ? AND deleted_at IS NULL AND outcome = 'on_target' AND carry_m IS NOT NULL AND recorded_at >= ? AND recorded_at < ?`,
+      )
       .get(playerId, from, to) as { technique: string | null; carry: number | null };
     if (longest.carry !== null && longest.technique) return `Longest ${longest.technique} kick on target: ${longest.carry} m`;
     const best = this.db.$client
-      .prepare(`SELECT technique, COUNT(*) AS n, AVG(outcome = 'on_target') AS rate FROM kicks WHERE player_id = ? AND deleted_at IS NULL AND recorded_at >= ? AND recorded_at < ? GROUP BY technique HAVING n >= 5 ORDER BY rate DESC LIMIT 1`)
+      .prepare(
+        `SELECT technique, COUNT(*) AS n, AVG(outcome = 'on_target') AS rate FROM kicks WHERE player_id = ? AND deleted_at IS NULL AND recorded_at >= ? AND recorded_at < ? GROUP BY technique HAVING n >= 5 ORDER BY rate DESC LIMIT 1`,
+      )
       .get(playerId, from, to) as { technique: string; n: number; rate: number } | undefined;
     return best ? `Most accurate with ${best.technique} kicks (${Math.round(best.rate * 100)} % on target)` : null;
   }
 
   private queueSquadWeek(clubId: string, weekStart: string): number {
     const weekEnd = addDays(weekStart, 7);
-    const coaches = this.db.select().from(users).where(and(eq(users.clubId, clubId), eq(users.role, 'head_coach'))).all().filter((u) => !u.disabledAt);
+    const coaches = this.db
+      .select()
+      .from(users)
+      .where(and(eq(users.clubId, clubId), eq(users.role, 'head_coach')))
+      .all()
+      .filter((u) => !u.disabledAt);
     const club = this.db.select().from(clubs).where(eq(clubs.id, clubId)).get();
     const limit = club?.repLimitPerSession ?? 40;
     let sent = 0;
     for (const coach of coaches) {
-      const squadIds = this.db.select({ id: squadStaff.squadId }).from(squadStaff).where(eq(squadStaff.userId, coach.id)).all().map((r) => r.id);
+      const squadIds = this.db
+        .select({ id: squadStaff.squadId })
+        .from(squadStaff)
+        .where(eq(squadStaff.userId, coach.id))
+        .all()
+        .map((r) => r.id);
       if (!squadIds.length) continue;
       const named = this.db.select().from(squads).where(inArray(squads.id, squadIds)).all();
       const lines = named.map((s) => {
@@ -168,8 +201,14 @@ export class DigestJob {
           .get(s.id, weekStart, weekEnd, limit) as { n: number };
         return { squadName: s.name, reps: agg.reps, hitRatePct: agg.rate === null ? null : Math.round(agg.rate * 100), loadFlags: flags.n };
       });
-      const mail = squadWeekMail({ coachName: coach.displayName, weekLabel: weekStart, lines, link: `${this.config.publicUrl}/squad-week?start=${weekStart}` });
-      if (this.mailer.queue({ clubId, kind: 'squad_week', dedupeKey: `squad_week:${coach.id}:${weekStart}`, to: coach.email, ...mail })) sent++;
+      const mail = squadWeekMail({
+        coachName: coach.displayName,
+        weekLabel: weekStart,
+        lines,
+        link: `${this.config.publicUrl}/squad-week?start=${weekStart}`,
+      });
+      if (this.mailer.queue({ clubId, kind: 'squad_week', dedupeKey: `squad_week:${coach.id}:${weekStart}`, to: coach.email, ...mail }))
+        sent++;
     }
     return sent;
   }

@@ -29,7 +29,10 @@ export function erasureRouter(db: Db): Router {
     const admin = scopeOf(req).user;
     const player = db.select().from(players).where(eq(players.id, id)).get();
     if (!player || player.clubId !== admin.clubId) throw new NotFound('No such player in your club');
-    if (confirmName.trim() !== player.displayName) throw new Invalid('Type the player’s full name exactly to confirm', [{ field: 'confirmName', message: 'Does not match the player’s name' }]);
+    if (confirmName.trim() !== player.displayName)
+      throw new Invalid('Type the player’s full name exactly to confirm', [
+        { field: 'confirmName', message: 'Does not match the player’s name' },
+      ]);
     const kicksAffected = db.transaction(() => {
       const n = db.select({ id: kicks.id }).from(kicks).where(eq(kicks.playerId, id)).all().length;
       const now = new Date().toISOString();
@@ -37,17 +40,33 @@ export function erasureRouter(db: Db): Router {
         db.delete(kicks).where(eq(kicks.playerId, id)).run();
       } else {
         // Keep the rows for squad aggregates; drop what could identify the player in them.
-        db.update(kicks).set({ carryM: null, lateralM: null, deviceId: null, recordedBy: null, updatedAt: now, changeSeq: nextChangeSeq(db) }).where(eq(kicks.playerId, id)).run();
+        db.update(kicks)
+          .set({ carryM: null, lateralM: null, deviceId: null, recordedBy: null, updatedAt: now, changeSeq: nextChangeSeq(db) })
+          .where(eq(kicks.playerId, id))
+          .run();
       }
       db.delete(guardianLinks).where(eq(guardianLinks.playerId, id)).run();
       db.delete(playerProfiles).where(eq(playerProfiles.playerId, id)).run();
       if (player.userId) {
         db.delete(refreshTokens).where(eq(refreshTokens.userId, player.userId)).run();
         db.update(players).set({ userId: null }).where(eq(players.id, id)).run();
-        db.update(users).set({ disabledAt: now, email: `erased-${player.userId}@erased.invalid`, displayName: 'Erased account', passwordHash: null }).where(eq(users.id, player.userId)).run();
+        db.update(users)
+          .set({ disabledAt: now, email: `erased-${player.userId}@erased.invalid`, displayName: 'Erased account', passwordHash: null })
+          .where(eq(users.id, player.userId))
+          .run();
       }
-      db.update(players).set({ displayName: 'Erased player', shirtNumber: null, birthDate: null, deletedAt: now, updatedAt: now }).where(eq(players.id, id)).run();
-      audit(db, { clubId: admin.clubId, userId: admin.id, action: `erasure.${mode}`, entity: 'player', entityId: id, detail: { kicks: n } });
+      db.update(players)
+        .set({ displayName: 'Erased player', shirtNumber: null, birthDate: null, deletedAt: now, updatedAt: now })
+        .where(eq(players.id, id))
+        .run();
+      audit(db, {
+        clubId: admin.clubId,
+        userId: admin.id,
+        action: `erasure.${mode}`,
+        entity: 'player',
+        entityId: id,
+        detail: { kicks: n },
+      });
       return n;
     });
     res.json({ erased: true, kicksAffected });

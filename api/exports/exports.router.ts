@@ -21,8 +21,26 @@ const kicksQuery = z
 
 /** Column order of the kicks CSV; the measured-kick import reads it back with a matching mapping. */
 export const KICK_EXPORT_COLUMNS = [
-  'kick_id', 'recorded_at', 'squad', 'session_id', 'player_id', 'player', 'shirt_number', 'technique', 'foot', 'backspin_step', 'sidespin_step',
-  'target_distance_m', 'target_radius_m', 'outcome', 'carry_m', 'still_air_carry_m', 'lateral_m', 'measured_speed_ms', 'launch_angle_deg', 'measured_spin_rps',
+  'kick_id',
+  'recorded_at',
+  'squad',
+  'session_id',
+  'player_id',
+  'player',
+  'shirt_number',
+  'technique',
+  'foot',
+  'backspin_step',
+  'sidespin_step',
+  'target_distance_m',
+  'target_radius_m',
+  'outcome',
+  'carry_m',
+  'still_air_carry_m',
+  'lateral_m',
+  'measured_speed_ms',
+  'launch_angle_deg',
+  'measured_spin_rps',
   'hang_time_s',
 ] as const;
 
@@ -47,7 +65,14 @@ export function exportsRouter(db: Db): Router {
       )
       .raw()
       .all({ squadId: q.squadId ?? null, playerId: q.playerId ?? null, from: q.from ?? null, to: q.to ?? null }) as unknown[][];
-    audit(db, { clubId: scope.user.clubId, userId: scope.user.id, action: 'export.kicks', entity: q.squadId ? 'squad' : 'player', entityId: q.squadId ?? q.playerId ?? null, detail: { from: q.from, to: q.to, rows: rows.length } });
+    audit(db, {
+      clubId: scope.user.clubId,
+      userId: scope.user.id,
+      action: 'export.kicks',
+      entity: q.squadId ? 'squad' : 'player',
+      entityId: q.squadId ?? q.playerId ?? null,
+      detail: { from: q.from, to: q.to, rows: rows.length },
+    });
     res.setHeader('Content-Type', 'text/csv; charset=utf-8; header=present');
     res.setHeader('Content-Disposition', `attachment; filename="loftline-kicks-${q.from ?? 'all'}-${q.to ?? 'now'}.csv"`);
     res.send(toCsv(KICK_EXPORT_COLUMNS, rows));
@@ -60,9 +85,24 @@ export function exportsRouter(db: Db): Router {
     if (!player || player.clubId !== scope.user.clubId) throw new NotFound('No such player in your club');
     if (scope.user.role !== 'admin') throw new Forbidden();
     const squad = db.select().from(squads).where(eq(squads.id, player.squadId)).get();
-    const account = player.userId ? db.select({ id: users.id, email: users.email, displayName: users.displayName, role: users.role, createdAt: users.createdAt }).from(users).where(eq(users.id, player.userId)).get() : null;
+    const account = player.userId
+      ? db
+          .select({ id: users.id, email: users.email, displayName: users.displayName, role: users.role, createdAt: users.createdAt })
+          .from(users)
+          .where(eq(users.id, player.userId))
+          .get()
+      : null;
     const links = db
-      .select({ id: guardianLinks.id, guardianName: users.displayName, guardianEmail: users.email, relationship: guardianLinks.relationship, consentAt: guardianLinks.consentAt, consentTextVersion: guardianLinks.consentTextVersion, consentWithdrawnAt: guardianLinks.consentWithdrawnAt, digestOptIn: guardianLinks.digestOptIn })
+      .select({
+        id: guardianLinks.id,
+        guardianName: users.displayName,
+        guardianEmail: users.email,
+        relationship: guardianLinks.relationship,
+        consentAt: guardianLinks.consentAt,
+        consentTextVersion: guardianLinks.consentTextVersion,
+        consentWithdrawnAt: guardianLinks.consentWithdrawnAt,
+        digestOptIn: guardianLinks.digestOptIn,
+      })
       .from(guardianLinks)
       .innerJoin(users, eq(users.id, guardianLinks.guardianUserId))
       .where(eq(guardianLinks.playerId, id))

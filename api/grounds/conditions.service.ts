@@ -45,7 +45,11 @@ export class GroundConditionsService {
   async forGround(scope: Scope, groundId: string, now: Date = new Date()): Promise<GroundConditions> {
     const ground = groundRow(this.db, scope, groundId);
     if (ground.latitude === null || ground.longitude === null) {
-      return { source: 'unavailable', groundId, reason: 'The ground has no coordinates yet; an admin can add them in Club admin → Grounds' };
+      return {
+        source: 'unavailable',
+        groundId,
+        reason: 'The ground has no coordinates yet; an admin can add them in Club admin → Grounds',
+      };
     }
     if (!this.weather) return { source: 'unavailable', groundId, reason: this.settings.noServiceReason };
     const position = { latitude: ground.latitude, longitude: ground.longitude };
@@ -72,7 +76,8 @@ export class GroundConditionsService {
       const v = row[key as keyof typeof SESSION_LIMITS];
       return v < min || v > max;
     });
-    if (outside) return { source: 'unavailable', groundId, reason: `The weather service's ${outside[0]} is outside what a session records` };
+    if (outside)
+      return { source: 'unavailable', groundId, reason: `The weather service's ${outside[0]} is outside what a session records` };
     const answer: MeasuredConditions = {
       source: 'weather',
       groundId,
@@ -98,7 +103,13 @@ export class GroundConditionsService {
       pending = weather
         .current(query)
         .then((observation) => {
-          const row: CacheRow = { groundId, latitude: query.latitude, longitude: query.longitude, fetchedAt: now.toISOString(), ...observation };
+          const row: CacheRow = {
+            groundId,
+            latitude: query.latitude,
+            longitude: query.longitude,
+            fetchedAt: now.toISOString(),
+            ...observation,
+          };
           this.db.insert(groundConditions).values(row).onConflictDoUpdate({ target: groundConditions.groundId, set: row }).run();
           return row;
         })

@@ -23,7 +23,13 @@ export function groundOf(r: GroundRow): Ground {
 
 /** The club's grounds by name. */
 export function listGrounds(db: Db, scope: Scope): Ground[] {
-  return db.select().from(trainingGrounds).where(eq(trainingGrounds.clubId, scope.user.clubId)).orderBy(trainingGrounds.name).all().map(groundOf);
+  return db
+    .select()
+    .from(trainingGrounds)
+    .where(eq(trainingGrounds.clubId, scope.user.clubId))
+    .orderBy(trainingGrounds.name)
+    .all()
+    .map(groundOf);
 }
 
 /** One ground of the caller's club, or NotFound (another club's ground does not exist for the caller). */
@@ -40,7 +46,9 @@ export function groundRow(db: Db, scope: Scope, id: string): GroundRow {
 /** Adds a ground to the caller's club. */
 export function createGround(db: Db, scope: Scope, input: GroundInput): Ground {
   const id = randomUUID();
-  db.insert(trainingGrounds).values({ id, clubId: scope.user.clubId, ...input }).run();
+  db.insert(trainingGrounds)
+    .values({ id, clubId: scope.user.clubId, ...input })
+    .run();
   return groundOf(groundRow(db, scope, id));
 }
 

@@ -73,11 +73,18 @@ export class GuardiansService {
   create(admin: AuthUser, guardianUserId: string, playerId: string, relationship = 'guardian'): GuardianLinkView {
     const g = this.db.select().from(users).where(eq(users.id, guardianUserId)).get();
     if (!g || g.clubId !== admin.clubId || g.role !== 'guardian') {
-      throw new Invalid('That account is not a guardian of your club', [{ field: 'guardianUserId', message: 'Not a guardian of this club' }]);
+      throw new Invalid('That account is not a guardian of your club', [
+        { field: 'guardianUserId', message: 'Not a guardian of this club' },
+      ]);
     }
     const p = this.db.select().from(players).where(eq(players.id, playerId)).get();
-    if (!p || p.clubId !== admin.clubId || p.deletedAt) throw new Invalid('That player is not in your club', [{ field: 'playerId', message: 'Unknown player' }]);
-    const existing = this.db.select().from(guardianLinks).where(and(eq(guardianLinks.guardianUserId, guardianUserId), eq(guardianLinks.playerId, playerId))).get();
+    if (!p || p.clubId !== admin.clubId || p.deletedAt)
+      throw new Invalid('That player is not in your club', [{ field: 'playerId', message: 'Unknown player' }]);
+    const existing = this.db
+      .select()
+      .from(guardianLinks)
+      .where(and(eq(guardianLinks.guardianUserId, guardianUserId), eq(guardianLinks.playerId, playerId)))
+      .get();
     if (existing) throw new HttpError(409, 'already_linked', 'This guardian is already linked to this player');
     const id = randomUUID();
     this.db.insert(guardianLinks).values({ id, guardianUserId, playerId, relationship }).run();
@@ -103,12 +110,28 @@ export class GuardiansService {
     const now = new Date().toISOString();
     if (consent.consent) {
       if (consent.textVersion !== CONSENT_TEXT.version) {
-        throw new Invalid('The consent text has changed; read the current text and consent again', [{ field: 'textVersion', message: `Current version is ${CONSENT_TEXT.version}` }]);
+        throw new Invalid('The consent text has changed; read the current text and consent again', [
+          { field: 'textVersion', message: `Current version is ${CONSENT_TEXT.version}` },
+        ]);
       }
-      this.db.update(guardianLinks).set({ consentAt: now, consentRecordedBy: user.id, consentTextVersion: consent.textVersion, consentWithdrawnAt: null, updatedAt: now }).where(eq(guardianLinks.id, id)).run();
+      this.db
+        .update(guardianLinks)
+        .set({
+          consentAt: now,
+          consentRecordedBy: user.id,
+          consentTextVersion: consent.textVersion,
+          consentWithdrawnAt: null,
+          updatedAt: now,
+        })
+        .where(eq(guardianLinks.id, id))
+        .run();
       this.record(user, 'consent.given', id, { textVersion: consent.textVersion });
     } else {
-      this.db.update(guardianLinks).set({ consentWithdrawnAt: now, digestOptIn: false, updatedAt: now }).where(eq(guardianLinks.id, id)).run();
+      this.db
+        .update(guardianLinks)
+        .set({ consentWithdrawnAt: now, digestOptIn: false, updatedAt: now })
+        .where(eq(guardianLinks.id, id))
+        .run();
       this.record(user, 'consent.withdrawn', id);
     }
     return this.one(user, id);
@@ -147,7 +170,9 @@ export class GuardiansService {
       firstName: link.playerFirstName,
       squadName: link.squadName,
       weeks,
-      highlight: best ? `Most accurate with ${best.technique} kicks: ${Math.round(best.rate * 100)} % on target over ${best.n} repetitions` : null,
+      highlight: best
+        ? `Most accurate with ${best.technique} kicks: ${Math.round(best.rate * 100)} % on target over ${best.n} repetitions`
+        : null,
     };
   }
 }

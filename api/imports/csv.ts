@@ -74,7 +74,13 @@ export function readCsv(buf: Buffer, requiredColumns: readonly string[]): CsvTab
   const delimiter = detectDelimiter(firstLine);
   let records: string[][];
   try {
-    records = parse(body, { delimiter, skip_empty_lines: true, relax_column_count: true, trim: true, max_record_size: 65_536 }) as string[][];
+    records = parse(body, {
+      delimiter,
+      skip_empty_lines: true,
+      relax_column_count: true,
+      trim: true,
+      max_record_size: 65_536,
+    }) as string[][];
   } catch (err) {
     const message = err instanceof Error ? err.message : String(err);
     refuse('file_malformed', `The CSV cannot be read: ${message}`);
@@ -89,7 +95,11 @@ export function readCsv(buf: Buffer, requiredColumns: readonly string[]): CsvTab
     refuse('file_missing_columns', `The header row lacks the column${missing.length > 1 ? 's' : ''} ${missing.join(', ')}${hint}`);
   }
   if (data.length === 0) refuse('file_empty', 'The file has a header but no data rows');
-  if (data.length > MAX_ROWS) refuse('file_too_many_rows', `The file has ${data.length.toLocaleString('en-GB')} data rows; at most ${MAX_ROWS.toLocaleString('en-GB')} are accepted`);
+  if (data.length > MAX_ROWS)
+    refuse(
+      'file_too_many_rows',
+      `The file has ${data.length.toLocaleString('en-GB')} data rows; at most ${MAX_ROWS.toLocaleString('en-GB')} are accepted`,
+    );
   const rows = data.map((values, i) => {
     const record: Record<string, string> = {};
     header.forEach((h, j) => {

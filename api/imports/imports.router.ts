@@ -19,7 +19,9 @@ const upload = multer({
   limits: { fileSize: MAX_UPLOAD_BYTES, files: 1, fields: 5, fieldSize: 64 * 1024 },
   fileFilter: (_req, file, done) => {
     const byName = /\.(csv|txt)$/i.test(file.originalname);
-    const byType = ['text/csv', 'text/plain', 'application/vnd.ms-excel', 'application/csv', 'application/octet-stream'].includes(file.mimetype);
+    const byType = ['text/csv', 'text/plain', 'application/vnd.ms-excel', 'application/csv', 'application/octet-stream'].includes(
+      file.mimetype,
+    );
     if (byName && byType) done(null, true);
     else done(new HttpError(400, 'file_not_csv', 'Only CSV files (.csv) can be imported', [{ field: 'file', message: 'Not a CSV file' }]));
   },
@@ -30,8 +32,15 @@ function receiveFile(req: Request, res: Response, next: NextFunction): void {
   upload.single('file')(req, res, (err: unknown) => {
     if (!err) return next();
     if (err instanceof multer.MulterError) {
-      const message = err.code === 'LIMIT_FILE_SIZE' ? `The file is larger than ${MAX_UPLOAD_BYTES / 1024 / 1024} MB` : `The upload was refused: ${err.message}`;
-      return next(new HttpError(400, err.code === 'LIMIT_FILE_SIZE' ? 'file_too_large' : 'upload_invalid', message, [{ field: err.field ?? 'file', message }]));
+      const message =
+        err.code === 'LIMIT_FILE_SIZE'
+          ? `The file is larger than ${MAX_UPLOAD_BYTES / 1024 / 1024} MB`
+          : `The upload was refused: ${err.message}`;
+      return next(
+        new HttpError(400, err.code === 'LIMIT_FILE_SIZE' ? 'file_too_large' : 'upload_invalid', message, [
+          { field: err.field ?? 'file', message },
+        ]),
+      );
     }
     next(err);
   });

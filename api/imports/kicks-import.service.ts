@@ -30,7 +30,15 @@ export const kickMappingSchema = z.strictObject({
   targetDistanceM: z.number({ error: 'targetDistanceM must be a number' }).min(1).max(120),
   targetRadiusM: z.number({ error: 'targetRadiusM must be a number' }).min(0.25).max(30),
   device: z.string().trim().max(80).optional(),
-  columns: z.strictObject({ player: z.string({ error: 'columns.player is required' }).trim().min(1, { error: 'columns.player is required' }), time: column, speed: column, launchAngle: column, spin: column, carry: column, lateral: column }),
+  columns: z.strictObject({
+    player: z.string({ error: 'columns.player is required' }).trim().min(1, { error: 'columns.player is required' }),
+    time: column,
+    speed: column,
+    launchAngle: column,
+    spin: column,
+    carry: column,
+    lateral: column,
+  }),
   units: z.strictObject({
     speed: z.enum(['m/s', 'km/h', 'mph'], { error: 'units.speed must be m/s, km/h or mph' }).default('m/s'),
     spin: z.enum(['rev/s', 'rpm'], { error: 'units.spin must be rev/s or rpm' }).default('rev/s'),
@@ -77,22 +85,42 @@ function outcomeOf(carryM: number, lateralM: number, target: number, radius: num
 
 function nearestBackspinStep(rps: number): number {
   let best = 0;
-  for (const [step, rate] of Object.entries(SPIN_STEP_RPS)) if (Math.abs(rate - rps) < Math.abs(SPIN_STEP_RPS[best as BackspinStep] - rps)) best = Number(step);
+  for (const [step, rate] of Object.entries(SPIN_STEP_RPS))
+    if (Math.abs(rate - rps) < Math.abs(SPIN_STEP_RPS[best as BackspinStep] - rps)) best = Number(step);
   return best;
 }
 
 /** Previews or commits a device export for one squad. */
-export function importKicks(db: Db, scope: Scope, file: { name: string; buffer: Buffer }, rawMapping: unknown, dryRun: boolean): ImportResult<KicksSummary> {
+export function importKicks(
+  db: Db,
+  scope: Scope,
+  file: { name: string; buffer: Buffer },
+  rawMapping: unknown,
+  dryRun: boolean,
+): ImportResult<KicksSummary> {
   const mapping = parseOrThrow(kickMappingSchema, rawMapping, 'Mapping');
-  const squad = db.select().from(squads).where(and(eq(squads.id, mapping.squadId), isNull(squads.deletedAt))).get();
-  if (!squad || squad.clubId !== scope.user.clubId || !scope.canWriteSquad(squad.id)) throw new Forbidden('You may not import kicks into this squad');
+  const squad = db
+    .select()
+    .from(squads)
+    .where(and(eq(squads.id, mapping.squadId), isNull(squads.deletedAt)))
+    .get();
+  if (!squad || squad.clubId !== scope.user.clubId || !scope.canWriteSquad(squad.id))
+    throw new Forbidden('You may not import kicks into this squad');
   // Device times without a zone are the club's wall-clock time.
   const clubTimeZone = db.select({ tz: clubs.timezone }).from(clubs).where(eq(clubs.id, squad.clubId)).get()?.tz ?? 'UTC';
   const cols = mapping.columns;
   const used = Object.entries(cols).filter((e): e is [string, string] => typeof e[1] === 'string');
-  const table = readCsv(file.buffer, used.map(([, c]) => c));
-  if (!cols.speed && !cols.carry) throw new Invalid('Map at least a speed or a carry column', [{ field: 'mapping.columns', message: 'speed or carry is required' }]);
-  const roster = db.select().from(players).where(and(eq(players.squadId, squad.id), isNull(players.deletedAt))).all();
+  const table = readCsv(
+    file.buffer,
+    used.map(([, c]) => c),
+  );
+  if (!cols.speed && !cols.carry)
+    throw new Invalid('Map at least a speed or a carry column', [{ field: 'mapping.columns', message: 'speed or carry is required' }]);
+  const roster = db
+    .select()
+    .from(players)
+    .where(and(eq(players.squadId, squad.id), isNull(players.deletedAt)))
+    .all();
   const decimalComma = table.delimiter === ';';
   const num = (raw: string | undefined): number | null | 'bad' => {
     const v = (raw ?? '').trim();
@@ -106,7 +134,9 @@ export function importKicks(db: Db, scope: Scope, file: { name: string; buffer: 
   for (const { row, values } of table.rows) {
     const err = (col: string, message: string) => errors.push({ row, column: col, message });
     const who = values[cols.player.toLowerCase()]?.trim() ?? '';
-    const player = /^\d+$/.test(who) ? roster.find((p) => p.shirtNumber === Number(who)) : roster.find((p) => p.displayName.toLowerCase() === who.toLowerCase());
+    const player = /^\d+$/.test(who)
+      ? roster.find((p) => p.shirtNumber === Number(who))
+      : roster.find((p) => p.displayName.toLowerCase() === who.toLowerCase());
     if (!player) err(cols.player, `No player with shirt number or name "${who}" in ${squad.name}`);
     const read = (key: keyof typeof cols, convert: (n: number) => number, min: number, max: number, label: string): number | null => {
       const name = cols[key];
@@ -139,49 +169,151 @@ export function importKicks(db: Db, scope: Scope, file: { name: string; buffer: 
     let modelled = carryM;
     if (modelled === null && speedMs !== null) {
       // No carry from the device: fly the measured launch in still ISA air with the flight model.
-      const flight = simulateKick({ speed: speedMs, elevationDeg: angleDeg ?? DEFAULT_ELEVATION_DEG[mapping.technique], backspinRps: spinRps ?? 0, ball: ballOf(squad.ballSize) });
+      const flight = simulateKick({
+        speed: speedMs,
+        elevationDeg: angleDeg ?? DEFAULT_ELEVATION_DEG[mapping.technique],
+        backspinRps: spinRps ?? 0,
+        ball: ballOf(squad.ballSize),
+      });
       modelled = flight.carryM;
     }
     if (carryM !== null) carryM = Math.round(carryM * 100) / 100;
     const key = [squad.id, player.id, cols.time ? recordedAt : `${hash}:${row}`, speedMs, angleDeg, spinRps, carryM, lateralM].join('|');
-    rows.push({ id: naturalKeyId(key), playerId: player.id, foot: player.dominantFoot, recordedAt, speedMs, angleDeg, spinRps, carryM, lateralM, outcome: outcomeOf(modelled ?? 0, lateralM ?? 0, mapping.targetDistanceM, mapping.targetRadiusM) });
+    rows.push({
+      id: naturalKeyId(key),
+      playerId: player.id,
+      foot: player.dominantFoot,
+      recordedAt,
+      speedMs,
+      angleDeg,
+      spinRps,
+      carryM,
+      lateralM,
+      outcome: outcomeOf(modelled ?? 0, lateralM ?? 0, mapping.targetDistanceM, mapping.targetRadiusM),
+    });
   }
-  const previous = db.select().from(uploads).where(and(eq(uploads.clubId, scope.user.clubId), eq(uploads.kind, 'measured_kicks'), eq(uploads.contentHash, hash), eq(uploads.status, 'committed'))).get();
+  const previous = db
+    .select()
+    .from(uploads)
+    .where(
+      and(
+        eq(uploads.clubId, scope.user.clubId),
+        eq(uploads.kind, 'measured_kicks'),
+        eq(uploads.contentHash, hash),
+        eq(uploads.status, 'committed'),
+      ),
+    )
+    .get();
   const existing = (id: string) => cachedStatement(db.$client, 'SELECT 1 FROM kicks WHERE id = ?').get(id) !== undefined;
   if (previous) {
-    return { dryRun, uploadId: previous.id, alreadyImported: true, rows: table.rows.length, errors: [], summary: JSON.parse(previous.summaryJson ?? '{}') as KicksSummary };
+    return {
+      dryRun,
+      uploadId: previous.id,
+      alreadyImported: true,
+      rows: table.rows.length,
+      errors: [],
+      summary: JSON.parse(previous.summaryJson ?? '{}') as KicksSummary,
+    };
   }
   if (dryRun) {
     const skipped = rows.filter((r) => existing(r.id)).length;
-    return { dryRun, uploadId: null, alreadyImported: false, rows: table.rows.length, errors, summary: { kicksCreated: rows.length - skipped, kicksSkipped: skipped, sessionId: null } };
+    return {
+      dryRun,
+      uploadId: null,
+      alreadyImported: false,
+      rows: table.rows.length,
+      errors,
+      summary: { kicksCreated: rows.length - skipped, kicksSkipped: skipped, sessionId: null },
+    };
   }
-  if (errors.length) throw new ImportInvalid(`The file has ${errors.length} problem${errors.length > 1 ? 's' : ''}; nothing was imported`, errors);
+  if (errors.length)
+    throw new ImportInvalid(`The file has ${errors.length} problem${errors.length > 1 ? 's' : ''}; nothing was imported`, errors);
   const uploadId = randomUUID();
   // IMMEDIATE: wait for the write lock up front rather than fail mid-way when another connection commits first.
-  const summary = db.transaction((): KicksSummary => {
-    const fresh = rows.filter((r) => !existing(r.id));
-    let sessionId: string | null = null;
-    if (fresh.length) {
-      sessionId = naturalKeyId(`session|${hash}`);
-      const startedAt = fresh.map((r) => r.recordedAt).sort()[0]!;
-      const user = scope.user.id;
-      db.insert(trainingSessions).values({ id: sessionId, clubId: squad.clubId, squadId: squad.id, startedAt, ballSize: squad.ballSize, notes: `Imported from ${mapping.device ?? 'a measuring device'} (${file.name})`, recordedBy: user, deviceId: 'import', changeSeq: nextChangeSeq(db) }).run();
-      const drillId = naturalKeyId(`drill|${hash}`);
-      db.insert(drills).values({ id: drillId, clubId: squad.clubId, sessionId, technique: mapping.technique, targetDistanceM: mapping.targetDistanceM, targetRadiusM: mapping.targetRadiusM, label: `Measured ${mapping.technique}`, changeSeq: nextChangeSeq(db) }).run();
-      const insert = cachedStatement(
-        db.$client,
-        `INSERT OR IGNORE INTO kicks (id, club_id, session_id, drill_id, player_id, technique, foot, backspin_step, sidespin_step, target_distance_m, target_radius_m,
+  const summary = db.transaction(
+    (): KicksSummary => {
+      const fresh = rows.filter((r) => !existing(r.id));
+      let sessionId: string | null = null;
+      if (fresh.length) {
+        sessionId = naturalKeyId(`session|${hash}`);
+        const startedAt = fresh.map((r) => r.recordedAt).sort()[0]!;
+        const user = scope.user.id;
+        db.insert(trainingSessions)
+          .values({
+            id: sessionId,
+            clubId: squad.clubId,
+            squadId: squad.id,
+            startedAt,
+            ballSize: squad.ballSize,
+            notes: `Imported from ${mapping.device ?? 'a measuring device'} (${file.name})`,
+            recordedBy: user,
+            deviceId: 'import',
+            changeSeq: nextChangeSeq(db),
+          })
+          .run();
+        const drillId = naturalKeyId(`drill|${hash}`);
+        db.insert(drills)
+          .values({
+            id: drillId,
+            clubId: squad.clubId,
+            sessionId,
+            technique: mapping.technique,
+            targetDistanceM: mapping.targetDistanceM,
+            targetRadiusM: mapping.targetRadiusM,
+            label: `Measured ${mapping.technique}`,
+            changeSeq: nextChangeSeq(db),
+          })
+          .run();
+        const insert = cachedStatement(
+          db.$client,
+          `INSERT OR IGNORE INTO kicks (id, club_id, session_id, drill_id, player_id, technique, foot, backspin_step, sidespin_step, target_distance_m, target_radius_m,
            outcome, carry_m, lateral_m, measured_speed_ms, launch_angle_deg, measured_spin_rps, recorded_at, recorded_by, device_id, change_seq)
          VALUES (?, ?, ?, ?, ?, ?, ?, ?, 0, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, 'import', ?)`,
-      );
-      for (const r of fresh) {
-        insert.run(r.id, squad.clubId, sessionId, drillId, r.playerId, mapping.technique, r.foot, r.spinRps === null ? 0 : nearestBackspinStep(r.spinRps), mapping.targetDistanceM, mapping.targetRadiusM, r.outcome, r.carryM, r.lateralM, r.speedMs, r.angleDeg, r.spinRps, r.recordedAt, user, nextChangeSeq(db));
+        );
+        for (const r of fresh) {
+          insert.run(
+            r.id,
+            squad.clubId,
+            sessionId,
+            drillId,
+            r.playerId,
+            mapping.technique,
+            r.foot,
+            r.spinRps === null ? 0 : nearestBackspinStep(r.spinRps),
+            mapping.targetDistanceM,
+            mapping.targetRadiusM,
+            r.outcome,
+            r.carryM,
+            r.lateralM,
+            r.speedMs,
+            r.angleDeg,
+            r.spinRps,
+            r.recordedAt,
+            user,
+            nextChangeSeq(db),
+          );
+        }
       }
-    }
-    const s: KicksSummary = { kicksCreated: fresh.length, kicksSkipped: rows.length - fresh.length, sessionId };
-    db.insert(uploads).values({ id: uploadId, clubId: squad.clubId, uploadedBy: scope.user.id, kind: 'measured_kicks', filename: file.name, sizeBytes: file.buffer.length, contentHash: hash, content: file.buffer.toString('utf8'), status: 'committed', committedAt: new Date().toISOString(), summaryJson: JSON.stringify(s) }).run();
-    audit(db, { clubId: squad.clubId, userId: scope.user.id, action: 'import.kicks', entity: 'upload', entityId: uploadId, detail: s });
-    return s;
-  }, { behavior: 'immediate' });
+      const s: KicksSummary = { kicksCreated: fresh.length, kicksSkipped: rows.length - fresh.length, sessionId };
+      db.insert(uploads)
+        .values({
+          id: uploadId,
+          clubId: squad.clubId,
+          uploadedBy: scope.user.id,
+          kind: 'measured_kicks',
+          filename: file.name,
+          sizeBytes: file.buffer.length,
+          contentHash: hash,
+          content: file.buffer.toString('utf8'),
+          status: 'committed',
+          committedAt: new Date().toISOString(),
+          summaryJson: JSON.stringify(s),
+        })
+        .run();
+      audit(db, { clubId: squad.clubId, userId: scope.user.id, action: 'import.kicks', entity: 'upload', entityId: uploadId, detail: s });
+      return s;
+    },
+    { behavior: 'immediate' },
+  );
   return { dryRun, uploadId, alreadyImported: false, rows: table.rows.length, errors: [], summary };
 }

@@ -58,16 +58,19 @@ function validate(table: ReturnType<typeof readCsv>, now: Date): { rows: RosterR
     else if (name.length > 120) err('name', 'Name is longer than 120 characters');
     const shirtRaw = values['shirt_number']?.trim() ?? '';
     const shirtNumber = shirtRaw === '' ? null : Number(shirtRaw);
-    if (shirtNumber !== null && (!Number.isInteger(shirtNumber) || shirtNumber < 1 || shirtNumber > 99)) err('shirt_number', 'Shirt number must be a whole number from 1 to 99');
+    if (shirtNumber !== null && (!Number.isInteger(shirtNumber) || shirtNumber < 1 || shirtNumber > 99))
+      err('shirt_number', 'Shirt number must be a whole number from 1 to 99');
     let birthDate: string | null = null;
     const year = values['birth_year']?.trim() ?? '';
     const date = values['birth_date']?.trim() ?? '';
     if (date) {
-      if (!/^\d{4}-\d{2}-\d{2}$/.test(date) || Number.isNaN(Date.parse(date + 'T00:00:00Z'))) err('birth_date', 'Birth date must be YYYY-MM-DD');
+      if (!/^\d{4}-\d{2}-\d{2}$/.test(date) || Number.isNaN(Date.parse(date + 'T00:00:00Z')))
+        err('birth_date', 'Birth date must be YYYY-MM-DD');
       else birthDate = date;
     } else if (year) {
       const y = Number(year);
-      if (!Number.isInteger(y) || y < 1900 || y > now.getUTCFullYear()) err('birth_year', `Birth year must be a year from 1900 to ${now.getUTCFullYear()}`);
+      if (!Number.isInteger(y) || y < 1900 || y > now.getUTCFullYear())
+        err('birth_year', `Birth year must be a year from 1900 to ${now.getUTCFullYear()}`);
       else birthDate = `${y}-01-01`;
     }
     const footRaw = (values['foot']?.trim() ?? '').toLowerCase();
@@ -93,33 +96,76 @@ function validate(table: ReturnType<typeof readCsv>, now: Date): { rows: RosterR
 }
 
 /** Previews or commits a roster file for the admin's club. */
-export function importRoster(db: Db, admin: AuthUser, file: { name: string; buffer: Buffer }, dryRun: boolean, now = new Date()): ImportResult<RosterSummary> {
+export function importRoster(
+  db: Db,
+  admin: AuthUser,
+  file: { name: string; buffer: Buffer },
+  dryRun: boolean,
+  now = new Date(),
+): ImportResult<RosterSummary> {
   const table = readCsv(file.buffer, ['squad', 'name']);
   const { rows, errors } = validate(table, now);
   const hash = createHash('sha256').update(file.buffer).digest('hex');
   const empty: RosterSummary = { squadsCreated: 0, playersCreated: 0, playersUpdated: 0, guardiansCreated: 0, linksCreated: 0 };
-  const previous = db.select().from(uploads).where(and(eq(uploads.clubId, admin.clubId), eq(uploads.kind, 'roster'), eq(uploads.contentHash, hash), eq(uploads.status, 'committed'))).get();
+  const previous = db
+    .select()
+    .from(uploads)
+    .where(
+      and(eq(uploads.clubId, admin.clubId), eq(uploads.kind, 'roster'), eq(uploads.contentHash, hash), eq(uploads.status, 'committed')),
+    )
+    .get();
   if (previous) {
-    return { dryRun, uploadId: previous.id, alreadyImported: true, rows: rows.length, errors: [], summary: previous.summaryJson ? (JSON.parse(previous.summaryJson) as RosterSummary) : empty };
+    return {
+      dryRun,
+      uploadId: previous.id,
+      alreadyImported: true,
+      rows: rows.length,
+      errors: [],
+      summary: previous.summaryJson ? (JSON.parse(previous.summaryJson) as RosterSummary) : empty,
+    };
   }
   if (dryRun) return { dryRun, uploadId: null, alreadyImported: false, rows: rows.length, errors, summary: plan(db, admin.clubId, rows) };
   if (errors.length) {
     throw new ImportInvalid(`The file has ${errors.length} problem${errors.length > 1 ? 's' : ''}; nothing was imported`, errors);
   }
   const uploadId = randomUUID();
-  const summary = db.transaction(() => {
-    const s = apply(db, admin.clubId, rows);
-    db.insert(uploads).values({ id: uploadId, clubId: admin.clubId, uploadedBy: admin.id, kind: 'roster', filename: file.name, sizeBytes: file.buffer.length, contentHash: hash, content: file.buffer.toString('utf8'), status: 'committed', committedAt: new Date().toISOString(), summaryJson: JSON.stringify(s) }).run();
-    audit(db, { clubId: admin.clubId, userId: admin.id, action: 'import.roster', entity: 'upload', entityId: uploadId, detail: s });
-    return s;
-  }, { behavior: 'immediate' });
+  const summary = db.transaction(
+    () => {
+      const s = apply(db, admin.clubId, rows);
+      db.insert(uploads)
+        .values({
+          id: uploadId,
+          clubId: admin.clubId,
+          uploadedBy: admin.id,
+          kind: 'roster',
+          filename: file.name,
+          sizeBytes: file.buffer.length,
+          contentHash: hash,
+          content: file.buffer.toString('utf8'),
+          status: 'committed',
+          committedAt: new Date().toISOString(),
+          summaryJson: JSON.stringify(s),
+        })
+        .run();
+      audit(db, { clubId: admin.clubId, userId: admin.id, action: 'import.roster', entity: 'upload', entityId: uploadId, detail: s });
+      return s;
+    },
+    { behavior: 'immediate' },
+  );
   return { dryRun, uploadId, alreadyImported: false, rows: rows.length, errors: [], summary };
 }
 
 /** Counts what a commit would do, without writing. */
 function plan(db: Db, clubId: string, rows: RosterRow[]): RosterSummary {
   const s: RosterSummary = { squadsCreated: 0, playersCreated: 0, playersUpdated: 0, guardiansCreated: 0, linksCreated: 0 };
-  const clubSquads = new Map(db.select().from(squads).where(eq(squads.clubId, clubId)).all().map((q) => [q.name.toLowerCase(), q.id]));
+  const clubSquads = new Map(
+    db
+      .select()
+      .from(squads)
+      .where(eq(squads.clubId, clubId))
+      .all()
+      .map((q) => [q.name.toLowerCase(), q.id]),
+  );
   const newSquads = new Set<string>();
   const newGuardians = new Set<string>();
   for (const r of rows) {
@@ -128,7 +174,13 @@ function plan(db: Db, clubId: string, rows: RosterRow[]): RosterSummary {
       newSquads.add(r.squad.toLowerCase());
       s.squadsCreated++;
     }
-    const existing = squadId ? db.select({ id: players.id }).from(players).where(and(eq(players.squadId, squadId), eq(players.displayName, r.name))).get() : undefined;
+    const existing = squadId
+      ? db
+          .select({ id: players.id })
+          .from(players)
+          .where(and(eq(players.squadId, squadId), eq(players.displayName, r.name)))
+          .get()
+      : undefined;
     if (existing) s.playersUpdated++;
     else s.playersCreated++;
     for (const e of r.guardianEmails) {
@@ -137,7 +189,14 @@ function plan(db: Db, clubId: string, rows: RosterRow[]): RosterSummary {
         newGuardians.add(e);
         s.guardiansCreated++;
       }
-      const linked = user && existing ? db.select().from(guardianLinks).where(and(eq(guardianLinks.guardianUserId, user.id), eq(guardianLinks.playerId, existing.id))).get() : undefined;
+      const linked =
+        user && existing
+          ? db
+              .select()
+              .from(guardianLinks)
+              .where(and(eq(guardianLinks.guardianUserId, user.id), eq(guardianLinks.playerId, existing.id)))
+              .get()
+          : undefined;
       if (!linked) s.linksCreated++;
     }
   }
@@ -148,20 +207,41 @@ function apply(db: Db, clubId: string, rows: RosterRow[]): RosterSummary {
   const s: RosterSummary = { squadsCreated: 0, playersCreated: 0, playersUpdated: 0, guardiansCreated: 0, linksCreated: 0 };
   const now = new Date().toISOString();
   for (const r of rows) {
-    let squad = db.select().from(squads).where(and(eq(squads.clubId, clubId), eq(squads.name, r.squad))).get();
+    let squad = db
+      .select()
+      .from(squads)
+      .where(and(eq(squads.clubId, clubId), eq(squads.name, r.squad)))
+      .get();
     if (!squad) {
       const id = randomUUID();
       db.insert(squads).values({ id, clubId, name: r.squad, ageGroup: r.ageGroup, ballSize: r.ballSize }).run();
       squad = db.select().from(squads).where(eq(squads.id, id)).get()!;
       s.squadsCreated++;
     }
-    let player = db.select().from(players).where(and(eq(players.squadId, squad.id), eq(players.displayName, r.name))).get();
+    let player = db
+      .select()
+      .from(players)
+      .where(and(eq(players.squadId, squad.id), eq(players.displayName, r.name)))
+      .get();
     if (player) {
-      db.update(players).set({ shirtNumber: r.shirtNumber, birthDate: r.birthDate, dominantFoot: r.foot, deletedAt: null, updatedAt: now }).where(eq(players.id, player.id)).run();
+      db.update(players)
+        .set({ shirtNumber: r.shirtNumber, birthDate: r.birthDate, dominantFoot: r.foot, deletedAt: null, updatedAt: now })
+        .where(eq(players.id, player.id))
+        .run();
       s.playersUpdated++;
     } else {
       const id = randomUUID();
-      db.insert(players).values({ id, clubId, squadId: squad.id, displayName: r.name, shirtNumber: r.shirtNumber, birthDate: r.birthDate, dominantFoot: r.foot }).run();
+      db.insert(players)
+        .values({
+          id,
+          clubId,
+          squadId: squad.id,
+          displayName: r.name,
+          shirtNumber: r.shirtNumber,
+          birthDate: r.birthDate,
+          dominantFoot: r.foot,
+        })
+        .run();
       player = db.select().from(players).where(eq(players.id, id)).get()!;
       s.playersCreated++;
     }
@@ -174,11 +254,17 @@ function apply(db: Db, clubId: string, rows: RosterRow[]): RosterSummary {
       }
       if (!user) {
         const id = randomUUID();
-        db.insert(users).values({ id, clubId, email: e, displayName: e.split('@')[0]!, role: 'guardian', passwordHash: null }).run();
+        db.insert(users)
+          .values({ id, clubId, email: e, displayName: e.split('@')[0]!, role: 'guardian', passwordHash: null })
+          .run();
         user = db.select().from(users).where(eq(users.id, id)).get()!;
         s.guardiansCreated++;
       }
-      const linked = db.select().from(guardianLinks).where(and(eq(guardianLinks.guardianUserId, user.id), eq(guardianLinks.playerId, player.id))).get();
+      const linked = db
+        .select()
+        .from(guardianLinks)
+        .where(and(eq(guardianLinks.guardianUserId, user.id), eq(guardianLinks.playerId, player.id)))
+        .get();
       if (!linked) {
         db.insert(guardianLinks).values({ id: randomUUID(), guardianUserId: user.id, playerId: player.id }).run();
         s.linksCreated++;

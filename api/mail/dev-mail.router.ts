@@ -14,7 +14,13 @@ export function devMailRouter(db: Db): Router {
   router.use(requireRole('admin'));
   router.get('/', (_req, res) => {
     const rows = db.select().from(capturedMail).orderBy(desc(capturedMail.receivedAt)).limit(500).all();
-    const messages: CapturedMailSummary[] = rows.map((r) => ({ id: r.id, from: r.fromAddress, to: JSON.parse(r.toJson) as string[], subject: r.subject, receivedAt: r.receivedAt }));
+    const messages: CapturedMailSummary[] = rows.map((r) => ({
+      id: r.id,
+      from: r.fromAddress,
+      to: JSON.parse(r.toJson) as string[],
+      subject: r.subject,
+      receivedAt: r.receivedAt,
+    }));
     res.json({ messages });
   });
   router.get('/:id', (req, res) => {

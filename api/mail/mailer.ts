@@ -114,9 +114,18 @@ export class Mailer {
           text: row.textBody,
           html: row.htmlBody ?? undefined,
           headers: row.headersJson ? (JSON.parse(row.headersJson) as Record<string, string>) : undefined,
-          attachments: attachments.map((a) => ({ filename: a.filename, cid: a.cid, contentType: a.contentType, content: Buffer.from(a.contentBase64, 'base64') })),
+          attachments: attachments.map((a) => ({
+            filename: a.filename,
+            cid: a.cid,
+            contentType: a.contentType,
+            content: Buffer.from(a.contentBase64, 'base64'),
+          })),
         });
-        this.db.update(mailOutbox).set({ status: 'sent', sentAt: new Date().toISOString(), attempts: row.attempts + 1, lastError: null }).where(eq(mailOutbox.id, row.id)).run();
+        this.db
+          .update(mailOutbox)
+          .set({ status: 'sent', sentAt: new Date().toISOString(), attempts: row.attempts + 1, lastError: null })
+          .where(eq(mailOutbox.id, row.id))
+          .run();
         sent++;
       } catch (err) {
         const attempts = row.attempts + 1;
@@ -124,7 +133,12 @@ export class Mailer {
         const next = new Date(Date.now() + 60_000 * 2 ** (attempts - 1)).toISOString();
         this.db
           .update(mailOutbox)
-          .set({ attempts, lastError: err instanceof Error ? err.message : String(err), status: attempts >= MAX_MAIL_ATTEMPTS ? 'failed' : 'queued', nextAttemptAt: next })
+          .set({
+            attempts,
+            lastError: err instanceof Error ? err.message : String(err),
+            status: attempts >= MAX_MAIL_ATTEMPTS ? 'failed' : 'queued',
+            nextAttemptAt: next,
+          })
           .where(eq(mailOutbox.id, row.id))
           .run();
       }

@@ -88,7 +88,9 @@ ${v.highlight ? `\nHighlight: ${v.highlight}\n` : ''}
 Questions about training load are for the club's coaching and medical staff.
 
 You receive this because you gave consent and opted in. Stop these e-mails: ${v.unsubscribeLink}`;
-  const chart = v.chartCid ? `<p><img src="cid:${v.chartCid}" width="320" height="120" alt="Repetitions on target per week, last weeks"></p>` : '';
+  const chart = v.chartCid
+    ? `<p><img src="cid:${v.chartCid}" width="320" height="120" alt="Repetitions on target per week, last weeks"></p>`
+    : '';
   const html = layout(
     subject,
     `<p>Hello ${escapeHtml(v.guardianName)},</p><p><strong>${escapeHtml(v.firstName)}</strong>'s week of ${escapeHtml(v.weekLabel)}: ${v.reps} logged repetitions, ${escapeHtml(rate)}. ${escapeHtml(v.trend)}</p>
@@ -99,9 +101,17 @@ ${chart}${v.highlight ? `<p>Highlight: ${escapeHtml(v.highlight)}</p>` : ''}<p s
 }
 
 /** The weekly Squad week summary for a head coach. */
-export function squadWeekMail(v: { coachName: string; weekLabel: string; lines: { squadName: string; reps: number; hitRatePct: number | null; loadFlags: number }[]; link: string }): RenderedMail {
+export function squadWeekMail(v: {
+  coachName: string;
+  weekLabel: string;
+  lines: { squadName: string; reps: number; hitRatePct: number | null; loadFlags: number }[];
+  link: string;
+}): RenderedMail {
   const subject = `Squad week ${v.weekLabel}`;
-  const rows = v.lines.map((l) => `${l.squadName}: ${l.reps} repetitions, ${l.hitRatePct === null ? '—' : `${l.hitRatePct} %`} on target${l.loadFlags ? `, ${l.loadFlags} kicking-load caution(s)` : ''}`);
+  const rows = v.lines.map(
+    (l) =>
+      `${l.squadName}: ${l.reps} repetitions, ${l.hitRatePct === null ? '—' : `${l.hitRatePct} %`} on target${l.loadFlags ? `, ${l.loadFlags} kicking-load caution(s)` : ''}`,
+  );
   const text = `Hello ${v.coachName},
 
 Your squads in the week of ${v.weekLabel}:

@@ -32,10 +32,20 @@ export function meRouter(db: Db): Router {
   });
   router.put('/digest-opt-in', requireRole('player'), (req, res) => {
     const scope = scopeOf(req);
-    const { optIn } = parseOrThrow(z.strictObject({ optIn: z.boolean({ error: 'optIn must be true or false' }) }), req.body, 'Digest opt-in');
+    const { optIn } = parseOrThrow(
+      z.strictObject({ optIn: z.boolean({ error: 'optIn must be true or false' }) }),
+      req.body,
+      'Digest opt-in',
+    );
     const own = ownPlayer(db, scope.ownPlayerIds);
     db.update(players).set({ digestSelfOptIn: optIn, updatedAt: new Date().toISOString() }).where(eq(players.id, own.id)).run();
-    audit(db, { clubId: scope.user.clubId, userId: scope.user.id, action: optIn ? 'digest.self_opted_in' : 'digest.self_opted_out', entity: 'player', entityId: own.id });
+    audit(db, {
+      clubId: scope.user.clubId,
+      userId: scope.user.id,
+      action: optIn ? 'digest.self_opted_in' : 'digest.self_opted_out',
+      entity: 'player',
+      entityId: own.id,
+    });
     res.json({ optIn });
   });
   return router;

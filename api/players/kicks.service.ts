@@ -4,7 +4,12 @@ import type { Technique } from '../../shared/schemas/sync';
 import type { Db } from '../db/client';
 
 /** The player's kicks (visibility checked by the caller), with the total for the paginator. */
-export function playerKicks(db: Db, playerId: string, technique: Technique | undefined, limit: number): { total: number; kicks: PlayerKick[] } {
+export function playerKicks(
+  db: Db,
+  playerId: string,
+  technique: Technique | undefined,
+  limit: number,
+): { total: number; kicks: PlayerKick[] } {
   const where = `k.player_id = @playerId AND k.deleted_at IS NULL${technique ? ' AND k.technique = @technique' : ''}`;
   const params = { playerId, technique: technique ?? null, limit };
   const total = (db.$client.prepare(`SELECT COUNT(*) AS n FROM kicks k WHERE ${where}`).get(params) as { n: number }).n;

@@ -27,7 +27,12 @@ export const carryQuerySchema = z.object({ carry: carrySchema });
 /** Query of `GET /api/players/:id/kicks`. */
 export const kicksQuerySchema = z.object({
   technique: techniqueSchema.optional(),
-  limit: z.coerce.number({ error: 'limit must be a number' }).int().min(1, { error: 'limit must be at least 1' }).max(1000, { error: 'limit must be at most 1000' }).default(200),
+  limit: z.coerce
+    .number({ error: 'limit must be a number' })
+    .int()
+    .min(1, { error: 'limit must be at least 1' })
+    .max(1000, { error: 'limit must be at most 1000' })
+    .default(200),
 });
 
 /** Query of `GET /api/players/:id/profile` and `GET /api/squads/:id/profiles`. */

@@ -7,10 +7,13 @@ import { players, squads } from '../db/schema';
 import { NotFound } from '../errors';
 import type { Scope } from '../scope/scope';
 
-
 /** Lists the players a caller may see, optionally one squad's, ordered by squad then shirt number. */
 export function listPlayers(db: Db, scope: Scope, squadId?: string, now = new Date(), playerId?: string): PlayerSummary[] {
-  const condition = and(scope.playerCondition(), squadId ? eq(players.squadId, squadId) : undefined, playerId ? eq(players.id, playerId) : undefined);
+  const condition = and(
+    scope.playerCondition(),
+    squadId ? eq(players.squadId, squadId) : undefined,
+    playerId ? eq(players.id, playerId) : undefined,
+  );
   return db
     .select({
       id: players.id,

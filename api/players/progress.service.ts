@@ -80,7 +80,8 @@ export function playerProgress(db: Db, playerId: string, filter: ProgressFilter)
   return aggregates.map((r) => {
     const share = Object.fromEntries(OUTCOMES.map((o) => [o, r.reps ? (r[`n_${o}`] ?? 0) / r.reps : 0])) as Record<Outcome, number>;
     const quant = q.get(`${r.week}|${r.technique}`);
-    const variance = r.carry_n && r.carry_mean !== null && r.carry_sq !== null ? Math.max(0, r.carry_sq - r.carry_mean * r.carry_mean) : null;
+    const variance =
+      r.carry_n && r.carry_mean !== null && r.carry_sq !== null ? Math.max(0, r.carry_sq - r.carry_mean * r.carry_mean) : null;
     return {
       weekStart: r.week,
       technique: r.technique,

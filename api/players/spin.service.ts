@@ -100,9 +100,9 @@ function emptySkips(): Record<SpinEstimateSkip, number> {
 
 /** Spin estimates per technique for one player (visibility already checked by the caller through `getPlayer`). */
 export function playerSpinEstimates(db: Db, scope: Scope, playerId: string): SpinEstimatesResponse {
-  const club = cachedStatement(db.$client, 'SELECT timing_bias_s AS biasS, timing_sd_s AS sdS FROM clubs WHERE id = ?').get(scope.user.clubId) as
-    | { biasS: number; sdS: number }
-    | undefined;
+  const club = cachedStatement(db.$client, 'SELECT timing_bias_s AS biasS, timing_sd_s AS sdS FROM clubs WHERE id = ?').get(
+    scope.user.clubId,
+  ) as { biasS: number; sdS: number } | undefined;
   if (!club) throw new NotFound('Your club no longer exists');
   const timing = { biasS: club.biasS, sdS: club.sdS };
   const rows = cachedStatement(db.$client, SELECT_TIMED).all(playerId, scope.user.clubId, SPIN_ESTIMATE_LIMIT) as TimedRow[];

@@ -30,7 +30,12 @@ export class Scope {
     const live = isNull(squads.deletedAt);
     switch (user.role) {
       case 'admin': {
-        const ids = db.select({ id: squads.id }).from(squads).where(and(eq(squads.clubId, user.clubId), live)).all().map((r) => r.id);
+        const ids = db
+          .select({ id: squads.id })
+          .from(squads)
+          .where(and(eq(squads.clubId, user.clubId), live))
+          .all()
+          .map((r) => r.id);
         return new Scope(user, ids, ids, null);
       }
       case 'head_coach':
@@ -50,7 +55,12 @@ export class Scope {
           .from(players)
           .where(and(eq(players.userId, user.id), eq(players.clubId, user.clubId), isNull(players.deletedAt)))
           .all();
-        return new Scope(user, [], [], own.map((p) => p.id));
+        return new Scope(
+          user,
+          [],
+          [],
+          own.map((p) => p.id),
+        );
       }
       case 'guardian': {
         const own = db
@@ -59,7 +69,12 @@ export class Scope {
           .innerJoin(players, eq(players.id, guardianLinks.playerId))
           .where(and(eq(guardianLinks.guardianUserId, user.id), eq(players.clubId, user.clubId), isNull(players.deletedAt)))
           .all();
-        return new Scope(user, [], [], own.map((p) => p.id));
+        return new Scope(
+          user,
+          [],
+          [],
+          own.map((p) => p.id),
+        );
       }
     }
   }

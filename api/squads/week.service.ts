@@ -33,9 +33,20 @@ interface TechRow {
 }
 
 /** The week of one squad the caller may read (404 otherwise). */
-export function squadWeek(db: Db, profiles: ProfileCache, scope: Scope, squadId: string, start: string, carryBasis: CarryBasis = 'logged'): SquadWeek {
+export function squadWeek(
+  db: Db,
+  profiles: ProfileCache,
+  scope: Scope,
+  squadId: string,
+  start: string,
+  carryBasis: CarryBasis = 'logged',
+): SquadWeek {
   if (!scope.canReadSquad(squadId)) throw new NotFound('No such squad among yours');
-  const squad = db.select().from(squads).where(and(eq(squads.id, squadId), eq(squads.clubId, scope.user.clubId), isNull(squads.deletedAt))).get();
+  const squad = db
+    .select()
+    .from(squads)
+    .where(and(eq(squads.id, squadId), eq(squads.clubId, scope.user.clubId), isNull(squads.deletedAt)))
+    .get();
   if (!squad) throw new NotFound('No such squad among yours');
   const limit = db.select({ l: clubs.repLimitPerSession }).from(clubs).where(eq(clubs.id, squad.clubId)).get()?.l ?? 40;
   const weekStart = isoWeekStart(start);
@@ -45,12 +56,12 @@ export function squadWeek(db: Db, profiles: ProfileCache, scope: Scope, squadId:
   const sqlite = db.$client;
   const roster = cachedStatement(
     sqlite,
-    `SELECT id, display_name AS displayName, shirt_number AS shirtNumber FROM players WHERE squad_id = @squadId AND deleted_at IS NULL ORDER BY shirt_number, display_name`)
-    .all(params) as { id: string; displayName: string; shirtNumber: number | null }[];
+    `SELECT id, display_name AS displayName, shirt_number AS shirtNumber FROM players WHERE squad_id = @squadId AND deleted_at IS NULL ORDER BY shirt_number, display_name`,
+  ).all(params) as { id: string; displayName: string; shirtNumber: number | null }[];
   const techRows = cachedStatement(
     sqlite,
-    
-      `SELECT k.player_id, k.technique,
+
+    `SELECT k.player_id, k.technique,
               SUM(k.recorded_at >= @weekStart) AS this_reps,
               SUM(k.recorded_at >= @weekStart AND k.outcome = 'on_target') AS this_hits,
               SUM(k.recorded_at < @weekStart) AS prev_reps,
@@ -59,17 +70,15 @@ export function squadWeek(db: Db, profiles: ProfileCache, scope: Scope, squadId:
         WHERE s.squad_id = @squadId AND s.deleted_at IS NULL AND s.started_at >= @prevStart AND s.started_at < @weekEnd
           AND k.deleted_at IS NULL AND k.recorded_at >= @prevStart AND k.recorded_at < @weekEnd
         GROUP BY k.player_id, k.technique`,
-    )
-    .all(params) as TechRow[];
+  ).all(params) as TechRow[];
   const loadRows = cachedStatement(
     sqlite,
-    
-      `SELECT k.player_id, s.id AS session_id, s.started_at, COUNT(*) AS reps
+
+    `SELECT k.player_id, s.id AS session_id, s.started_at, COUNT(*) AS reps
          FROM training_sessions s JOIN kicks k ON k.session_id = s.id
         WHERE s.squad_id = @squadId AND s.deleted_at IS NULL AND s.started_at >= @weekStart AND s.started_at < @weekEnd AND k.deleted_at IS NULL
         GROUP BY k.player_id, s.id HAVING COUNT(*) > @limit ORDER BY s.started_at`,
-    )
-    .all(params) as { player_id: string; session_id: string; started_at: string; reps: number }[];
+  ).all(params) as { player_id: string; session_id: string; started_at: string; reps: number }[];
 
   const carry = carryBasis === 'still-air' ? 'k.still_air_carry_m' : 'k.carry_m';
   const thisWeek = `FROM training_sessions s JOIN kicks k ON k.session_id = s.id
@@ -77,29 +86,26 @@ export function squadWeek(db: Db, profiles: ProfileCache, scope: Scope, squadId:
           AND k.deleted_at IS NULL AND k.recorded_at >= @weekStart AND k.recorded_at < @weekEnd`;
   const medians = cachedStatement(
     sqlite,
-    
-      `WITH ranked AS (SELECT k.player_id, k.technique, ${carry} AS carry,
+
+    `WITH ranked AS (SELECT k.player_id, k.technique, ${carry} AS carry,
               ROW_NUMBER() OVER (PARTITION BY k.player_id, k.technique ORDER BY ${carry}) AS i,
               COUNT(*) OVER (PARTITION BY k.player_id, k.technique) AS n
          ${thisWeek} AND ${carry} IS NOT NULL)
        SELECT player_id, technique, AVG(carry) AS median FROM ranked
         WHERE i = (n + 1) / 2 OR (n % 2 = 0 AND i = n / 2 + 1) GROUP BY player_id, technique`,
-    )
-    .all(params) as { player_id: string; technique: Technique; median: number }[];
+  ).all(params) as { player_id: string; technique: Technique; median: number }[];
   const targets = cachedStatement(
     sqlite,
-    
-      `SELECT k.player_id, k.technique, k.target_distance_m AS d, k.target_radius_m AS r, COUNT(*) AS n, SUM(k.outcome = 'on_target') AS hits
+
+    `SELECT k.player_id, k.technique, k.target_distance_m AS d, k.target_radius_m AS r, COUNT(*) AS n, SUM(k.outcome = 'on_target') AS hits
          ${thisWeek} GROUP BY k.player_id, k.technique, k.target_distance_m, k.target_radius_m`,
-    )
-    .all(params) as { player_id: string; technique: Technique; d: number; r: number; n: number; hits: number }[];
+  ).all(params) as { player_id: string; technique: Technique; d: number; r: number; n: number; hits: number }[];
   const zones = cachedStatement(
     sqlite,
-    
-      `SELECT k.technique, CAST(k.target_distance_m / ${ZONE_BAND_M} AS INTEGER) AS band, COUNT(*) AS reps, AVG(k.outcome = 'on_target') AS hit_rate
+
+    `SELECT k.technique, CAST(k.target_distance_m / ${ZONE_BAND_M} AS INTEGER) AS band, COUNT(*) AS reps, AVG(k.outcome = 'on_target') AS hit_rate
          ${thisWeek} GROUP BY k.technique, band ORDER BY k.technique, band`,
-    )
-    .all(params) as { technique: Technique; band: number; reps: number; hit_rate: number }[];
+  ).all(params) as { technique: Technique; band: number; reps: number; hit_rate: number }[];
 
   const players = roster.map((p): SquadWeekPlayer => {
     const rows = techRows.filter((r) => r.player_id === p.id);
@@ -118,7 +124,13 @@ export function squadWeek(db: Db, profiles: ProfileCache, scope: Scope, squadId:
       }));
     const reach = rows.map((r) => {
       const entry = profiles.peek(p.id, r.technique);
-      return { technique: r.technique, reliableReachM: entry.reliableReachM, reachRadiusM: entry.reachRadiusM, repetitions: entry.repetitions, pending: entry.pending };
+      return {
+        technique: r.technique,
+        reliableReachM: entry.reliableReachM,
+        reachRadiusM: entry.reachRadiusM,
+        repetitions: entry.repetitions,
+        pending: entry.pending,
+      };
     });
     const eligible = byTechnique.filter((r) => r.reps >= MIN_REPS_FOR_BEST).sort((a, b) => b.hitRate - a.hitRate || b.reps - a.reps);
     return {
@@ -133,8 +145,14 @@ export function squadWeek(db: Db, profiles: ProfileCache, scope: Scope, squadId:
       bestTechnique: eligible[0]?.technique ?? null,
       byTechnique,
       reach,
-      calibration: calibrationOf(profiles, p.id, targets.filter((t) => t.player_id === p.id)),
-      loadFlags: loadRows.filter((r) => r.player_id === p.id).map((r) => ({ sessionId: r.session_id, startedAt: r.started_at, reps: r.reps, limit })),
+      calibration: calibrationOf(
+        profiles,
+        p.id,
+        targets.filter((t) => t.player_id === p.id),
+      ),
+      loadFlags: loadRows
+        .filter((r) => r.player_id === p.id)
+        .map((r) => ({ sessionId: r.session_id, startedAt: r.started_at, reps: r.reps, limit })),
     };
   });
   const zoneRows: ZoneHitRate[] = zones.map((z) => ({
@@ -144,7 +162,16 @@ export function squadWeek(db: Db, profiles: ProfileCache, scope: Scope, squadId:
     reps: z.reps,
     hitRate: z.hit_rate,
   }));
-  return { squadId, squadName: squad.name, weekStart, previousWeekStart: prevStart, carryBasis, repLimitPerSession: limit, players, zones: zoneRows };
+  return {
+    squadId,
+    squadName: squad.name,
+    weekStart,
+    previousWeekStart: prevStart,
+    carryBasis,
+    repLimitPerSession: limit,
+    players,
+    zones: zoneRows,
+  };
 }
 
 /**

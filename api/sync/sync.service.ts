@@ -22,15 +22,7 @@ import { cachedStatement } from '../db/statements';
 import { changeCounter, drills, kicks, trainingSessions } from '../db/schema';
 import { fieldErrors, Forbidden } from '../errors';
 import type { Scope } from '../scope/scope';
-import {
-  drillColumns,
-  drillToSync,
-  ENTITY_RANK,
-  kickColumns,
-  kickToSync,
-  sessionColumns,
-  sessionToSync,
-} from './sync.rows';
+import { drillColumns, drillToSync, ENTITY_RANK, kickColumns, kickToSync, sessionColumns, sessionToSync } from './sync.rows';
 
 /** Thrown inside one mutation's savepoint to reject it without failing the batch. */
 class Rejection extends Error {
@@ -54,7 +46,11 @@ export function push(db: Db, scope: Scope, deviceId: string, raw: unknown[]): Pu
     if (r.success) parsed.push({ index, m: r.data });
     else {
       const id = value && typeof value === 'object' && 'id' in value && typeof value.id === 'string' ? value.id : '';
-      results[index] = { id, status: 'rejected', error: { code: 'invalid', message: 'The mutation is malformed', fields: fieldErrors(r.error) } };
+      results[index] = {
+        id,
+        status: 'rejected',
+        error: { code: 'invalid', message: 'The mutation is malformed', fields: fieldErrors(r.error) },
+      };
     }
   });
   // Parents before children, whatever order the device sent them in (stable within an entity).
@@ -80,18 +76,20 @@ export function push(db: Db, scope: Scope, deviceId: string, raw: unknown[]): Pu
     fast.immediate();
   } catch (err) {
     if (!(err instanceof Rejection)) throw err;
-    sqlite.transaction(() =>
-      withChangeSeqBlock(db, () => {
-        for (const { index, m } of parsed) {
-          try {
-            results[index] = applyOne(m);
-          } catch (e) {
-            if (!(e instanceof Rejection)) throw e;
-            results[index] = rejected(m, e);
+    sqlite
+      .transaction(() =>
+        withChangeSeqBlock(db, () => {
+          for (const { index, m } of parsed) {
+            try {
+              results[index] = applyOne(m);
+            } catch (e) {
+              if (!(e instanceof Rejection)) throw e;
+              results[index] = rejected(m, e);
+            }
           }
-        }
-      }),
-    ).immediate();
+        }),
+      )
+      .immediate();
   }
   return { results, cursor: currentCursor(db) };
 }
@@ -115,10 +113,13 @@ function forbidden(what: string): Rejection {
 }
 
 function sessionFor(db: Db, scope: Scope, sessionId: string): { clubId: string; squadId: string } {
-  const session = cachedStatement(db.$client, 'SELECT club_id AS clubId, squad_id AS squadId FROM training_sessions WHERE id = ?').get(sessionId) as
-    | { clubId: string; squadId: string }
-    | undefined;
-  if (!session) throw new Rejection('unknown_session', 'The training session is not on the server; push the session first', [{ field: 'data.sessionId', message: 'Unknown session' }]);
+  const session = cachedStatement(db.$client, 'SELECT club_id AS clubId, squad_id AS squadId FROM training_sessions WHERE id = ?').get(
+    sessionId,
+  ) as { clubId: string; squadId: string } | undefined;
+  if (!session)
+    throw new Rejection('unknown_session', 'The training session is not on the server; push the session first', [
+      { field: 'data.sessionId', message: 'Unknown session' },
+    ]);
   if (session.clubId !== scope.user.clubId || !scope.canWriteSquad(session.squadId)) throw forbidden('this squad’s sessions');
   return session;
 }
@@ -136,13 +137,10 @@ function applyMutation(db: Db, scope: Scope, deviceId: string, m: Parsed): Mutat
         ? applyDrill(db, scope, m, now)
         : applyKick(db, scope, deviceId, m, now);
   if (result.status === 'applied') {
-    cachedStatement(db.$client, `INSERT INTO applied_mutations (id, user_id, device_id, entity, entity_id, status) VALUES (?, ?, ?, ?, ?, 'applied')`).run(
-      m.id,
-      scope.user.id,
-      deviceId,
-      m.entity,
-      entityId,
-    );
+    cachedStatement(
+      db.$client,
+      `INSERT INTO applied_mutations (id, user_id, device_id, entity, entity_id, status) VALUES (?, ?, ?, ?, ?, 'applied')`,
+    ).run(m.id, scope.user.id, deviceId, m.entity, entityId);
   }
   return result;
 }
@@ -155,7 +153,12 @@ interface Versioned {
 }
 
 /** Shared rules for an existing row: club, base version, tombstones. Returns a result to stop, or null to go on. */
-function checkExisting<R extends Versioned>(m: Parsed, existing: R, toSync: (r: R) => MutationResult['current'], scope: Scope): MutationResult | null {
+function checkExisting<R extends Versioned>(
+  m: Parsed,
+  existing: R,
+  toSync: (r: R) => MutationResult['current'],
+  scope: Scope,
+): MutationResult | null {
   if (existing.clubId !== scope.user.clubId) throw forbidden('this record');
   if (m.op === 'delete' && existing.deletedAt) return { id: m.id, status: 'applied' };
   if (m.baseVersion === undefined || m.baseVersion !== existing.version) {
@@ -165,20 +168,32 @@ function checkExisting<R extends Versioned>(m: Parsed, existing: R, toSync: (r: 
 }
 
 function applySession(db: Db, scope: Scope, deviceId: string, m: Parsed, now: string): MutationResult {
-  const existing = db.select().from(trainingSessions).where(eq(trainingSessions.id, String(m.data['id'] ?? ''))).get();
+  const existing = db
+    .select()
+    .from(trainingSessions)
+    .where(eq(trainingSessions.id, String(m.data['id'] ?? '')))
+    .get();
   if (m.op === 'delete') {
     const { id } = parseData(ENTITY_SCHEMAS.training_session.pick({ id: true }), m.data);
     if (!existing) return { id: m.id, status: 'applied' };
     if (!scope.canWriteSquad(existing.squadId)) throw forbidden('this squad’s sessions');
     const stop = checkExisting(m, existing, sessionToSync, scope);
     if (stop) return stop;
-    db.update(trainingSessions).set({ deletedAt: now, updatedAt: now, version: existing.version + 1, changeSeq: nextChangeSeq(db) }).where(eq(trainingSessions.id, id)).run();
+    db.update(trainingSessions)
+      .set({ deletedAt: now, updatedAt: now, version: existing.version + 1, changeSeq: nextChangeSeq(db) })
+      .where(eq(trainingSessions.id, id))
+      .run();
     return { id: m.id, status: 'applied' };
   }
   const d: SessionData = parseData(ENTITY_SCHEMAS.training_session, m.data);
   if (!scope.canWriteSquad(d.squadId)) throw forbidden('this squad’s sessions');
-  if (d.groundId && !cachedStatement(db.$client, 'SELECT 1 FROM training_grounds WHERE id = ? AND club_id = ?').get(d.groundId, scope.user.clubId)) {
-    throw new Rejection('invalid', 'data.groundId: not a training ground of your club', [{ field: 'data.groundId', message: 'Unknown training ground' }]);
+  if (
+    d.groundId &&
+    !cachedStatement(db.$client, 'SELECT 1 FROM training_grounds WHERE id = ? AND club_id = ?').get(d.groundId, scope.user.clubId)
+  ) {
+    throw new Rejection('invalid', 'data.groundId: not a training ground of your club', [
+      { field: 'data.groundId', message: 'Unknown training ground' },
+    ]);
   }
   if (existing) {
     if (!scope.canWriteSquad(existing.squadId)) throw forbidden('this squad’s sessions');
@@ -191,21 +206,37 @@ function applySession(db: Db, scope: Scope, deviceId: string, m: Parsed, now: st
     clearSessionStillAirCarry(db, d.id);
   } else {
     db.insert(trainingSessions)
-      .values({ id: d.id, clubId: scope.user.clubId, ...sessionColumns(d), recordedBy: scope.user.id, deviceId, updatedAt: d.updatedAt ?? now, version: 1, changeSeq: nextChangeSeq(db) })
+      .values({
+        id: d.id,
+        clubId: scope.user.clubId,
+        ...sessionColumns(d),
+        recordedBy: scope.user.id,
+        deviceId,
+        updatedAt: d.updatedAt ?? now,
+        version: 1,
+        changeSeq: nextChangeSeq(db),
+      })
       .run();
   }
   return { id: m.id, status: 'applied' };
 }
 
 function applyDrill(db: Db, scope: Scope, m: Parsed, now: string): MutationResult {
-  const existing = db.select().from(drills).where(eq(drills.id, String(m.data['id'] ?? ''))).get();
+  const existing = db
+    .select()
+    .from(drills)
+    .where(eq(drills.id, String(m.data['id'] ?? '')))
+    .get();
   if (m.op === 'delete') {
     const { id } = parseData(ENTITY_SCHEMAS.drill.pick({ id: true }), m.data);
     if (!existing) return { id: m.id, status: 'applied' };
     sessionFor(db, scope, existing.sessionId);
     const stop = checkExisting(m, existing, drillToSync, scope);
     if (stop) return stop;
-    db.update(drills).set({ deletedAt: now, updatedAt: now, version: existing.version + 1, changeSeq: nextChangeSeq(db) }).where(eq(drills.id, id)).run();
+    db.update(drills)
+      .set({ deletedAt: now, updatedAt: now, version: existing.version + 1, changeSeq: nextChangeSeq(db) })
+      .where(eq(drills.id, id))
+      .run();
     return { id: m.id, status: 'applied' };
   }
   const d: DrillData = parseData(ENTITY_SCHEMAS.drill, m.data);
@@ -214,28 +245,46 @@ function applyDrill(db: Db, scope: Scope, m: Parsed, now: string): MutationResul
     sessionFor(db, scope, existing.sessionId);
     const stop = checkExisting(m, existing, drillToSync, scope);
     if (stop) return stop;
-    db.update(drills).set({ ...drillColumns(d), updatedAt: d.updatedAt ?? now, version: existing.version + 1, changeSeq: nextChangeSeq(db) }).where(eq(drills.id, d.id)).run();
+    db.update(drills)
+      .set({ ...drillColumns(d), updatedAt: d.updatedAt ?? now, version: existing.version + 1, changeSeq: nextChangeSeq(db) })
+      .where(eq(drills.id, d.id))
+      .run();
   } else {
-    db.insert(drills).values({ id: d.id, clubId: scope.user.clubId, ...drillColumns(d), updatedAt: d.updatedAt ?? now, version: 1, changeSeq: nextChangeSeq(db) }).run();
+    db.insert(drills)
+      .values({
+        id: d.id,
+        clubId: scope.user.clubId,
+        ...drillColumns(d),
+        updatedAt: d.updatedAt ?? now,
+        version: 1,
+        changeSeq: nextChangeSeq(db),
+      })
+      .run();
   }
   return { id: m.id, status: 'applied' };
 }
 
 function checkKickRefs(db: Db, scope: Scope, d: KickData): void {
   const session = sessionFor(db, scope, d.sessionId);
-  const player = cachedStatement(db.$client, 'SELECT club_id AS clubId, squad_id AS squadId, deleted_at AS deletedAt FROM players WHERE id = ?').get(d.playerId) as
-    | { clubId: string; squadId: string; deletedAt: string | null }
-    | undefined;
+  const player = cachedStatement(
+    db.$client,
+    'SELECT club_id AS clubId, squad_id AS squadId, deleted_at AS deletedAt FROM players WHERE id = ?',
+  ).get(d.playerId) as { clubId: string; squadId: string; deletedAt: string | null } | undefined;
   if (!player || player.clubId !== scope.user.clubId || player.deletedAt) {
     throw new Rejection('invalid', 'data.playerId: no such player in your club', [{ field: 'data.playerId', message: 'Unknown player' }]);
   }
   if (player.squadId !== session.squadId) {
-    throw new Rejection('invalid', 'data.playerId: the player is not on this session’s squad', [{ field: 'data.playerId', message: 'Not on the session’s squad' }]);
+    throw new Rejection('invalid', 'data.playerId: the player is not on this session’s squad', [
+      { field: 'data.playerId', message: 'Not on the session’s squad' },
+    ]);
   }
   if (d.drillId) {
-    const drill = cachedStatement(db.$client, 'SELECT session_id AS sessionId FROM drills WHERE id = ?').get(d.drillId) as { sessionId: string } | undefined;
+    const drill = cachedStatement(db.$client, 'SELECT session_id AS sessionId FROM drills WHERE id = ?').get(d.drillId) as
+      { sessionId: string } | undefined;
     if (!drill || drill.sessionId !== d.sessionId) {
-      throw new Rejection('invalid', 'data.drillId: the drill is not part of this session', [{ field: 'data.drillId', message: 'Not a drill of this session' }]);
+      throw new Rejection('invalid', 'data.drillId: the drill is not part of this session', [
+        { field: 'data.drillId', message: 'Not a drill of this session' },
+      ]);
     }
   }
 }
@@ -262,14 +311,18 @@ const UPDATE_KICK = `UPDATE kicks SET session_id = @sessionId, drill_id = @drill
   WHERE id = @id`;
 
 function applyKick(db: Db, scope: Scope, deviceId: string, m: Parsed, now: string): MutationResult {
-  const existing = cachedStatement(db.$client, `SELECT ${KICK_COLUMNS} FROM kicks WHERE id = ?`).get(String(m.data['id'] ?? '')) as KickRow | undefined;
+  const existing = cachedStatement(db.$client, `SELECT ${KICK_COLUMNS} FROM kicks WHERE id = ?`).get(String(m.data['id'] ?? '')) as
+    KickRow | undefined;
   if (m.op === 'delete') {
     const { id } = parseData(ENTITY_SCHEMAS.kick.pick({ id: true }), m.data);
     if (!existing) return { id: m.id, status: 'applied' };
     sessionFor(db, scope, existing.sessionId);
     const stop = checkExisting(m, existing, kickToSync, scope);
     if (stop) return stop;
-    db.update(kicks).set({ deletedAt: now, updatedAt: now, version: existing.version + 1, changeSeq: nextChangeSeq(db) }).where(eq(kicks.id, id)).run();
+    db.update(kicks)
+      .set({ deletedAt: now, updatedAt: now, version: existing.version + 1, changeSeq: nextChangeSeq(db) })
+      .where(eq(kicks.id, id))
+      .run();
     return { id: m.id, status: 'applied' };
   }
   const d: KickData = parseData(ENTITY_SCHEMAS.kick, m.data);
@@ -278,7 +331,12 @@ function applyKick(db: Db, scope: Scope, deviceId: string, m: Parsed, now: strin
     sessionFor(db, scope, existing.sessionId);
     const stop = checkExisting(m, existing, kickToSync, scope);
     if (stop) return stop;
-    cachedStatement(db.$client, UPDATE_KICK).run({ id: d.id, ...kickColumns(d), updatedAt: d.updatedAt ?? now, changeSeq: nextChangeSeq(db) });
+    cachedStatement(db.$client, UPDATE_KICK).run({
+      id: d.id,
+      ...kickColumns(d),
+      updatedAt: d.updatedAt ?? now,
+      changeSeq: nextChangeSeq(db),
+    });
   } else {
     cachedStatement(db.$client, INSERT_KICK).run({
       id: d.id,
@@ -304,16 +362,58 @@ export function pull(db: Db, scope: Scope, since: number, limit: number): PullRe
   if (scope.ownPlayerIds) {
     const own = [...scope.ownPlayerIds];
     const ownSessions = db.selectDistinct({ id: kicks.sessionId }).from(kicks).where(inArray(kicks.playerId, own));
-    const ownDrills = db.selectDistinct({ id: sql<string>`${kicks.drillId}` }).from(kicks).where(inArray(kicks.playerId, own));
-    sessionRows = db.select().from(trainingSessions).where(and(eq(trainingSessions.clubId, club), gt(trainingSessions.changeSeq, since), inArray(trainingSessions.id, ownSessions))).orderBy(asc(trainingSessions.changeSeq)).limit(take).all();
-    drillRows = db.select().from(drills).where(and(eq(drills.clubId, club), gt(drills.changeSeq, since), inArray(drills.id, ownDrills))).orderBy(asc(drills.changeSeq)).limit(take).all();
-    kickRows = db.select().from(kicks).where(and(eq(kicks.clubId, club), gt(kicks.changeSeq, since), inArray(kicks.playerId, own))).orderBy(asc(kicks.changeSeq)).limit(take).all();
+    const ownDrills = db
+      .selectDistinct({ id: sql<string>`${kicks.drillId}` })
+      .from(kicks)
+      .where(inArray(kicks.playerId, own));
+    sessionRows = db
+      .select()
+      .from(trainingSessions)
+      .where(and(eq(trainingSessions.clubId, club), gt(trainingSessions.changeSeq, since), inArray(trainingSessions.id, ownSessions)))
+      .orderBy(asc(trainingSessions.changeSeq))
+      .limit(take)
+      .all();
+    drillRows = db
+      .select()
+      .from(drills)
+      .where(and(eq(drills.clubId, club), gt(drills.changeSeq, since), inArray(drills.id, ownDrills)))
+      .orderBy(asc(drills.changeSeq))
+      .limit(take)
+      .all();
+    kickRows = db
+      .select()
+      .from(kicks)
+      .where(and(eq(kicks.clubId, club), gt(kicks.changeSeq, since), inArray(kicks.playerId, own)))
+      .orderBy(asc(kicks.changeSeq))
+      .limit(take)
+      .all();
   } else {
     const squadIds = [...scope.readableSquadIds];
-    const readableSessions = db.select({ id: trainingSessions.id }).from(trainingSessions).where(and(eq(trainingSessions.clubId, club), inArray(trainingSessions.squadId, squadIds)));
-    sessionRows = db.select().from(trainingSessions).where(and(eq(trainingSessions.clubId, club), gt(trainingSessions.changeSeq, since), inArray(trainingSessions.squadId, squadIds))).orderBy(asc(trainingSessions.changeSeq)).limit(take).all();
-    drillRows = db.select().from(drills).where(and(eq(drills.clubId, club), gt(drills.changeSeq, since), inArray(drills.sessionId, readableSessions))).orderBy(asc(drills.changeSeq)).limit(take).all();
-    kickRows = db.select().from(kicks).where(and(eq(kicks.clubId, club), gt(kicks.changeSeq, since), inArray(kicks.sessionId, readableSessions))).orderBy(asc(kicks.changeSeq)).limit(take).all();
+    const readableSessions = db
+      .select({ id: trainingSessions.id })
+      .from(trainingSessions)
+      .where(and(eq(trainingSessions.clubId, club), inArray(trainingSessions.squadId, squadIds)));
+    sessionRows = db
+      .select()
+      .from(trainingSessions)
+      .where(and(eq(trainingSessions.clubId, club), gt(trainingSessions.changeSeq, since), inArray(trainingSessions.squadId, squadIds)))
+      .orderBy(asc(trainingSessions.changeSeq))
+      .limit(take)
+      .all();
+    drillRows = db
+      .select()
+      .from(drills)
+      .where(and(eq(drills.clubId, club), gt(drills.changeSeq, since), inArray(drills.sessionId, readableSessions)))
+      .orderBy(asc(drills.changeSeq))
+      .limit(take)
+      .all();
+    kickRows = db
+      .select()
+      .from(kicks)
+      .where(and(eq(kicks.clubId, club), gt(kicks.changeSeq, since), inArray(kicks.sessionId, readableSessions)))
+      .orderBy(asc(kicks.changeSeq))
+      .limit(take)
+      .all();
   }
   const all: SyncChange[] = [
     ...sessionRows.map((r) => ({ entity: 'training_session' as SyncEntity, changeSeq: r.changeSeq, data: sessionToSync(r) })),

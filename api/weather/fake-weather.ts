@@ -88,7 +88,10 @@ export async function startFakeWeather(port = 0, options: { mode?: FakeWeatherMo
     const windUnit = query.get('wind_speed_unit') ?? 'kmh';
     if (windUnit !== 'kmh' && windUnit !== 'ms') return send(res, 400, { error: true, reason: 'wind_speed_unit must be kmh or ms (fake)' });
     const elevationM = query.has('elevation') ? Number(query.get('elevation')) : 0;
-    const values = { ...fakeConditionsAt(latitude, longitude, Number.isFinite(elevationM) ? elevationM : 0), ...pinFor(latitude, longitude) };
+    const values = {
+      ...fakeConditionsAt(latitude, longitude, Number.isFinite(elevationM) ? elevationM : 0),
+      ...pinFor(latitude, longitude),
+    };
     // The service's "current" values are for the latest quarter hour.
     const quarterS = Math.floor(Date.now() / 900_000) * 900;
     const unixTime = query.get('timeformat') === 'unixtime';
@@ -106,7 +109,10 @@ export async function startFakeWeather(port = 0, options: { mode?: FakeWeatherMo
       wind_speed_10m: windUnit === 'ms' ? 'm/s' : 'km/h',
       wind_direction_10m: '°',
     };
-    const current: Record<string, number | string> = { time: unixTime ? quarterS : new Date(quarterS * 1000).toISOString().slice(0, 16), interval: 900 };
+    const current: Record<string, number | string> = {
+      time: unixTime ? quarterS : new Date(quarterS * 1000).toISOString().slice(0, 16),
+      interval: 900,
+    };
     const currentUnits: Record<string, string> = { time: unixTime ? 'unixtime' : 'iso8601', interval: 'seconds' };
     for (const name of requested) {
       current[name] = all[name]!;

@@ -37,7 +37,13 @@ export interface WeatherSource {
 export class WeatherUnavailable extends Error {}
 
 /** The variables Loftline asks for (Open-Meteo's names). */
-export const CURRENT_VARIABLES = ['temperature_2m', 'relative_humidity_2m', 'surface_pressure', 'wind_speed_10m', 'wind_direction_10m'] as const;
+export const CURRENT_VARIABLES = [
+  'temperature_2m',
+  'relative_humidity_2m',
+  'surface_pressure',
+  'wind_speed_10m',
+  'wind_direction_10m',
+] as const;
 
 const value = z.number({ error: 'missing or not a number' });
 const responseSchema = z.object({
@@ -83,7 +89,9 @@ export class OpenMeteoClient implements WeatherSource {
     } catch (err) {
       const timedOut = err instanceof Error && (err.name === 'TimeoutError' || err.name === 'AbortError');
       throw new WeatherUnavailable(
-        timedOut ? `The weather service did not answer within ${this.options.timeoutMs / 1000} s` : 'The weather service could not be reached',
+        timedOut
+          ? `The weather service did not answer within ${this.options.timeoutMs / 1000} s`
+          : 'The weather service could not be reached',
       );
     }
     let body: unknown;
@@ -105,7 +113,9 @@ export function observationOf(body: unknown): WeatherObservation {
   const parsed = responseSchema.safeParse(body);
   if (!parsed.success) {
     const first = parsed.error.issues[0];
-    throw new WeatherUnavailable(`The weather service's answer is not usable (${first ? `${first.path.join('.')}: ${first.message}` : 'unknown shape'})`);
+    throw new WeatherUnavailable(
+      `The weather service's answer is not usable (${first ? `${first.path.join('.')}: ${first.message}` : 'unknown shape'})`,
+    );
   }
   const { current, current_units: units, utc_offset_seconds: offsetS } = parsed.data;
   if (units.temperature_2m !== '°C') throw new WeatherUnavailable(`Unexpected temperature unit ${units.temperature_2m}`);

@@ -81,9 +81,7 @@ export function moistAirDensityCipm2007(pressurePa: number, temperatureK: number
   const xv = ((relativeHumidityPct / 100) * enhancement * saturationVapourPressurePa(temperatureK)) / pressurePa;
   const pt = pressurePa / temperatureK;
   const z =
-    1 -
-    pt * (Z_A0 + Z_A1 * t + Z_A2 * t * t + (Z_B0 + Z_B1 * t) * xv + (Z_C0 + Z_C1 * t) * xv * xv) +
-    pt * pt * (Z_D + Z_E * xv * xv);
+    1 - pt * (Z_A0 + Z_A1 * t + Z_A2 * t * t + (Z_B0 + Z_B1 * t) * xv + (Z_C0 + Z_C1 * t) * xv * xv) + pt * pt * (Z_D + Z_E * xv * xv);
   return ((pressurePa * CIPM_MA) / (z * CIPM_R * temperatureK)) * (1 - xv * (1 - CIPM_MV / CIPM_MA));
 }
 
@@ -109,25 +107,16 @@ export function resolveAir(air: AirSpec | undefined): AirState {
   const temperatureK =
     spec.temperatureC === undefined
       ? isa.temperatureK
-      : requireInRange('air.temperatureC', spec.temperatureC, LIMITS.temperatureC[0], LIMITS.temperatureC[1], '°C') +
-        273.15;
+      : requireInRange('air.temperatureC', spec.temperatureC, LIMITS.temperatureC[0], LIMITS.temperatureC[1], '°C') + 273.15;
   const pressurePa =
     spec.pressureHpa === undefined
       ? isa.pressurePa
       : requireInRange('air.pressureHpa', spec.pressureHpa, LIMITS.pressureHpa[0], LIMITS.pressureHpa[1], 'hPa') * 100;
   const humidity =
-    spec.relativeHumidityPct === undefined
-      ? undefined
-      : requireInRange('air.relativeHumidityPct', spec.relativeHumidityPct, 0, 100, '%');
+    spec.relativeHumidityPct === undefined ? undefined : requireInRange('air.relativeHumidityPct', spec.relativeHumidityPct, 0, 100, '%');
   let densityKgM3: number;
   if (spec.densityKgM3 !== undefined) {
-    densityKgM3 = requireInRange(
-      'air.densityKgM3',
-      spec.densityKgM3,
-      LIMITS.densityKgM3[0],
-      LIMITS.densityKgM3[1],
-      'kg/m³',
-    );
+    densityKgM3 = requireInRange('air.densityKgM3', spec.densityKgM3, LIMITS.densityKgM3[0], LIMITS.densityKgM3[1], 'kg/m³');
   } else if (spec.temperatureC === undefined && spec.pressureHpa === undefined && humidity === undefined) {
     densityKgM3 = isa.densityKgM3;
   } else {

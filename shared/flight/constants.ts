@@ -24,11 +24,7 @@ export interface BallSize {
   readonly source: string;
 }
 
-function ballSize(
-  circumferenceRangeM: readonly [number, number],
-  massRangeKg: readonly [number, number],
-  source: string,
-): BallSize {
+function ballSize(circumferenceRangeM: readonly [number, number], massRangeKg: readonly [number, number], source: string): BallSize {
   const circumferenceM = (circumferenceRangeM[0] + circumferenceRangeM[1]) / 2;
   return {
     circumferenceRangeM,

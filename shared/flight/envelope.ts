@@ -119,13 +119,8 @@ export { sampleLaunches, type SampledLaunch } from './sampling';
  * numbers. Each sample draws speed and aim from the fitted distributions widened by the uncertainty of
  * their means (a predictive envelope), and launch angle and spin from the spreads the fit saw.
  */
-export function reachEnvelope(
-  given: KickProfile,
-  conditions: FlightConditions,
-  options: EnvelopeOptions,
-): ReachEnvelope {
-  if (options === null || typeof options !== 'object')
-    throw new RangeError('options must be an object with samples and seed');
+export function reachEnvelope(given: KickProfile, conditions: FlightConditions, options: EnvelopeOptions): ReachEnvelope {
+  if (options === null || typeof options !== 'object') throw new RangeError('options must be an object with samples and seed');
   const profile = checkedProfile(given);
   requireInteger('samples', options.samples, 1, 200000);
   const aimDistanceM = requireInHalfOpen(
@@ -189,12 +184,7 @@ export type EnvelopeCloud = Pick<ReachEnvelope, 'cloud'>;
  * Predicted probability that a kick lands within `targetRadiusM` of a target `targetDistanceM` along
  * the aim and `lateralOffsetM` to the left: the share of the envelope's sampled landings inside it.
  */
-export function hitProbability(
-  envelope: EnvelopeCloud,
-  targetDistanceM: number,
-  targetRadiusM: number,
-  lateralOffsetM = 0,
-): number {
+export function hitProbability(envelope: EnvelopeCloud, targetDistanceM: number, targetRadiusM: number, lateralOffsetM = 0): number {
   requireFinite('targetDistanceM', targetDistanceM);
   requireInHalfOpen('targetRadiusM', targetRadiusM, 0, 100, 'm');
   requireFinite('lateralOffsetM', lateralOffsetM);
@@ -215,11 +205,7 @@ export function hitProbability(
  * `minProbability` (default 60 %) for a target of `targetRadiusM`; null if none is. Read off a reach
  * curve, because launch speed follows the target: one landing cloud cannot answer for every distance.
  */
-export function reliableReachM(
-  curve: ReachCurve,
-  targetRadiusM: number,
-  minProbability = RELIABLE_REACH_PROBABILITY,
-): number | null {
+export function reliableReachM(curve: ReachCurve, targetRadiusM: number, minProbability = RELIABLE_REACH_PROBABILITY): number | null {
   requireInHalfOpen('targetRadiusM', targetRadiusM, 0, 100, 'm');
   return curveReliableReachM(curve, targetRadiusM, minProbability);
 }

@@ -94,10 +94,7 @@ function solverFor(settings: Readonly<SolverSettings>): Solver {
 const ROOT_TOL_S = 1e-10;
 
 /** Integrate one kick to ground contact (or the 30 s cap). Throws nothing for valid models. */
-export function integrateFlight(
-  model: FlightModel,
-  options: IntegrateOptions = {},
-): Flight & { generalCrossings: GeneralCrossing[] } {
+export function integrateFlight(model: FlightModel, options: IntegrateOptions = {}): Flight & { generalCrossings: GeneralCrossing[] } {
   const s0 = model.initialState;
   const planes = options.planes ?? [];
   const wantPath = options.path === true;

@@ -28,16 +28,12 @@ export interface LaunchSpeedQuery extends FlightConditions {
  * [1, 60] m/s; `null` when no speed in that range reaches (or stays short of) the carry. Round-trips
  * `simulateKick` to well under 1 mm.
  */
-export function solveLaunchSpeed(
-  query: LaunchSpeedQuery,
-  settings: Readonly<SolverSettings> = DEFAULT_SOLVER_SETTINGS,
-): number | null {
+export function solveLaunchSpeed(query: LaunchSpeedQuery, settings: Readonly<SolverSettings> = DEFAULT_SOLVER_SETTINGS): number | null {
   if (query === null || typeof query !== 'object') throw new RangeError('launch speed query must be an object');
   const carryM = requireInHalfOpen('carryM', query.carryM, 0, 500, 'm');
   const conditions = resolveConditions(query);
   const launch = validateLaunch({ ...query, speed: INVERSE_MIN_SPEED_MS });
-  const carryAt = (speed: number): number =>
-    integrateFlight(buildModel(conditions, { ...launch, speed }), { settings }).carryM - carryM;
+  const carryAt = (speed: number): number => integrateFlight(buildModel(conditions, { ...launch, speed }), { settings }).carryM - carryM;
   const lo = carryAt(INVERSE_MIN_SPEED_MS);
   const hi = carryAt(INVERSE_MAX_SPEED_MS);
   if (lo > 0 || hi < 0) return null;

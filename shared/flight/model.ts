@@ -58,12 +58,8 @@ export interface FlightModel {
  * Validate the conditions shared by all kicks (ball, air, wind, aero) and fold them into the parts of
  * a model that do not depend on the launch. Separate so envelopes resolve the air once per call.
  */
-export function resolveConditions(
-  c: FlightConditions,
-): Omit<FlightModel, 'axisX' | 'axisY' | 'axisZ' | 'spinRadS' | 'initialState'> {
-  const massKg = c.ball
-    ? requireInRange('ball.massKg', c.ball.massKg, LIMITS.massKg[0], LIMITS.massKg[1], 'kg')
-    : BALL_SIZES[5].massKg;
+export function resolveConditions(c: FlightConditions): Omit<FlightModel, 'axisX' | 'axisY' | 'axisZ' | 'spinRadS' | 'initialState'> {
+  const massKg = c.ball ? requireInRange('ball.massKg', c.ball.massKg, LIMITS.massKg[0], LIMITS.massKg[1], 'kg') : BALL_SIZES[5].massKg;
   const radiusM = c.ball
     ? requireInRange('ball.radiusM', c.ball.radiusM, LIMITS.radiusM[0], LIMITS.radiusM[1], 'm')
     : BALL_SIZES[5].radiusM;
@@ -84,12 +80,7 @@ export function resolveConditions(
     if (typeof aero.drag !== 'object' || aero.drag === null)
       throw new RangeError(`aero.drag must be 'goff-carre' or { constant } (got ${String(aero.drag)})`);
     dragKind = DRAG_CONSTANT;
-    dragConstant = requireInRange(
-      'aero.drag.constant',
-      aero.drag.constant,
-      LIMITS.dragConstant[0],
-      LIMITS.dragConstant[1],
-    );
+    dragConstant = requireInRange('aero.drag.constant', aero.drag.constant, LIMITS.dragConstant[0], LIMITS.dragConstant[1]);
   }
   let liftKind = LIFT_POWER;
   let liftConstant = 0;
@@ -98,18 +89,11 @@ export function resolveConditions(
     if (typeof aero.lift !== 'object' || aero.lift === null)
       throw new RangeError(`aero.lift must be 'power', 'saturating' or { constant } (got ${String(aero.lift)})`);
     liftKind = LIFT_CONSTANT;
-    liftConstant = requireInRange(
-      'aero.lift.constant',
-      aero.lift.constant,
-      LIMITS.liftConstant[0],
-      LIMITS.liftConstant[1],
-    );
+    liftConstant = requireInRange('aero.lift.constant', aero.lift.constant, LIMITS.liftConstant[0], LIMITS.liftConstant[1]);
   }
   const tau = aero.spinDecayTauS === undefined ? DEFAULT_SPIN_DECAY_TAU_S : aero.spinDecayTauS;
   const spinDecayPerS =
-    tau === null
-      ? 0
-      : 1 / requireInRange('aero.spinDecayTauS', tau, LIMITS.spinDecayTauS[0], LIMITS.spinDecayTauS[1], 's');
+    tau === null ? 0 : 1 / requireInRange('aero.spinDecayTauS', tau, LIMITS.spinDecayTauS[0], LIMITS.spinDecayTauS[1], 's');
   return {
     gravityMs2: STANDARD_GRAVITY_MS2,
     aeroK: (air.densityKgM3 * Math.PI * radiusM * radiusM) / (2 * massKg),
@@ -140,13 +124,7 @@ export function validateLaunch(
 ): LaunchSpec {
   return {
     speed: requireInHalfOpen('speed', input.speed, LIMITS.speedMs[0], LIMITS.speedMs[1], 'm/s'),
-    elevationDeg: requireInHalfOpen(
-      'elevationDeg',
-      input.elevationDeg,
-      LIMITS.elevationDeg[0],
-      LIMITS.elevationDeg[1],
-      '°',
-    ),
+    elevationDeg: requireInHalfOpen('elevationDeg', input.elevationDeg, LIMITS.elevationDeg[0], LIMITS.elevationDeg[1], '°'),
     azimuthDeg: requireInRange('azimuthDeg', input.azimuthDeg ?? 0, LIMITS.azimuthDeg[0], LIMITS.azimuthDeg[1], '°'),
     backspinRps: requireInRange('backspinRps', input.backspinRps ?? 0, LIMITS.spinRps[0], LIMITS.spinRps[1], 'rev/s'),
     sidespinRps: requireInRange('sidespinRps', input.sidespinRps ?? 0, LIMITS.spinRps[0], LIMITS.spinRps[1], 'rev/s'),

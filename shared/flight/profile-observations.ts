@@ -44,11 +44,7 @@ export interface PreparedKick {
   conditions: FlightConditions;
 }
 
-function optional(
-  field: string,
-  value: number | null | undefined,
-  check: (f: string, v: number) => number,
-): number | null {
+function optional(field: string, value: number | null | undefined, check: (f: string, v: number) => number): number | null {
   return value === null || value === undefined ? null : check(field, value);
 }
 
@@ -64,9 +60,7 @@ export function prepareKick(kick: LoggedKick, index: number): PreparedKick {
   const sideStep = requireInteger(at('sidespinStep'), kick.sidespinStep, -2, 2) as SidespinStep;
   const carryM = optional(at('carryM'), kick.carryM, (f, v) => requireInHalfOpen(f, v, 0, 150, 'm'));
   const lateralM = optional(at('lateralM'), kick.lateralM, (f, v) => requireInRange(f, v, -60, 60, 'm'));
-  const measuredSpeedMs = optional(at('measuredSpeedMs'), kick.measuredSpeedMs, (f, v) =>
-    requireInHalfOpen(f, v, 0, 60, 'm/s'),
-  );
+  const measuredSpeedMs = optional(at('measuredSpeedMs'), kick.measuredSpeedMs, (f, v) => requireInHalfOpen(f, v, 0, 60, 'm/s'));
   const angle = optional(at('launchAngleDeg'), kick.launchAngleDeg, (f, v) => requireInHalfOpen(f, v, 0, 90, '°'));
   const spin = optional(at('measuredSpinRps'), kick.measuredSpinRps, (f, v) => requireInRange(f, v, 0, 30, 'rev/s'));
   const hangTimeS = optional(at('hangTimeS'), kick.hangTimeS, (f, v) => requireInRange(f, v, 0.2, 10, 's'));
@@ -127,10 +121,7 @@ export class SpeedBounds {
 }
 
 /** The kick's own flight at `speedMs` straight along the aim (azimuth 0). */
-export function referenceFlight(
-  kick: PreparedKick,
-  speedMs: number,
-): { carryM: number; landingX: number; landingY: number } {
+export function referenceFlight(kick: PreparedKick, speedMs: number): { carryM: number; landingX: number; landingY: number } {
   const model = buildModel(
     resolveConditions(kick.conditions),
     validateLaunch({

@@ -37,7 +37,9 @@ export function timedEvidence(prepared: readonly PreparedKick[], options: FitOpt
       samples: FIT_TIMING_SAMPLES,
       seed: 1 + k.index,
     });
-    return evidence.ok && evidence.speedSdMs > 0 ? { speedMs: evidence.speedMs, speedSdMs: evidence.speedSdMs, backspinRps: evidence.backspinRps } : null;
+    return evidence.ok && evidence.speedSdMs > 0
+      ? { speedMs: evidence.speedMs, speedSdMs: evidence.speedSdMs, backspinRps: evidence.backspinRps }
+      : null;
   });
 }
 
@@ -47,4 +49,3 @@ export interface TimedSpeed {
   speedSdMs: number;
   backspinRps: number;
 }
-

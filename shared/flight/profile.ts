@@ -9,14 +9,7 @@ import { type AimLaunch, type AimedSpeedFit, intendedLog, intentionConditions, N
 import { DEFAULT_ELEVATION_DEG } from './constants';
 import { DEFAULT_SOLVER_SETTINGS, integrateFlight } from './integrate';
 import { buildModel, resolveConditions, validateLaunch } from './model';
-import {
-  aimObservation,
-  type Censored,
-  prepareKick,
-  type PreparedKick,
-  SpeedBounds,
-  speedObservation,
-} from './profile-observations';
+import { aimObservation, type Censored, prepareKick, type PreparedKick, SpeedBounds, speedObservation } from './profile-observations';
 import {
   CEILING_PRIOR_LOG_SD,
   DEFAULT_CEILINGS_MS,
@@ -72,9 +65,7 @@ function fitNormal(obs: readonly Censored[], prior: { mean: number; sd: number; 
     Number.isFinite(o.lo) && Number.isFinite(o.hi) ? 0.5 * (o.lo + o.hi) : Number.isFinite(o.lo) ? o.lo : o.hi,
   );
   const start =
-    centres.length > 0
-      ? (prior.mean * prior.weight + centres.reduce((a, b) => a + b, 0)) / (prior.weight + centres.length)
-      : prior.mean;
+    centres.length > 0 ? (prior.mean * prior.weight + centres.reduce((a, b) => a + b, 0)) / (prior.weight + centres.length) : prior.mean;
   let best = nelderMead(f, [start, Math.log(prior.sd)], [0.5 * prior.sd, 0.3], { tolerance: 1e-12 });
   // One restart from the optimum guards against a collapsed simplex.
   best = nelderMead(f, best.x, [0.1 * prior.sd, 0.1], { tolerance: 1e-13 });
@@ -323,10 +314,7 @@ function referenceCarry(speedMs: number, launch: AimLaunch, conditions: FlightCo
 function launchSummary(
   prepared: readonly PreparedKick[],
   technique: Technique,
-): Pick<
-  KickProfile,
-  'elevationDeg' | 'sdElevationDeg' | 'backspinRps' | 'sidespinRps' | 'sdBackspinRps' | 'sdSidespinRps'
-> {
+): Pick<KickProfile, 'elevationDeg' | 'sdElevationDeg' | 'backspinRps' | 'sidespinRps' | 'sdBackspinRps' | 'sdSidespinRps'> {
   if (prepared.length === 0) {
     return {
       elevationDeg: DEFAULT_ELEVATION_DEG[technique],

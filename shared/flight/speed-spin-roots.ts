@@ -164,7 +164,9 @@ export function curvePoint(p: SpeedSpinProblem, carryM: number, backspinRps: num
     };
     const speedMs = brentRoot(residual, INVERSE_MIN_SPEED_MS, top, lo, hi, 1e-7);
     if (!Number.isFinite(speedMs)) return null;
-    return best.speedMs === speedMs && Number.isFinite(best.timeS) ? best : { backspinRps, speedMs, timeS: fly(p, speedMs, backspinRps).timeS };
+    return best.speedMs === speedMs && Number.isFinite(best.timeS)
+      ? best
+      : { backspinRps, speedMs, timeS: fly(p, speedMs, backspinRps).timeS };
   }
   return null;
 }
@@ -281,7 +283,8 @@ function searchEdge(
       outside = (inside.backspinRps + outside) / 2;
       continue;
     }
-    if ((point.timeS - timeS) * (inside.timeS - timeS) <= 0) return { solved: solveAlongCurve(p, carryM, timeS, point, inside), extreme: point };
+    if ((point.timeS - timeS) * (inside.timeS - timeS) <= 0)
+      return { solved: solveAlongCurve(p, carryM, timeS, point, inside), extreme: point };
     inside = point;
   }
   return { solved: null, extreme: inside };
@@ -372,7 +375,12 @@ export function solveOnProblem(
   const bracket = bracketSpeedSpin(p, carryM, Math.max(timeS, 0), gridOf());
   if ('ok' in bracket) {
     const message = timeS <= 0 ? `A flight time of ${timeS.toFixed(2)} s is not a flight: ${bracket.message}` : bracket.message;
-    return { ...bracket, reason: timeS <= 0 && bracket.reason !== 'carry_out_of_reach' ? 'time_too_short' : bracket.reason, message, evaluations: p.evaluations - before };
+    return {
+      ...bracket,
+      reason: timeS <= 0 && bracket.reason !== 'carry_out_of_reach' ? 'time_too_short' : bracket.reason,
+      message,
+      evaluations: p.evaluations - before,
+    };
   }
   return { ok: true, speedMs: bracket.speedMs, backspinRps: bracket.backspinRps, method: 'bracket', evaluations: p.evaluations - before };
 }

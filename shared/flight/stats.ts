@@ -22,9 +22,7 @@ function logErfcNonNegative(z: number): number {
           (0.37409196 +
             t *
               (0.09678418 +
-                t *
-                  (-0.18628806 +
-                    t * (0.27886807 + t * (-1.13520398 + t * (1.48851587 + t * (-0.82215223 + t * 0.17087277))))))));
+                t * (-0.18628806 + t * (0.27886807 + t * (-1.13520398 + t * (1.48851587 + t * (-0.82215223 + t * 0.17087277))))))));
   return Math.log(t) - z * z + poly;
 }
 
@@ -137,18 +135,13 @@ export function nelderMead(
  * a maximum-likelihood estimate when f is the negative log-likelihood). Falls back to the inverse
  * diagonal, floored, when the Hessian is not positive definite there.
  */
-export function inverseHessian2(
-  f: (x: number[]) => number,
-  x: number[],
-  h: [number, number],
-): [[number, number], [number, number]] {
+export function inverseHessian2(f: (x: number[]) => number, x: number[], h: [number, number]): [[number, number], [number, number]] {
   const [x0, x1] = [x[0]!, x[1]!];
   const [h0, h1] = h;
   const fx = f(x);
   const h00 = (f([x0 + h0, x1]) - 2 * fx + f([x0 - h0, x1])) / (h0 * h0);
   const h11 = (f([x0, x1 + h1]) - 2 * fx + f([x0, x1 - h1])) / (h1 * h1);
-  const h01 =
-    (f([x0 + h0, x1 + h1]) - f([x0 + h0, x1 - h1]) - f([x0 - h0, x1 + h1]) + f([x0 - h0, x1 - h1])) / (4 * h0 * h1);
+  const h01 = (f([x0 + h0, x1 + h1]) - f([x0 + h0, x1 - h1]) - f([x0 - h0, x1 + h1]) + f([x0 - h0, x1 - h1])) / (4 * h0 * h1);
   const det = h00 * h11 - h01 * h01;
   if (h00 > 0 && h11 > 0 && det > 0) {
     return [
@@ -227,8 +220,7 @@ export interface DistributionSummary {
 export function summarise(values: readonly number[]): DistributionSummary {
   const sorted = values.slice().sort((a, b) => a - b);
   const mean = values.reduce((a, b) => a + b, 0) / values.length;
-  const variance =
-    values.length > 1 ? values.reduce((a, v) => a + (v - mean) * (v - mean), 0) / (values.length - 1) : 0;
+  const variance = values.length > 1 ? values.reduce((a, v) => a + (v - mean) * (v - mean), 0) / (values.length - 1) : 0;
   return {
     p10: percentileSorted(sorted, 10),
     p50: percentileSorted(sorted, 50),

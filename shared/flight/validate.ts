@@ -6,9 +6,7 @@
 /** Throws a RangeError naming `field` unless `value` is a finite number within [min, max]. */
 export function requireInRange(field: string, value: unknown, min: number, max: number, unit = ''): number {
   if (typeof value !== 'number' || !Number.isFinite(value) || value < min || value > max) {
-    throw new RangeError(
-      `${field} must be a finite number in [${min}, ${max}]${unit ? ' ' + unit : ''} (got ${String(value)})`,
-    );
+    throw new RangeError(`${field} must be a finite number in [${min}, ${max}]${unit ? ' ' + unit : ''} (got ${String(value)})`);
   }
   return value;
 }
@@ -16,9 +14,7 @@ export function requireInRange(field: string, value: unknown, min: number, max: 
 /** Throws a RangeError naming `field` unless `value` is finite and lo < value ≤ hi. */
 export function requireInHalfOpen(field: string, value: unknown, lo: number, hi: number, unit = ''): number {
   if (typeof value !== 'number' || !Number.isFinite(value) || value <= lo || value > hi) {
-    throw new RangeError(
-      `${field} must be a finite number in (${lo}, ${hi}]${unit ? ' ' + unit : ''} (got ${String(value)})`,
-    );
+    throw new RangeError(`${field} must be a finite number in (${lo}, ${hi}]${unit ? ' ' + unit : ''} (got ${String(value)})`);
   }
   return value;
 }

@@ -3,8 +3,15 @@ import { ROLES } from '../roles';
 
 /** Body of `POST /api/auth/login`. */
 export const loginRequestSchema = z.strictObject({
-  email: z.string({ error: 'E-mail is required' }).trim().toLowerCase().pipe(z.email({ error: 'Not a valid e-mail address' })),
-  password: z.string({ error: 'Password is required' }).min(1, { error: 'Password is required' }).max(200, { error: 'Password is too long' }),
+  email: z
+    .string({ error: 'E-mail is required' })
+    .trim()
+    .toLowerCase()
+    .pipe(z.email({ error: 'Not a valid e-mail address' })),
+  password: z
+    .string({ error: 'Password is required' })
+    .min(1, { error: 'Password is required' })
+    .max(200, { error: 'Password is too long' }),
 });
 export type LoginRequest = z.infer<typeof loginRequestSchema>;
 

@@ -15,7 +15,11 @@ const password = z
   .max(200, { error: 'password must be at most 200 characters' })
   .refine((p) => !isCommonPassword(p), { error: 'password is one of the most common passwords; choose another' });
 const token = z.string({ error: 'token is required' }).min(20, { error: 'token is not valid' }).max(300, { error: 'token is not valid' });
-const email = z.string({ error: 'email is required' }).trim().toLowerCase().pipe(z.email({ error: 'email is not a valid e-mail address' }));
+const email = z
+  .string({ error: 'email is required' })
+  .trim()
+  .toLowerCase()
+  .pipe(z.email({ error: 'email is not a valid e-mail address' }));
 
 /** `POST /api/auth/accept-invite`. */
 export const acceptInviteSchema = z.strictObject({ token, password });
@@ -29,7 +33,10 @@ export const inviteRequestSchema = z.strictObject({
   email,
   displayName: z.string({ error: 'displayName is required' }).trim().min(1, { error: 'displayName is required' }).max(120),
   role: z.enum(ROLES, { error: `role must be one of ${ROLES.join(', ')}` }),
-  squadIds: z.array(z.uuid({ error: 'squadIds must hold squad ids' })).max(50).optional(),
+  squadIds: z
+    .array(z.uuid({ error: 'squadIds must hold squad ids' }))
+    .max(50)
+    .optional(),
   playerId: z.uuid({ error: 'playerId must be a player id' }).optional(),
 });
 export type InviteRequest = z.infer<typeof inviteRequestSchema>;
@@ -45,7 +52,10 @@ export const createLinkSchema = z.strictObject({
 export const consentSchema = z.discriminatedUnion(
   'consent',
   [
-    z.strictObject({ consent: z.literal(true), textVersion: z.string({ error: 'textVersion is required' }).min(1, { error: 'textVersion is required' }).max(40) }),
+    z.strictObject({
+      consent: z.literal(true),
+      textVersion: z.string({ error: 'textVersion is required' }).min(1, { error: 'textVersion is required' }).max(40),
+    }),
     z.strictObject({ consent: z.literal(false) }),
   ],
   { error: 'consent must be true (with textVersion) or false' },

@@ -22,7 +22,15 @@ const KICK: StoredKick = {
   launchAngleDeg: null,
   measuredSpinRps: null,
 };
-const STILL: SessionConditions = { temperatureC: 15, altitudeM: 0, relativeHumidityPct: 0, pressureHpa: null, windSpeedMs: 0, windFromDeg: 0, ballSize: 5 };
+const STILL: SessionConditions = {
+  temperatureC: 15,
+  altitudeM: 0,
+  relativeHumidityPct: 0,
+  pressureHpa: null,
+  windSpeedMs: 0,
+  windFromDeg: 0,
+  ballSize: 5,
+};
 
 describe('still-air carry', () => {
   it('leaves a carry logged in standard conditions unchanged', () => {
@@ -54,7 +62,13 @@ describe('analysis endpoints', () => {
   const weekStart = demoPeriod(FIXTURE_NOW).weekStarts.at(-1)!.toISOString().slice(0, 10);
   const get = (tok: string, path: string) => request(t.app).get(path).set('Authorization', `Bearer ${tok}`);
   const playerWithKicks = () =>
-    (t.db.$client.prepare(`SELECT k.player_id AS id FROM kicks k JOIN players p ON p.id = k.player_id WHERE p.squad_id = ? AND k.technique = 'lofted' GROUP BY k.player_id ORDER BY COUNT(*) DESC LIMIT 1`).get(DEMO_SQUAD_IDS.u16) as { id: string }).id;
+    (
+      t.db.$client
+        .prepare(
+          `SELECT k.player_id AS id FROM kicks k JOIN players p ON p.id = k.player_id WHERE p.squad_id = ? AND k.technique = 'lofted' GROUP BY k.player_id ORDER BY COUNT(*) DESC LIMIT 1`,
+        )
+        .get(DEMO_SQUAD_IDS.u16) as { id: string }
+    ).id;
 
   beforeAll(async () => {
     t = createTestApp();
@@ -64,7 +78,9 @@ describe('analysis endpoints', () => {
   afterAll(() => t.close());
 
   it('normalises every logged demo carry and lists a player’s kicks newest first', async () => {
-    const missing = t.db.$client.prepare('SELECT COUNT(*) AS n FROM kicks WHERE carry_m IS NOT NULL AND still_air_carry_m IS NULL').get() as { n: number };
+    const missing = t.db.$client
+      .prepare('SELECT COUNT(*) AS n FROM kicks WHERE carry_m IS NOT NULL AND still_air_carry_m IS NULL')
+      .get() as { n: number };
     const withCarry = t.db.$client.prepare('SELECT COUNT(*) AS n FROM kicks WHERE carry_m IS NOT NULL').get() as { n: number };
     // A few demo carries are longer than the model can explain at the default driven elevation; they stay null.
     expect(missing.n / withCarry.n).toBeLessThan(0.03);
@@ -98,8 +114,38 @@ describe('analysis endpoints', () => {
       .send({
         deviceId: 'spec',
         mutations: [
-          { id: randomUUID(), entity: 'training_session', op: 'upsert', data: { id: sessionId, squadId: DEMO_SQUAD_IDS.u16, startedAt: '2026-11-19T18:00:00Z', ballSize: 5, windSpeedMs: 5, windFromDeg: 0 } },
-          { id: randomUUID(), entity: 'kick', op: 'upsert', data: { id: randomUUID(), sessionId, playerId: id, technique: 'lofted', foot: 'right', backspinStep: 1, sidespinStep: 0, targetDistanceM: 35, targetRadiusM: 3, outcome: 'on_target', carryM: 34, recordedAt: '2026-11-19T18:05:00Z' } },
+          {
+            id: randomUUID(),
+            entity: 'training_session',
+            op: 'upsert',
+            data: {
+              id: sessionId,
+              squadId: DEMO_SQUAD_IDS.u16,
+              startedAt: '2026-11-19T18:00:00Z',
+              ballSize: 5,
+              windSpeedMs: 5,
+              windFromDeg: 0,
+            },
+          },
+          {
+            id: randomUUID(),
+            entity: 'kick',
+            op: 'upsert',
+            data: {
+              id: randomUUID(),
+              sessionId,
+              playerId: id,
+              technique: 'lofted',
+              foot: 'right',
+              backspinStep: 1,
+              sidespinStep: 0,
+              targetDistanceM: 35,
+              targetRadiusM: 3,
+              outcome: 'on_target',
+              carryM: 34,
+              recordedAt: '2026-11-19T18:05:00Z',
+            },
+          },
         ],
       });
     expect((push.body as PushResponse).results.map((r) => r.status)).toEqual(['applied', 'applied']);
@@ -119,8 +165,15 @@ describe('analysis endpoints', () => {
     while (refresher.tick() > 0) {
       // walk to the end
     }
-    const row = t.db.$client.prepare('SELECT session_id AS s FROM kicks WHERE still_air_carry_m IS NOT NULL LIMIT 1').get() as { s: string };
-    const count = () => (t.db.$client.prepare('SELECT COUNT(*) AS n FROM kicks WHERE session_id = ? AND still_air_carry_m IS NOT NULL').get(row.s) as { n: number }).n;
+    const row = t.db.$client.prepare('SELECT session_id AS s FROM kicks WHERE still_air_carry_m IS NOT NULL LIMIT 1').get() as {
+      s: string;
+    };
+    const count = () =>
+      (
+        t.db.$client.prepare('SELECT COUNT(*) AS n FROM kicks WHERE session_id = ? AND still_air_carry_m IS NOT NULL').get(row.s) as {
+          n: number;
+        }
+      ).n;
     const before = count();
     expect(before).toBeGreaterThan(0);
     t.db.transaction(() => clearSessionStillAirCarry(t.db, row.s));

@@ -127,14 +127,18 @@ describe('auth', () => {
     expect(limited.status).toBe(429);
     expect(limited.body.error.code).toBe('rate_limited');
     // Another account from the same address is not locked out by this one.
-    expect((await request(t.app).post('/api/auth/login').send({ email: 'admin@kestrel-vale.test', password: DEMO_PASSWORD })).status).toBe(200);
+    expect((await request(t.app).post('/api/auth/login').send({ email: 'admin@kestrel-vale.test', password: DEMO_PASSWORD })).status).toBe(
+      200,
+    );
   });
 
   it('rate-limits failed sign-ins per IP address', async () => {
     const small = createTestApp({ loginFailuresPerIp: 3, loginFailuresPerAccount: 100 });
     try {
       for (let i = 0; i < 3; i++) {
-        await request(small.app).post('/api/auth/login').send({ email: `user${i}@kestrel-vale.test`, password: 'wrong' });
+        await request(small.app)
+          .post('/api/auth/login')
+          .send({ email: `user${i}@kestrel-vale.test`, password: 'wrong' });
       }
       const limited = await request(small.app).post('/api/auth/login').send({ email: HEAD, password: DEMO_PASSWORD });
       expect(limited.status).toBe(429);

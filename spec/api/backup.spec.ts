@@ -17,13 +17,38 @@ describe('database backup and restore', () => {
   it('writes a consistent copy while writes continue, and restores it', async () => {
     const player = t.db.$client.prepare('SELECT id FROM players WHERE squad_id = ? LIMIT 1').get(DEMO_SQUAD_IDS.u16) as { id: string };
     const sessionId = randomUUID();
-    t.db.insert(trainingSessions).values({ id: sessionId, clubId: (t.db.$client.prepare('SELECT club_id AS c FROM squads WHERE id = ?').get(DEMO_SQUAD_IDS.u16) as { c: string }).c, squadId: DEMO_SQUAD_IDS.u16, startedAt: '2026-11-30T18:00:00Z', ballSize: 5, changeSeq: nextChangeSeq(t.db) }).run();
+    t.db
+      .insert(trainingSessions)
+      .values({
+        id: sessionId,
+        clubId: (t.db.$client.prepare('SELECT club_id AS c FROM squads WHERE id = ?').get(DEMO_SQUAD_IDS.u16) as { c: string }).c,
+        squadId: DEMO_SQUAD_IDS.u16,
+        startedAt: '2026-11-30T18:00:00Z',
+        ballSize: 5,
+        changeSeq: nextChangeSeq(t.db),
+      })
+      .run();
     const clubId = (t.db.$client.prepare('SELECT club_id AS c FROM training_sessions WHERE id = ?').get(sessionId) as { c: string }).c;
     let writing = true;
     let written = 0;
     const writer = (async () => {
       while (writing) {
-        t.db.insert(kicks).values({ id: randomUUID(), clubId, sessionId, playerId: player.id, technique: 'lofted', foot: 'right', targetDistanceM: 30, targetRadiusM: 3, outcome: 'on_target', recordedAt: new Date().toISOString(), changeSeq: nextChangeSeq(t.db) }).run();
+        t.db
+          .insert(kicks)
+          .values({
+            id: randomUUID(),
+            clubId,
+            sessionId,
+            playerId: player.id,
+            technique: 'lofted',
+            foot: 'right',
+            targetDistanceM: 30,
+            targetRadiusM: 3,
+            outcome: 'on_target',
+            recordedAt: new Date().toISOString(),
+            changeSeq: nextChangeSeq(t.db),
+          })
+          .run();
         written++;
         await new Promise((r) => setImmediate(r));
       }
@@ -52,7 +77,9 @@ describe('database backup and restore', () => {
     await backupOnConnection(t.db.$client, target);
     const copy = new Database(target, { readonly: true });
     expect(copy.pragma('integrity_check', { simple: true })).toBe('ok');
-    expect((copy.prepare('SELECT COUNT(*) AS n FROM kicks').get() as { n: number }).n).toBe((t.db.$client.prepare('SELECT COUNT(*) AS n FROM kicks').get() as { n: number }).n);
+    expect((copy.prepare('SELECT COUNT(*) AS n FROM kicks').get() as { n: number }).n).toBe(
+      (t.db.$client.prepare('SELECT COUNT(*) AS n FROM kicks').get() as { n: number }).n,
+    );
     copy.close();
   });
 });

@@ -28,9 +28,22 @@ describe('bad-input corpus', () => {
     const refresh = (await signIn(t.app, DEMO_ACCOUNTS.head_coach)).refreshToken;
     const guardian = t.db.select().from(users).where(eq(users.email, DEMO_ACCOUNTS.guardian)).get()!;
     const link = t.db.select().from(guardianLinks).where(eq(guardianLinks.guardianUserId, guardian.id)).get()!;
-    const u16Player = t.db.select().from(players).where(and(eq(players.squadId, DEMO_SQUAD_IDS.u16), isNull(players.deletedAt))).all().find((p) => p.shirtNumber !== null)!;
-    const unlinked = t.db.select().from(players).where(and(eq(players.squadId, DEMO_SQUAD_IDS.u16), ne(players.id, link.playerId))).get()!;
-    const erase = t.db.select().from(players).where(and(eq(players.squadId, DEMO_SQUAD_IDS.u14), ne(players.id, link.playerId))).get()!;
+    const u16Player = t.db
+      .select()
+      .from(players)
+      .where(and(eq(players.squadId, DEMO_SQUAD_IDS.u16), isNull(players.deletedAt)))
+      .all()
+      .find((p) => p.shirtNumber !== null)!;
+    const unlinked = t.db
+      .select()
+      .from(players)
+      .where(and(eq(players.squadId, DEMO_SQUAD_IDS.u16), ne(players.id, link.playerId)))
+      .get()!;
+    const erase = t.db
+      .select()
+      .from(players)
+      .where(and(eq(players.squadId, DEMO_SQUAD_IDS.u14), ne(players.id, link.playerId)))
+      .get()!;
     const u16Session = t.db.select().from(trainingSessions).where(eq(trainingSessions.squadId, DEMO_SQUAD_IDS.u16)).get()!;
     const u16Drill = t.db.select().from(drills).where(eq(drills.sessionId, u16Session.id)).get()!;
     const firstTeamSession = t.db.select().from(trainingSessions).where(eq(trainingSessions.squadId, DEMO_SQUAD_IDS.first)).get()!;
@@ -63,7 +76,8 @@ describe('bad-input corpus', () => {
       const { file, fields } = c.multipart;
       for (const [name, value] of Object.entries(fields ?? {})) req = req.field(name, value);
       if (file) req = req.attach(file.field ?? 'file', file.buffer, { filename: file.name, contentType: file.type });
-      if (file && c.multipart.twice) req = req.attach(file.field ?? 'file', file.buffer, { filename: `again-${file.name}`, contentType: file.type });
+      if (file && c.multipart.twice)
+        req = req.attach(file.field ?? 'file', file.buffer, { filename: `again-${file.name}`, contentType: file.type });
       return req;
     }
     if (!c.payload) return req;
@@ -94,8 +108,10 @@ describe('bad-input corpus', () => {
       const what = `${c.route} — ${c.label} → ${res.status} ${JSON.stringify(res.body).slice(0, 300)}`;
       if (res.status < 400 || res.status > 499) failures.push(`not 4xx: ${what}`);
       else if (!c.loose && res.status !== 400) failures.push(`not 400: ${what}`);
-      else if (typeof body.error?.code !== 'string' || typeof body.error.message !== 'string' || !body.error.message) failures.push(`no error code and message: ${what}`);
-      else if (c.field && !body.error.fields?.some((f) => f.field === c.field || f.field.startsWith(`${c.field}.`))) failures.push(`field ${c.field} not named: ${what}`);
+      else if (typeof body.error?.code !== 'string' || typeof body.error.message !== 'string' || !body.error.message)
+        failures.push(`no error code and message: ${what}`);
+      else if (c.field && !body.error.fields?.some((f) => f.field === c.field || f.field.startsWith(`${c.field}.`)))
+        failures.push(`field ${c.field} not named: ${what}`);
       if (totalChanges(t.db.$client) !== written) failures.push(`wrote to the database: ${what}`);
     }
     console.log(`bad-input corpus: ${corpus.length} malformed requests over ${new Set(corpus.map((c) => c.route)).size} write routes`);
@@ -114,14 +130,18 @@ describe('bad-input corpus', () => {
     const failures: string[] = [];
     for (const c of corpus) {
       const written = totalChanges(t.db.$client);
-      const res = await request(t.app).post('/api/sync/push').set('Authorization', `Bearer ${tokens.get('assistant_coach')!}`).send({ deviceId: 'corpus-phone', mutations: [c.mutation] });
+      const res = await request(t.app)
+        .post('/api/sync/push')
+        .set('Authorization', `Bearer ${tokens.get('assistant_coach')!}`)
+        .send({ deviceId: 'corpus-phone', mutations: [c.mutation] });
       const what = `${c.label} → ${res.status} ${JSON.stringify(res.body).slice(0, 300)}`;
       // The sync contract (shared/schemas/sync.ts): invalid data answers `rejected` per mutation; the batch itself is fine.
       const result = res.status === 200 ? (res.body as PushResponse).results[0] : undefined;
       if (!result) failures.push(`no per-mutation answer: ${what}`);
       else if (result.status !== 'rejected') failures.push(`not rejected: ${what}`);
       else if (!result.error?.code || !result.error.message) failures.push(`no error code and message: ${what}`);
-      else if (c.field && !result.error.fields?.some((f) => f.field === c.field || f.field.startsWith(`${c.field}.`))) failures.push(`field ${c.field} not named: ${what}`);
+      else if (c.field && !result.error.fields?.some((f) => f.field === c.field || f.field.startsWith(`${c.field}.`)))
+        failures.push(`field ${c.field} not named: ${what}`);
       if (totalChanges(t.db.$client) !== written) failures.push(`wrote to the database: ${what}`);
     }
     console.log(`bad-input corpus: ${corpus.length} malformed mutations inside valid pushes`);

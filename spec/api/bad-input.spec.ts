@@ -42,8 +42,17 @@ describe('bad input', () => {
   });
 
   it('refuses wrong types naming the field', async () => {
-    await expect400(() => request(t.app).post('/api/auth/login').send({ email: 'head.coach@kestrel-vale.test', password: 12345 }), 'password');
-    await expect400(() => request(t.app).post('/api/auth/login').send({ email: ['x'], password: 'p' }), 'email');
+    await expect400(
+      () => request(t.app).post('/api/auth/login').send({ email: 'head.coach@kestrel-vale.test', password: 12345 }),
+      'password',
+    );
+    await expect400(
+      () =>
+        request(t.app)
+          .post('/api/auth/login')
+          .send({ email: ['x'], password: 'p' }),
+      'email',
+    );
     await expect400(() => request(t.app).post('/api/auth/login').send({ email: 'not-an-email', password: 'p' }), 'email');
     await expect400(() => request(t.app).post('/api/auth/refresh').send({ refreshToken: 42 }), 'refreshToken');
   });

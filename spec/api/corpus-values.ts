@@ -11,7 +11,21 @@ export type Json = null | boolean | number | string | Json[] | { [key: string]: 
 export type JsonObject = { [key: string]: Json };
 
 /** What a field holds, so the generators know which values are wrong for it. */
-export type FieldKind = 'text' | 'email' | 'uuid' | 'date' | 'datetime' | 'number' | 'distance' | 'int' | 'boolean' | 'enum' | 'uuid[]' | 'list' | 'object' | 'literal';
+export type FieldKind =
+  | 'text'
+  | 'email'
+  | 'uuid'
+  | 'date'
+  | 'datetime'
+  | 'number'
+  | 'distance'
+  | 'int'
+  | 'boolean'
+  | 'enum'
+  | 'uuid[]'
+  | 'list'
+  | 'object'
+  | 'literal';
 
 /** One field of a body. */
 export interface FieldSpec {
@@ -84,9 +98,15 @@ function outOfRange(kind: FieldKind): { label: string; value: Json }[] {
         { label: 'absurd distance', value: 1e9 },
       ];
     case 'number':
-      return [{ label: 'absurd number', value: 1e9 }, { label: 'absurdly negative number', value: -1e9 }];
+      return [
+        { label: 'absurd number', value: 1e9 },
+        { label: 'absurdly negative number', value: -1e9 },
+      ];
     case 'int':
-      return [{ label: 'fraction', value: 1.5 }, { label: 'absurd integer', value: 1e9 }];
+      return [
+        { label: 'fraction', value: 1.5 },
+        { label: 'absurd integer', value: 1e9 },
+      ];
     case 'enum':
       return [{ label: 'unknown choice', value: 'definitely-not-a-choice' }];
     case 'uuid[]':
@@ -121,7 +141,11 @@ export function withRawValue(body: JsonObject, field: string, literal: string): 
 export function bodyCases(body: JsonObject, fields: Record<string, FieldSpec>): BodyCase[] {
   const first = Object.keys(fields)[0] ?? 'x';
   const anyRequired = Object.values(fields).some((f) => f.required);
-  const raw = (label: string, text: string, field?: string, contentType?: string): BodyCase => ({ label, payload: { raw: text, contentType }, field });
+  const raw = (label: string, text: string, field?: string, contentType?: string): BodyCase => ({
+    label,
+    payload: { raw: text, contentType },
+    field,
+  });
   const cases: BodyCase[] = [
     raw('truncated JSON', JSON.stringify(body).slice(0, -3), 'body'),
     raw('NaN literal', withRawValue(body, first, 'NaN'), 'body'),
@@ -134,13 +158,20 @@ export function bodyCases(body: JsonObject, fields: Record<string, FieldSpec>): 
     raw('more than 1 MB', JSON.stringify({ ...body, padding: 'p'.repeat(1_100_000) }), 'body'),
     { label: 'an array instead of an object', payload: { json: [body] }, field: 'body' },
     { label: 'an extra field', payload: { json: { ...body, isAdmin: true } }, field: 'isAdmin' },
-    { label: 'an extra role field', payload: { json: { ...body, role: 'admin', clubId: '00000000-0000-4000-8000-0000000000c2' } }, field: 'clubId' },
+    {
+      label: 'an extra role field',
+      payload: { json: { ...body, role: 'admin', clubId: '00000000-0000-4000-8000-0000000000c2' } },
+      field: 'clubId',
+    },
     raw('__proto__ key', JSON.stringify(body).replace(/}$/, ',"__proto__":{"isAdmin":true,"role":"admin"}}'), '__proto__'),
     raw('constructor.prototype keys', JSON.stringify(body).replace(/}$/, ',"constructor":{"prototype":{"isAdmin":true}}}'), 'constructor'),
     raw('__proto__ nested in a field', withRawValue(body, first, '{"__proto__":{"polluted":true}}'), `${first}.__proto__`),
     { label: 'deep nesting (64 levels)', payload: { json: { ...body, [first]: nested(64) } } },
     raw('deep nesting (20,000 levels)', withRawValue(body, first, nestedText(20_000))),
-    { label: 'a thousand extra fields', payload: { json: { ...body, ...Object.fromEntries(Array.from({ length: 1000 }, (_, i) => [`extra${i}`, i])) } } },
+    {
+      label: 'a thousand extra fields',
+      payload: { json: { ...body, ...Object.fromEntries(Array.from({ length: 1000 }, (_, i) => [`extra${i}`, i])) } },
+    },
   ];
   if (anyRequired) {
     cases.push({ label: 'an empty object', payload: { json: {} } });
@@ -161,19 +192,26 @@ export function fieldCases(body: JsonObject, fields: Record<string, FieldSpec>, 
       cases.push({ label: `${name} missing`, payload: { json: rest }, field });
     }
     if (spec.kind !== 'literal' || spec.required) cases.push({ label: `${name} null`, payload: { json: set(name, null) }, field });
-    for (const value of wrongTypes(spec.kind)) cases.push({ label: `${name} as ${JSON.stringify(value)}`, payload: { json: set(name, value) }, field });
-    for (const { label, value } of outOfRange(spec.kind)) cases.push({ label: `${name}: ${label}`, payload: { json: set(name, value) }, field });
+    for (const value of wrongTypes(spec.kind))
+      cases.push({ label: `${name} as ${JSON.stringify(value)}`, payload: { json: set(name, value) }, field });
+    for (const { label, value } of outOfRange(spec.kind))
+      cases.push({ label: `${name}: ${label}`, payload: { json: set(name, value) }, field });
     if (spec.kind === 'number' || spec.kind === 'distance' || spec.kind === 'int') {
       // JSON.parse reads an overflowing literal as Infinity: it must not reach the database.
       cases.push({ label: `${name} 1e400 (parses to Infinity)`, payload: { raw: withRawValue(body, name, '1e400') }, field });
       cases.push({ label: `${name} "NaN" as text`, payload: { json: set(name, 'NaN') }, field });
     }
-    if (spec.kind !== 'text' || spec.bounded) cases.push({ label: `${name} a 200,000-character string`, payload: { json: set(name, HUGE) }, field });
+    if (spec.kind !== 'text' || spec.bounded)
+      cases.push({ label: `${name} a 200,000-character string`, payload: { json: set(name, HUGE) }, field });
     if (!spec.freeText && spec.kind !== 'boolean') {
       for (const sql of SQLISH.slice(0, 2)) {
         const label = `${name} SQL-looking ${JSON.stringify(sql.slice(0, 16))}…`;
         // Plain text fields (tokens, passwords) take any characters: a later check refuses the value.
-        cases.push(spec.kind === 'text' ? { label, payload: { json: set(name, sql) }, loose: true } : { label, payload: { json: set(name, sql) }, field });
+        cases.push(
+          spec.kind === 'text'
+            ? { label, payload: { json: set(name, sql) }, loose: true }
+            : { label, payload: { json: set(name, sql) }, field },
+        );
       }
     }
   }

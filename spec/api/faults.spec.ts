@@ -61,12 +61,30 @@ describe('faults: crashes and a locked database', () => {
   function batch(kicks: number): { sessionId: string; mutations: { id: string; data: { id: string } }[] } {
     const sessionId = randomUUID();
     const mutations = [
-      { id: randomUUID(), entity: 'training_session', op: 'upsert', data: { id: sessionId, squadId: DEMO_SQUAD_IDS.u16, startedAt: '2026-11-30T18:00:00Z', ballSize: 5 } },
+      {
+        id: randomUUID(),
+        entity: 'training_session',
+        op: 'upsert',
+        data: { id: sessionId, squadId: DEMO_SQUAD_IDS.u16, startedAt: '2026-11-30T18:00:00Z', ballSize: 5 },
+      },
       ...Array.from({ length: kicks }, (_, i) => ({
         id: randomUUID(),
         entity: 'kick',
         op: 'upsert',
-        data: { id: randomUUID(), sessionId, playerId: squad[i % squad.length]!.id, technique: 'lofted', foot: 'right', backspinStep: 1, sidespinStep: 0, targetDistanceM: 30, targetRadiusM: 3, outcome: 'short', carryM: null, recordedAt: new Date(Date.UTC(2026, 10, 30, 18, 0, i)).toISOString() },
+        data: {
+          id: randomUUID(),
+          sessionId,
+          playerId: squad[i % squad.length]!.id,
+          technique: 'lofted',
+          foot: 'right',
+          backspinStep: 1,
+          sidespinStep: 0,
+          targetDistanceM: 30,
+          targetRadiusM: 3,
+          outcome: 'short',
+          carryM: null,
+          recordedAt: new Date(Date.UTC(2026, 10, 30, 18, 0, i)).toISOString(),
+        },
       })),
     ];
     return { sessionId, mutations };
@@ -104,7 +122,12 @@ describe('faults: crashes and a locked database', () => {
     server = await startE2eServer();
     first = server;
     token = await signIn();
-    squad = read((db) => db.prepare('SELECT id, shirt_number AS shirt FROM players WHERE squad_id = ? AND deleted_at IS NULL AND shirt_number IS NOT NULL').all(DEMO_SQUAD_IDS.u16) as { id: string; shirt: number }[]);
+    squad = read(
+      (db) =>
+        db
+          .prepare('SELECT id, shirt_number AS shirt FROM players WHERE squad_id = ? AND deleted_at IS NULL AND shirt_number IS NOT NULL')
+          .all(DEMO_SQUAD_IDS.u16) as { id: string; shirt: number }[],
+    );
   }, 90_000);
   afterAll(async () => {
     await server.stop();
@@ -122,7 +145,9 @@ describe('faults: crashes and a locked database', () => {
     await inFlight;
     expectSound();
     const kicksAfterCrash = count('SELECT COUNT(*) AS n FROM kicks WHERE session_id = ?', sessionId);
-    console.log(`push SIGKILL: ${midWrite ? 'inside the write transaction' : 'outside it'}, answered first: ${answered}, kicks after the crash: ${kicksAfterCrash}`);
+    console.log(
+      `push SIGKILL: ${midWrite ? 'inside the write transaction' : 'outside it'}, answered first: ${answered}, kicks after the crash: ${kicksAfterCrash}`,
+    );
     // All or nothing: one transaction per batch (DESIGN §5). Killed inside it, nothing of it survives.
     expect([0, 499]).toContain(kicksAfterCrash);
     if (midWrite && !answered) expect(kicksAfterCrash).toBe(0);
@@ -130,7 +155,9 @@ describe('faults: crashes and a locked database', () => {
     const retry = await push(mutations);
     expect(retry.status).toBe(200);
     const statuses = ((await retry.json()) as PushResponse).results.map((r) => r.status);
-    expect(statuses.every((s) => s === (kicksAfterCrash === 0 ? 'applied' : 'duplicate'))).withContext(statuses.join(',')).toBeTrue();
+    expect(statuses.every((s) => s === (kicksAfterCrash === 0 ? 'applied' : 'duplicate')))
+      .withContext(statuses.join(','))
+      .toBeTrue();
     const again = (await (await push(mutations)).json()) as PushResponse;
     expect(again.results.every((r) => r.status === 'duplicate')).toBeTrue();
     expect(count('SELECT COUNT(*) AS n FROM kicks WHERE session_id = ?', sessionId)).toBe(499);
@@ -142,16 +169,30 @@ describe('faults: crashes and a locked database', () => {
   it('survives SIGKILL during an import commit, and the retried upload adds exactly its rows', async () => {
     const ROWS = 5_000;
     const lines = ['player,time,speed,carry'];
-    for (let i = 0; i < ROWS; i++) lines.push(`${squad[i % squad.length]!.shirt},${new Date(Date.UTC(2026, 10, 2, 17, 0, 0) + i * 1000).toISOString().slice(0, 19).replace('T', ' ')},${(20 + (i % 10)).toFixed(1)},${(25 + (i % 15)).toFixed(1)}`);
+    for (let i = 0; i < ROWS; i++)
+      lines.push(
+        `${squad[i % squad.length]!.shirt},${new Date(Date.UTC(2026, 10, 2, 17, 0, 0) + i * 1000).toISOString().slice(0, 19).replace('T', ' ')},${(20 + (i % 10)).toFixed(1)},${(25 + (i % 15)).toFixed(1)}`,
+      );
     const csv = lines.join('\n') + '\n';
-    const mapping = { squadId: DEMO_SQUAD_IDS.u16, technique: 'driven', targetDistanceM: 30, targetRadiusM: 3, device: 'Fault radar', columns: { player: 'player', time: 'time', speed: 'speed', carry: 'carry' }, units: { speed: 'm/s', spin: 'rev/s', distance: 'm' } };
+    const mapping = {
+      squadId: DEMO_SQUAD_IDS.u16,
+      technique: 'driven',
+      targetDistanceM: 30,
+      targetRadiusM: 3,
+      device: 'Fault radar',
+      columns: { player: 'player', time: 'time', speed: 'speed', carry: 'carry' },
+      units: { speed: 'm/s', spin: 'rev/s', distance: 'm' },
+    };
     const upload = () => {
       const form = new FormData();
       form.append('mapping', JSON.stringify(mapping));
       form.append('file', new Blob([csv], { type: 'text/csv' }), 'radar-export.csv');
       return fetch(`${server.baseUrl}/api/imports/kicks`, { method: 'POST', headers: { Authorization: `Bearer ${token}` }, body: form });
     };
-    const imported = () => count("SELECT COUNT(*) AS n FROM kicks WHERE device_id = 'import' AND technique = 'driven' AND recorded_at >= '2026-11-02' AND recorded_at < '2026-11-03'");
+    const imported = () =>
+      count(
+        "SELECT COUNT(*) AS n FROM kicks WHERE device_id = 'import' AND technique = 'driven' AND recorded_at >= '2026-11-02' AND recorded_at < '2026-11-03'",
+      );
     const uploadsCommitted = () => count("SELECT COUNT(*) AS n FROM uploads WHERE filename = 'radar-export.csv' AND status = 'committed'");
     expect(imported()).toBe(0);
     let answered = false;
@@ -163,14 +204,18 @@ describe('faults: crashes and a locked database', () => {
     await inFlight;
     expectSound();
     const afterCrash = imported();
-    console.log(`import SIGKILL: ${midWrite ? 'inside the commit transaction' : 'outside it'}, answered first: ${answered}, kicks after the crash: ${afterCrash}`);
+    console.log(
+      `import SIGKILL: ${midWrite ? 'inside the commit transaction' : 'outside it'}, answered first: ${answered}, kicks after the crash: ${afterCrash}`,
+    );
     expect([0, ROWS]).toContain(afterCrash);
     expect(uploadsCommitted()).toBe(afterCrash === 0 ? 0 : 1);
     if (midWrite && !answered) expect(afterCrash).toBe(0);
     await restart();
     const retry = await upload();
     const body = (await retry.json()) as { alreadyImported: boolean; summary: { kicksCreated: number } };
-    expect(retry.status).withContext(JSON.stringify(body)).toBe(afterCrash === 0 ? 201 : 200);
+    expect(retry.status)
+      .withContext(JSON.stringify(body))
+      .toBe(afterCrash === 0 ? 201 : 200);
     if (afterCrash === 0) expect(body.summary.kicksCreated).toBe(ROWS);
     const replay = (await (await upload()).json()) as { alreadyImported: boolean };
     expect(replay.alreadyImported).toBeTrue();

@@ -48,7 +48,12 @@ const cheapHash = bcrypt.hashSync(DEMO_PASSWORD, 4);
 export function createTestApp(overrides: Partial<AppConfig> = {}): TestApp {
   const dir = mkdtempSync(join(tmpdir(), 'loftline-spec-'));
   const config = loadConfig(
-    { NODE_ENV: 'test', LOFTLINE_DB: join(dir, 'test.db'), LOFTLINE_JWT_SECRET: 'test-secret-0123456789-0123456789-abcdef', LOFTLINE_LOG_LEVEL: 'silent' },
+    {
+      NODE_ENV: 'test',
+      LOFTLINE_DB: join(dir, 'test.db'),
+      LOFTLINE_JWT_SECRET: 'test-secret-0123456789-0123456789-abcdef',
+      LOFTLINE_LOG_LEVEL: 'silent',
+    },
     { bcryptCost: 4, clientDir: join(dir, 'no-client'), ...overrides },
   );
   const db = openDatabase(config.dbPath);

@@ -54,7 +54,9 @@ describe('/api/grounds', () => {
     it('lists the club’s grounds for staff, not for players or other clubs', async () => {
       const res = await request(t.app).get('/api/grounds').set(auth(coach));
       expect(res.status).toBe(200);
-      expect(res.body.grounds).toEqual([jasmine.objectContaining({ id: DEMO_GROUND_ID, name: 'Longmere Lane Training Centre', ...GROUND })]);
+      expect(res.body.grounds).toEqual([
+        jasmine.objectContaining({ id: DEMO_GROUND_ID, name: 'Longmere Lane Training Centre', ...GROUND }),
+      ]);
       expect((await request(t.app).get('/api/grounds').set(auth(player))).status).toBe(403);
       expect((await request(t.app).get('/api/grounds').set(auth(otherCoach))).body.grounds).toEqual([]);
       expect((await request(t.app).get(`/api/grounds/${DEMO_GROUND_ID}/conditions`).set(auth(otherCoach))).status).toBe(404);
@@ -72,9 +74,19 @@ describe('/api/grounds', () => {
         .set(auth(admin))
         .send({ name: 'Hollin Moor (top pitch)', latitude: 53.5, longitude: -2.1, altitudeM: 245, kickingBearingDeg: 270 });
       expect(updated.status).toBe(200);
-      expect(updated.body).toEqual({ id, name: 'Hollin Moor (top pitch)', latitude: 53.5, longitude: -2.1, altitudeM: 245, kickingBearingDeg: 270 });
+      expect(updated.body).toEqual({
+        id,
+        name: 'Hollin Moor (top pitch)',
+        latitude: 53.5,
+        longitude: -2.1,
+        altitudeM: 245,
+        kickingBearingDeg: 270,
+      });
 
-      const bad = await request(t.app).post('/api/grounds').set(auth(admin)).send({ name: '', latitude: 95, longitude: -2.1, altitudeM: 240, kickingBearingDeg: 360 });
+      const bad = await request(t.app)
+        .post('/api/grounds')
+        .set(auth(admin))
+        .send({ name: '', latitude: 95, longitude: -2.1, altitudeM: 240, kickingBearingDeg: 360 });
       expect(bad.status).toBe(400);
       const fields = (bad.body.error.fields as { field: string; message: string }[]).map((f) => f.field).sort();
       expect(fields).toEqual(['kickingBearingDeg', 'latitude', 'name']);
@@ -99,10 +111,27 @@ describe('/api/grounds', () => {
   describe('conditions', () => {
     it('turns a wind from the kicking direction into a headwind, in m/s', async () => {
       // 21.6 km/h = 6 m/s exactly (SI), from the ground's own kicking bearing (WMO from-direction).
-      fake.pin({ ...GROUND, windSpeedKmh: 21.6, windFromDeg: GROUND.kickingBearingDeg, temperatureC: 9.5, relativeHumidityPct: 82, surfacePressureHpa: 1001.4 });
+      fake.pin({
+        ...GROUND,
+        windSpeedKmh: 21.6,
+        windFromDeg: GROUND.kickingBearingDeg,
+        temperatureC: 9.5,
+        relativeHumidityPct: 82,
+        surfacePressureHpa: 1001.4,
+      });
       const c = (await conditions()) as MeasuredConditions;
       expect(c).toEqual(
-        jasmine.objectContaining({ source: 'weather', groundId: DEMO_GROUND_ID, windSpeedMs: 6, windFromDeg: 0, windFromBearingDeg: 205, temperatureC: 9.5, relativeHumidityPct: 82, pressureHpa: 1001.4, altitudeM: 88 }),
+        jasmine.objectContaining({
+          source: 'weather',
+          groundId: DEMO_GROUND_ID,
+          windSpeedMs: 6,
+          windFromDeg: 0,
+          windFromBearingDeg: 205,
+          temperatureC: 9.5,
+          relativeHumidityPct: 82,
+          pressureHpa: 1001.4,
+          altitudeM: 88,
+        }),
       );
       expect(Date.parse(c.observedAt)).toBeLessThanOrEqual(Date.parse(c.fetchedAt));
     });
@@ -121,7 +150,10 @@ describe('/api/grounds', () => {
       expect(fake.calls - before).toBe(1);
       expect(second).toEqual(first);
       // Eleven minutes later the cached answer is stale.
-      t.db.update(groundConditions).set({ fetchedAt: new Date(Date.now() - 11 * 60_000).toISOString() }).run();
+      t.db
+        .update(groundConditions)
+        .set({ fetchedAt: new Date(Date.now() - 11 * 60_000).toISOString() })
+        .run();
       await conditions();
       expect(fake.calls - before).toBe(2);
     });
@@ -173,7 +205,11 @@ describe('/api/grounds', () => {
       try {
         const token = (await signIn(bare.app, DEMO_ACCOUNTS.assistant_coach)).accessToken;
         const res = await request(bare.app).get(`/api/grounds/${DEMO_GROUND_ID}/conditions`).set(auth(token));
-        expect(res.body).toEqual({ source: 'unavailable', groundId: DEMO_GROUND_ID, reason: 'No weather service is configured on this server' });
+        expect(res.body).toEqual({
+          source: 'unavailable',
+          groundId: DEMO_GROUND_ID,
+          reason: 'No weather service is configured on this server',
+        });
       } finally {
         bare.close();
       }
@@ -199,7 +235,17 @@ describe('/api/grounds', () => {
             id: randomUUID(),
             entity: 'training_session',
             op: 'upsert',
-            data: { id, squadId: DEMO_SQUAD_IDS.u16, groundId: DEMO_GROUND_ID, startedAt: new Date().toISOString(), temperatureC: 12, windSpeedMs: 3, windFromDeg: 0, ballSize: 5, conditionsSource: { temperatureC: 'coach', windSpeedMs: 'coach', windFromDeg: 'coach' } },
+            data: {
+              id,
+              squadId: DEMO_SQUAD_IDS.u16,
+              groundId: DEMO_GROUND_ID,
+              startedAt: new Date().toISOString(),
+              temperatureC: 12,
+              windSpeedMs: 3,
+              windFromDeg: 0,
+              ballSize: 5,
+              conditionsSource: { temperatureC: 'coach', windSpeedMs: 'coach', windFromDeg: 'coach' },
+            },
           },
         ],
       });
@@ -209,7 +255,14 @@ describe('/api/grounds', () => {
 
   describe('a session with measured conditions', () => {
     it('stores values, sources and the observation time, and the flight model uses them', async () => {
-      fake.pin({ ...GROUND, windSpeedKmh: 21.6, windFromDeg: GROUND.kickingBearingDeg, temperatureC: 24, relativeHumidityPct: 90, surfacePressureHpa: 985 });
+      fake.pin({
+        ...GROUND,
+        windSpeedKmh: 21.6,
+        windFromDeg: GROUND.kickingBearingDeg,
+        temperatureC: 24,
+        relativeHumidityPct: 90,
+        surfacePressureHpa: 985,
+      });
       const c = (await conditions()) as MeasuredConditions;
       const sessionId = randomUUID();
       const session = {
@@ -224,7 +277,15 @@ describe('/api/grounds', () => {
         windSpeedMs: c.windSpeedMs,
         windFromDeg: c.windFromDeg,
         ballSize: 5,
-        conditionsSource: { temperatureC: 'weather', relativeHumidityPct: 'weather', pressureHpa: 'weather', windSpeedMs: 'weather', windFromDeg: 'weather', altitudeM: 'ground', ballSize: 'default' },
+        conditionsSource: {
+          temperatureC: 'weather',
+          relativeHumidityPct: 'weather',
+          pressureHpa: 'weather',
+          windSpeedMs: 'weather',
+          windFromDeg: 'weather',
+          altitudeM: 'ground',
+          ballSize: 'default',
+        },
         conditionsObservedAt: c.observedAt,
       };
       const kick = {
@@ -253,7 +314,16 @@ describe('/api/grounds', () => {
         });
       expect(res.body.results.map((r: { status: string }) => r.status)).toEqual(['applied', 'applied']);
       const row = t.db.select().from(trainingSessions).where(eq(trainingSessions.id, sessionId)).get()!;
-      expect(row).toEqual(jasmine.objectContaining({ groundId: DEMO_GROUND_ID, windSpeedMs: 6, windFromDeg: 0, pressureHpa: 985, relativeHumidityPct: 90, conditionsObservedAt: c.observedAt }));
+      expect(row).toEqual(
+        jasmine.objectContaining({
+          groundId: DEMO_GROUND_ID,
+          windSpeedMs: 6,
+          windFromDeg: 0,
+          pressureHpa: 985,
+          relativeHumidityPct: 90,
+          conditionsObservedAt: c.observedAt,
+        }),
+      );
       expect(JSON.parse(row.conditionsSourceJson ?? '{}')).toEqual(session.conditionsSource);
 
       // The model reads humidity and pressure: warm, humid, low-pressure air is thinner than ISA.
@@ -267,14 +337,29 @@ describe('/api/grounds', () => {
       expect(stored.stillAirCarryM!).toBeGreaterThan(34);
 
       // An older client's edit (no groundId, no observation time) keeps what the server has.
-      const pulled = await request(t.app).get(`/api/sync/pull?since=${Number(res.body.cursor) - 2}`).set(auth(coach));
-      const synced = (pulled.body.changes as { data: { id: string; groundId: string; conditionsObservedAt: string; version: number } }[]).find((ch) => ch.data.id === sessionId)!;
+      const pulled = await request(t.app)
+        .get(`/api/sync/pull?since=${Number(res.body.cursor) - 2}`)
+        .set(auth(coach));
+      const synced = (
+        pulled.body.changes as { data: { id: string; groundId: string; conditionsObservedAt: string; version: number } }[]
+      ).find((ch) => ch.data.id === sessionId)!;
       expect([synced.data.groundId, synced.data.conditionsObservedAt]).toEqual([DEMO_GROUND_ID, c.observedAt]);
       const { groundId: _g, conditionsObservedAt: _o, ...older } = session;
       const edit = await request(t.app)
         .post('/api/sync/push')
         .set(auth(coach))
-        .send({ deviceId: 'spec', mutations: [{ id: randomUUID(), entity: 'training_session', op: 'upsert', baseVersion: synced.data.version, data: { ...older, notes: 'gusty' } }] });
+        .send({
+          deviceId: 'spec',
+          mutations: [
+            {
+              id: randomUUID(),
+              entity: 'training_session',
+              op: 'upsert',
+              baseVersion: synced.data.version,
+              data: { ...older, notes: 'gusty' },
+            },
+          ],
+        });
       expect(edit.body.results[0].status).toBe('applied');
       const after = t.db.select().from(trainingSessions).where(eq(trainingSessions.id, sessionId)).get()!;
       expect([after.groundId, after.conditionsObservedAt, after.notes]).toEqual([DEMO_GROUND_ID, c.observedAt, 'gusty']);
@@ -286,7 +371,20 @@ describe('/api/grounds', () => {
         .set(auth(coach))
         .send({
           deviceId: 'spec',
-          mutations: [{ id: randomUUID(), entity: 'training_session', op: 'upsert', data: { id: randomUUID(), squadId: DEMO_SQUAD_IDS.u16, groundId: randomUUID(), startedAt: new Date().toISOString(), ballSize: 5 } }],
+          mutations: [
+            {
+              id: randomUUID(),
+              entity: 'training_session',
+              op: 'upsert',
+              data: {
+                id: randomUUID(),
+                squadId: DEMO_SQUAD_IDS.u16,
+                groundId: randomUUID(),
+                startedAt: new Date().toISOString(),
+                ballSize: 5,
+              },
+            },
+          ],
         });
       expect(res.body.results[0]).toEqual(jasmine.objectContaining({ status: 'rejected' }));
       expect(res.body.results[0].error.fields).toEqual([{ field: 'data.groundId', message: 'Unknown training ground' }]);

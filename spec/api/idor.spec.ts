@@ -30,16 +30,53 @@ describe('IDOR: ids of other squads, other clubs and other children', () => {
     t = createTestApp();
     for (const role of Object.keys(DEMO_ACCOUNTS) as Caller[]) tokens.set(role, (await signIn(t.app, DEMO_ACCOUNTS[role])).accessToken);
     const userId = (email: string) => t.db.select().from(users).where(eq(users.email, email)).get()!.id;
-    const staffed = new Set(t.db.select().from(squadStaff).where(eq(squadStaff.userId, userId(DEMO_ACCOUNTS.assistant_coach))).all().map((s) => s.squadId));
+    const staffed = new Set(
+      t.db
+        .select()
+        .from(squadStaff)
+        .where(eq(squadStaff.userId, userId(DEMO_ACCOUNTS.assistant_coach)))
+        .all()
+        .map((s) => s.squadId),
+    );
     const unstaffed = Object.values(DEMO_SQUAD_IDS).find((id) => !staffed.has(id))!;
     const playerOf = (squadId: string) => t.db.select().from(players).where(eq(players.squadId, squadId)).get()!.id;
-    const me = t.db.select().from(players).where(eq(players.userId, userId(DEMO_ACCOUNTS.player))).get()!;
-    const teammate = t.db.select().from(players).where(and(eq(players.squadId, me.squadId), ne(players.id, me.id))).get()!.id;
-    const linked = new Set(t.db.select().from(guardianLinks).where(eq(guardianLinks.guardianUserId, userId(DEMO_ACCOUNTS.guardian))).all().map((l) => l.playerId));
-    const notMyChild = t.db.select().from(players).all().find((p) => !linked.has(p.id) && p.clubId !== OTHER_CLUB.clubId)!.id;
+    const me = t.db
+      .select()
+      .from(players)
+      .where(eq(players.userId, userId(DEMO_ACCOUNTS.player)))
+      .get()!;
+    const teammate = t.db
+      .select()
+      .from(players)
+      .where(and(eq(players.squadId, me.squadId), ne(players.id, me.id)))
+      .get()!.id;
+    const linked = new Set(
+      t.db
+        .select()
+        .from(guardianLinks)
+        .where(eq(guardianLinks.guardianUserId, userId(DEMO_ACCOUNTS.guardian)))
+        .all()
+        .map((l) => l.playerId),
+    );
+    const notMyChild = t.db
+      .select()
+      .from(players)
+      .all()
+      .find((p) => !linked.has(p.id) && p.clubId !== OTHER_CLUB.clubId)!.id;
     const otherGround = randomUUID();
     const stamp = new Date().toISOString();
-    t.db.insert(trainingGrounds).values({ id: otherGround, clubId: OTHER_CLUB.clubId, name: 'Harrow Fen pitch', altitudeM: 3, kickingBearingDeg: 90, createdAt: stamp, updatedAt: stamp }).run();
+    t.db
+      .insert(trainingGrounds)
+      .values({
+        id: otherGround,
+        clubId: OTHER_CLUB.clubId,
+        name: 'Harrow Fen pitch',
+        altitudeM: 3,
+        kickingBearingDeg: 90,
+        createdAt: stamp,
+        updatedAt: stamp,
+      })
+      .run();
 
     const playerRoute: Attempt[] = [
       { as: 'assistant_coach', id: playerOf(unstaffed), whose: 'a player of a squad the assistant does not staff' },
@@ -87,7 +124,9 @@ describe('IDOR: ids of other squads, other clubs and other children', () => {
     for (const [route, list] of Object.entries(attempts)) {
       for (const a of list) {
         const path = route.split(' ')[1]!.replace(/:id|:playerId/, a.id);
-        const res = await request(t.app).get(path).set('Authorization', `Bearer ${tokens.get(a.as)!}`);
+        const res = await request(t.app)
+          .get(path)
+          .set('Authorization', `Bearer ${tokens.get(a.as)!}`);
         tried++;
         if (res.status !== 403 && res.status !== 404) leaks.push(`${route} as ${a.as} with ${a.whose} → ${res.status}`);
       }

@@ -31,12 +31,18 @@ describe('imports', () => {
   afterAll(() => t.close());
 
   const snapshot = () =>
-    ['squads', 'players', 'users', 'guardian_links', 'kicks', 'training_sessions', 'drills', 'uploads'].map((table) => (t.db.$client.prepare(`SELECT COUNT(*) AS n FROM ${table}`).get() as { n: number }).n).join(',');
+    ['squads', 'players', 'users', 'guardian_links', 'kicks', 'training_sessions', 'drills', 'uploads']
+      .map((table) => (t.db.$client.prepare(`SELECT COUNT(*) AS n FROM ${table}`).get() as { n: number }).n)
+      .join(',');
   const roster = (body: string | Buffer, dryRun: boolean, name = 'roster.csv') =>
-    request(t.app).post(`/api/imports/roster?dryRun=${dryRun}`).set('Authorization', `Bearer ${admin}`).attach('file', Buffer.isBuffer(body) ? body : Buffer.from(body, 'utf8'), { filename: name, contentType: 'text/csv' });
+    request(t.app)
+      .post(`/api/imports/roster?dryRun=${dryRun}`)
+      .set('Authorization', `Bearer ${admin}`)
+      .attach('file', Buffer.isBuffer(body) ? body : Buffer.from(body, 'utf8'), { filename: name, contentType: 'text/csv' });
 
   // RFC 4180 §2: CRLF records, quoted fields with commas and line breaks, quotes escaped by doubling.
-  const GOOD = '\uFEFFsquad,name,shirt_number,birth_year,foot,guardian_emails\r\n' +
+  const GOOD =
+    '\uFEFFsquad,name,shirt_number,birth_year,foot,guardian_emails\r\n' +
     'U12 Blue,"Ofori, Kwame",7,2014,left,kwame.parent@example.test\r\n' +
     'U12 Blue,"Tamsin ""Tam"" Reyes",9,2014,right,"tam.mum@example.test;tam.dad@example.test"\r\n' +
     'U12 Blue,"Line\r\nBreak",11,2015,right,\r\n';
@@ -53,7 +59,13 @@ describe('imports', () => {
     expect(commit.status).toBe(201);
     const squad = t.db.select().from(squads).where(eq(squads.name, 'U12 Blue')).get()!;
     expect(squad.ballSize).toBe(4);
-    const names = t.db.select().from(players).where(eq(players.squadId, squad.id)).all().map((p) => p.displayName).sort();
+    const names = t.db
+      .select()
+      .from(players)
+      .where(eq(players.squadId, squad.id))
+      .all()
+      .map((p) => p.displayName)
+      .sort();
     expect(names).toEqual(['Line\r\nBreak', 'Ofori, Kwame', 'Tamsin "Tam" Reyes'].sort());
     const kwame = t.db.select().from(players).where(eq(players.displayName, 'Ofori, Kwame')).get()!;
     expect(kwame.dominantFoot).toBe('left');
@@ -75,7 +87,8 @@ describe('imports', () => {
   });
 
   it('reports each bad row with its row number and column, and a commit with errors writes nothing', async () => {
-    const bad = 'squad,name,shirt_number,birth_year,foot,guardian_emails\nU12 Red,Ana Silva,7,2014,left,ana@example.test\nU12 Red,,140,1850,both,not-an-email\n';
+    const bad =
+      'squad,name,shirt_number,birth_year,foot,guardian_emails\nU12 Red,Ana Silva,7,2014,left,ana@example.test\nU12 Red,,140,1850,both,not-an-email\n';
     const preview = await roster(bad, true);
     expect(preview.body.errors).toEqual(
       jasmine.arrayContaining([
@@ -111,7 +124,12 @@ describe('imports', () => {
       ['missing column', Buffer.from('team,player\nA,B\n'), 'roster.csv', 'file_missing_columns'],
       ['wrong delimiter', Buffer.from('squad|name\nA|B\n'), 'roster.csv', 'file_missing_columns'],
       ['unclosed quote', Buffer.from('squad,name\n"U12,Ana\n'), 'roster.csv', 'file_malformed'],
-      ['binary renamed .csv', Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0, 0, 13, 73, 72, 68, 82]), 'photo.csv', 'file_not_csv'],
+      [
+        'binary renamed .csv',
+        Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0, 0, 13, 73, 72, 68, 82]),
+        'photo.csv',
+        'file_not_csv',
+      ],
       ['not a .csv name', Buffer.from('squad,name\nA,B\n'), 'roster.xlsx', 'file_not_csv'],
       ['50,001 rows', Buffer.from('squad,name\n' + 'U9 X,Someone\n'.repeat(50_001)), 'big.csv', 'file_too_many_rows'],
     ];
@@ -124,12 +142,17 @@ describe('imports', () => {
     const huge = await roster(Buffer.alloc(5 * 1024 * 1024 + 10, 'a'), false);
     expect(huge.status).toBe(400);
     expect(huge.body.error.code).toBe('file_too_large');
-    expect((await request(t.app).post('/api/imports/roster').set('Authorization', `Bearer ${admin}`)).body.error.fields[0].field).toBe('file');
+    expect((await request(t.app).post('/api/imports/roster').set('Authorization', `Bearer ${admin}`)).body.error.fields[0].field).toBe(
+      'file',
+    );
     expect(snapshot()).toBe(before);
   });
 
   it('lets only admins import rosters', async () => {
-    const res = await request(t.app).post('/api/imports/roster').set('Authorization', `Bearer ${head}`).attach('file', Buffer.from(GOOD), 'roster.csv');
+    const res = await request(t.app)
+      .post('/api/imports/roster')
+      .set('Authorization', `Bearer ${head}`)
+      .attach('file', Buffer.from(GOOD), 'roster.csv');
     expect(res.status).toBe(403);
   });
 
@@ -150,7 +173,11 @@ describe('imports', () => {
       return `When,Shirt,Ball speed,Launch,Spin,Carry\r\n2026-11-20 18:05:00,${a!.shirtNumber},90,31,360,33\r\n2026-11-20 18:06:00,${b!.shirtNumber},86.4,29.5,300,30\r\n2026-11-20 18:07:00,99,80,30,300,28\r\n`;
     };
     const post = (tok: string, body: string, m: object, dryRun: boolean) =>
-      request(t.app).post(`/api/imports/kicks?dryRun=${dryRun}`).set('Authorization', `Bearer ${tok}`).field('mapping', JSON.stringify(m)).attach('file', Buffer.from(body), 'device.csv');
+      request(t.app)
+        .post(`/api/imports/kicks?dryRun=${dryRun}`)
+        .set('Authorization', `Bearer ${tok}`)
+        .field('mapping', JSON.stringify(m))
+        .attach('file', Buffer.from(body), 'device.csv');
 
     it('converts units, reports unmatched players, and commits only a clean file', async () => {
       const preview = await post(head, device(), mapping(), true);
@@ -161,7 +188,12 @@ describe('imports', () => {
       const commit = await post(head, clean, mapping(), false);
       expect(commit.status).toBe(201);
       expect(commit.body.summary.kicksCreated).toBe(2);
-      const rows = t.db.select().from(kicks).where(eq(kicks.sessionId, commit.body.summary.sessionId)).all().sort((x, y) => x.recordedAt.localeCompare(y.recordedAt));
+      const rows = t.db
+        .select()
+        .from(kicks)
+        .where(eq(kicks.sessionId, commit.body.summary.sessionId))
+        .all()
+        .sort((x, y) => x.recordedAt.localeCompare(y.recordedAt));
       expect(rows[0]!.measuredSpeedMs).toBeCloseTo(25, 12); // 90 km/h
       expect(rows[0]!.measuredSpinRps).toBeCloseTo(6, 12); // 360 rpm
       expect(rows[0]!.carryM).toBeCloseTo(33 * 0.9144, 2); // 33 yd
@@ -179,7 +211,10 @@ describe('imports', () => {
     it('derives the outcome from the flight model when the device gives no carry', async () => {
       const [a] = u16Shirts();
       const body = `When,Shirt,Ball speed,Launch,Spin\n2026-11-21 18:05:00,${a!.shirtNumber},10,30,0\n`;
-      const m = mapping({ columns: { player: 'Shirt', time: 'When', speed: 'Ball speed', launchAngle: 'Launch', spin: 'Spin' }, units: { speed: 'm/s', spin: 'rev/s', distance: 'm' } });
+      const m = mapping({
+        columns: { player: 'Shirt', time: 'When', speed: 'Ball speed', launchAngle: 'Launch', spin: 'Spin' },
+        units: { speed: 'm/s', spin: 'rev/s', distance: 'm' },
+      });
       const res = await post(head, body, m, false);
       expect(res.status).toBe(201);
       // A 10 m/s launch at 30° carries under 10 m (vacuum range v² sin 2θ / g = 8.8 m), far short of 30 m.
@@ -191,9 +226,14 @@ describe('imports', () => {
     it('applies everything or nothing when the commit fails midway', async () => {
       const [a, b, c] = u16Shirts();
       const body = `When,Shirt,Ball speed,Carry\n2026-11-22 10:00:00,${a!.shirtNumber},20,25\n2026-11-22 10:01:00,${b!.shirtNumber},21,26\n2026-11-22 10:02:00,${c!.shirtNumber},22,27\n`;
-      const m = mapping({ columns: { player: 'Shirt', time: 'When', speed: 'Ball speed', carry: 'Carry' }, units: { speed: 'm/s', spin: 'rev/s', distance: 'm' } });
+      const m = mapping({
+        columns: { player: 'Shirt', time: 'When', speed: 'Ball speed', carry: 'Carry' },
+        units: { speed: 'm/s', spin: 'rev/s', distance: 'm' },
+      });
       const before = snapshot();
-      t.db.$client.exec(`CREATE TEMP TRIGGER fail_third AFTER INSERT ON kicks WHEN NEW.recorded_at LIKE '2026-11-22T10:02%' BEGIN SELECT RAISE(ABORT, 'injected failure'); END;`);
+      t.db.$client.exec(
+        `CREATE TEMP TRIGGER fail_third AFTER INSERT ON kicks WHEN NEW.recorded_at LIKE '2026-11-22T10:02%' BEGIN SELECT RAISE(ABORT, 'injected failure'); END;`,
+      );
       try {
         const res = await post(head, body, m, false);
         expect(res.status).toBe(500);
@@ -221,7 +261,9 @@ describe('imports', () => {
       const [a] = u16Shirts();
       const source = `When,Shirt,Ball speed,Launch,Spin,Carry\r\n2026-11-25 18:05:00,${a!.shirtNumber},90,31,360,33\r\n2026-11-25 18:06:00,${a!.shirtNumber},86.4,29.5,300,30\r\n`;
       expect((await post(head, source, mapping(), false)).status).toBe(201);
-      const exported = await request(t.app).get(`/api/exports/kicks.csv?playerId=${a!.id}&from=2026-11-25&to=2026-11-25`).set('Authorization', `Bearer ${head}`);
+      const exported = await request(t.app)
+        .get(`/api/exports/kicks.csv?playerId=${a!.id}&from=2026-11-25&to=2026-11-25`)
+        .set('Authorization', `Bearer ${head}`);
       expect(exported.status).toBe(200);
       expect(exported.headers['content-type']).toContain('text/csv');
       // RFC 4180 §2: records end in CRLF.
@@ -229,7 +271,15 @@ describe('imports', () => {
       const lines = exported.text.trim().split('\r\n');
       expect(lines.length).toBe(3);
       const m = mapping({
-        columns: { player: 'shirt_number', time: 'recorded_at', speed: 'measured_speed_ms', launchAngle: 'launch_angle_deg', spin: 'measured_spin_rps', carry: 'carry_m', lateral: 'lateral_m' },
+        columns: {
+          player: 'shirt_number',
+          time: 'recorded_at',
+          speed: 'measured_speed_ms',
+          launchAngle: 'launch_angle_deg',
+          spin: 'measured_spin_rps',
+          carry: 'carry_m',
+          lateral: 'lateral_m',
+        },
         units: { speed: 'm/s', spin: 'rev/s', distance: 'm' },
       });
       const before = snapshot();
@@ -249,20 +299,48 @@ describe('imports', () => {
       expect(json.body.player.displayName).toBe(player.displayName);
       expect(json.body.kicks.length).toBeGreaterThan(10);
       expect((await request(t.app).get(`/api/exports/players/${player.id}.json`).set('Authorization', `Bearer ${head}`)).status).toBe(403);
-      const wrongName = await request(t.app).post(`/api/admin/players/${player.id}/erase`).set('Authorization', `Bearer ${admin}`).send({ mode: 'anonymise', confirmName: 'someone else' });
+      const wrongName = await request(t.app)
+        .post(`/api/admin/players/${player.id}/erase`)
+        .set('Authorization', `Bearer ${admin}`)
+        .send({ mode: 'anonymise', confirmName: 'someone else' });
       expect(wrongName.status).toBe(400);
       const kicksBefore = t.db.select().from(kicks).where(eq(kicks.playerId, player.id)).all().length;
-      const erased = await request(t.app).post(`/api/admin/players/${player.id}/erase`).set('Authorization', `Bearer ${admin}`).send({ mode: 'anonymise', confirmName: player.displayName });
+      const erased = await request(t.app)
+        .post(`/api/admin/players/${player.id}/erase`)
+        .set('Authorization', `Bearer ${admin}`)
+        .send({ mode: 'anonymise', confirmName: player.displayName });
       expect(erased.body).toEqual({ erased: true, kicksAffected: kicksBefore });
       const after = t.db.select().from(players).where(eq(players.id, player.id)).get()!;
       expect(after.displayName).toBe('Erased player');
       expect(after.birthDate).toBeNull();
       expect(t.db.select().from(guardianLinks).where(eq(guardianLinks.playerId, player.id)).all()).toEqual([]);
-      expect(t.db.select().from(kicks).where(eq(kicks.playerId, player.id)).all().every((k) => k.carryM === null)).toBeTrue();
-      const other = t.db.select().from(players).where(eq(players.squadId, DEMO_SQUAD_IDS.u14)).all().find((p) => p.id !== player.id && !p.deletedAt)!;
-      await request(t.app).post(`/api/admin/players/${other.id}/erase`).set('Authorization', `Bearer ${admin}`).send({ mode: 'remove', confirmName: other.displayName });
+      expect(
+        t.db
+          .select()
+          .from(kicks)
+          .where(eq(kicks.playerId, player.id))
+          .all()
+          .every((k) => k.carryM === null),
+      ).toBeTrue();
+      const other = t.db
+        .select()
+        .from(players)
+        .where(eq(players.squadId, DEMO_SQUAD_IDS.u14))
+        .all()
+        .find((p) => p.id !== player.id && !p.deletedAt)!;
+      await request(t.app)
+        .post(`/api/admin/players/${other.id}/erase`)
+        .set('Authorization', `Bearer ${admin}`)
+        .send({ mode: 'remove', confirmName: other.displayName });
       expect(t.db.select().from(kicks).where(eq(kicks.playerId, other.id)).all()).toEqual([]);
-      expect(t.db.select().from(auditLog).where(eq(auditLog.entityId, other.id)).all().map((a) => a.action)).toContain('erasure.remove');
+      expect(
+        t.db
+          .select()
+          .from(auditLog)
+          .where(eq(auditLog.entityId, other.id))
+          .all()
+          .map((a) => a.action),
+      ).toContain('erasure.remove');
     });
   });
 });

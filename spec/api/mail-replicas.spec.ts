@@ -15,7 +15,14 @@ describe('mail outbox flushed by two processes at once', () => {
     try {
       const before = t.db.select().from(capturedMail).all().length;
       for (let i = 0; i < 12; i++) {
-        t.mailer.queue({ clubId: null, kind: 'invite', dedupeKey: `replica-spec-${i}`, to: `person${i}@example.test`, subject: `Invitation ${i}`, text: 'Hello' });
+        t.mailer.queue({
+          clubId: null,
+          kind: 'invite',
+          dedupeKey: `replica-spec-${i}`,
+          to: `person${i}@example.test`,
+          subject: `Invitation ${i}`,
+          text: 'Hello',
+        });
       }
       const [a, b] = await Promise.all([t.mailer.flush(), other.flush()]);
       expect(a + b).toBe(12);
@@ -24,7 +31,13 @@ describe('mail outbox flushed by two processes at once', () => {
       const received = t.db.select().from(capturedMail).all().slice(before);
       expect(received.length).toBe(12);
       expect(new Set(received.map((m) => m.subject)).size).toBe(12);
-      expect(t.db.select().from(mailOutbox).all().filter((m) => m.dedupeKey.startsWith('replica-spec-') && m.status !== 'sent')).toEqual([]);
+      expect(
+        t.db
+          .select()
+          .from(mailOutbox)
+          .all()
+          .filter((m) => m.dedupeKey.startsWith('replica-spec-') && m.status !== 'sent'),
+      ).toEqual([]);
     } finally {
       other.close();
     }

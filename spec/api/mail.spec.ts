@@ -19,7 +19,9 @@ describe('Family digest over SMTP', () => {
   let admin: string;
   const captured = () => t.db.select().from(capturedMail).all();
   const digestsCaptured = () =>
-    captured().filter((m) => (JSON.parse(m.headersJson) as Record<string, string>)['list-unsubscribe-post'] && m.textBody.includes(`week of ${LAST_WEEK}`));
+    captured().filter(
+      (m) => (JSON.parse(m.headersJson) as Record<string, string>)['list-unsubscribe-post'] && m.textBody.includes(`week of ${LAST_WEEK}`),
+    );
   let firstRun: request.Response;
   let eligible: { guardianEmail: string }[];
   let totalLinks: number;
@@ -28,10 +30,22 @@ describe('Family digest over SMTP', () => {
   beforeAll(async () => {
     t = await createMailTestApp();
     admin = (await signIn(t.app, DEMO_ACCOUNTS.admin)).accessToken;
-    const all = t.db.select({ link: guardianLinks, player: players, guardian: users }).from(guardianLinks).innerJoin(players, eq(players.id, guardianLinks.playerId)).innerJoin(users, eq(users.id, guardianLinks.guardianUserId)).all();
+    const all = t.db
+      .select({ link: guardianLinks, player: players, guardian: users })
+      .from(guardianLinks)
+      .innerJoin(players, eq(players.id, guardianLinks.playerId))
+      .innerJoin(users, eq(users.id, guardianLinks.guardianUserId))
+      .all();
     totalLinks = all.length;
     eligible = all
-      .filter((r) => r.link.consentAt && !r.link.consentWithdrawnAt && r.link.digestOptIn && !adultOn(r.player.birthDate, LAST_WEEK) && !r.guardian.disabledAt)
+      .filter(
+        (r) =>
+          r.link.consentAt &&
+          !r.link.consentWithdrawnAt &&
+          r.link.digestOptIn &&
+          !adultOn(r.player.birthDate, LAST_WEEK) &&
+          !r.guardian.disabledAt,
+      )
       .map((r) => ({ guardianEmail: r.guardian.email }));
     firstRun = await request(t.app).post('/api/digests/run').set('Authorization', `Bearer ${admin}`).send({ weekStart: LAST_WEEK });
   }, 30_000);
@@ -56,7 +70,13 @@ describe('Family digest over SMTP', () => {
     for (const m of digestsCaptured()) {
       const to = (JSON.parse(m.toJson) as string[])[0]!;
       const guardian = t.db.select().from(users).where(eq(users.email, to)).get()!;
-      const mine = t.db.select({ p: players }).from(guardianLinks).innerJoin(players, eq(players.id, guardianLinks.playerId)).where(eq(guardianLinks.guardianUserId, guardian.id)).all().map((r) => r.p);
+      const mine = t.db
+        .select({ p: players })
+        .from(guardianLinks)
+        .innerJoin(players, eq(players.id, guardianLinks.playerId))
+        .where(eq(guardianLinks.guardianUserId, guardian.id))
+        .all()
+        .map((r) => r.p);
       const child = mine.find((p) => m.subject.startsWith(firstNameOf(p.displayName)))!;
       expect(child).withContext(m.subject).toBeDefined();
       expect(m.textBody).toContain(firstNameOf(child.displayName));
@@ -65,7 +85,9 @@ describe('Family digest over SMTP', () => {
       const afterGreeting = m.textBody.slice(m.textBody.indexOf('\n'));
       expect(afterGreeting).not.toContain(surname);
       for (const other of everyone.filter((p) => p.id !== child.id && firstNameOf(p.displayName) !== firstNameOf(child.displayName))) {
-        expect(afterGreeting).withContext(`${m.subject} mentions ${other.displayName}`).not.toMatch(new RegExp(`\\b${firstNameOf(other.displayName)}\\b`));
+        expect(afterGreeting)
+          .withContext(`${m.subject} mentions ${other.displayName}`)
+          .not.toMatch(new RegExp(`\\b${firstNameOf(other.displayName)}\\b`));
       }
       expect(m.htmlBody).toContain('src="cid:');
       expect(m.attachmentCount).toBe(1);
@@ -89,7 +111,11 @@ describe('Family digest over SMTP', () => {
     expect(again.familySent).toBe(0);
     expect(again.squadWeekSent).toBe(0);
     expect(captured().length).toBe(before);
-    const keys = t.db.select({ k: mailOutbox.dedupeKey }).from(mailOutbox).all().map((r) => r.k);
+    const keys = t.db
+      .select({ k: mailOutbox.dedupeKey })
+      .from(mailOutbox)
+      .all()
+      .map((r) => r.k);
     expect(new Set(keys).size).toBe(keys.length);
   });
 
@@ -97,10 +123,16 @@ describe('Family digest over SMTP', () => {
     const mail = digestsCaptured().find((m) => (JSON.parse(m.toJson) as string[])[0] === DEMO_ACCOUNTS.guardian)!;
     const url = new URL(/^<([^>]+)>$/.exec((JSON.parse(mail.headersJson) as Record<string, string>)['list-unsubscribe']!)![1]!);
     // RFC 8058 §3.2: the client POSTs "List-Unsubscribe=One-Click" to the URI, without credentials.
-    const first = await request(t.app).post(url.pathname + url.search).type('form').send('List-Unsubscribe=One-Click');
+    const first = await request(t.app)
+      .post(url.pathname + url.search)
+      .type('form')
+      .send('List-Unsubscribe=One-Click');
     expect(first.status).toBe(200);
     expect(first.body.unsubscribed).toBeTrue();
-    const second = await request(t.app).post(url.pathname + url.search).type('form').send('List-Unsubscribe=One-Click');
+    const second = await request(t.app)
+      .post(url.pathname + url.search)
+      .type('form')
+      .send('List-Unsubscribe=One-Click');
     expect(second.status).toBe(200);
     const forged = await request(t.app).post(url.pathname + url.search.replace(/.$/, (c) => (c === 'A' ? 'B' : 'A')));
     expect(forged.status).toBe(400);
@@ -111,7 +143,13 @@ describe('Family digest over SMTP', () => {
     const toDemo = captured().filter((m) => (JSON.parse(m.toJson) as string[])[0] === DEMO_ACCOUNTS.guardian);
     expect(toDemo.length).toBe(1);
     expect(captured().some((m) => m.textBody.includes(`week of ${nextWeek}`))).toBeTrue();
-    expect(t.db.select().from(auditLog).where(and(eq(auditLog.action, 'digest.unsubscribed'), eq(auditLog.userId, guardianId))).all().length).toBe(1);
+    expect(
+      t.db
+        .select()
+        .from(auditLog)
+        .where(and(eq(auditLog.action, 'digest.unsubscribed'), eq(auditLog.userId, guardianId)))
+        .all().length,
+    ).toBe(1);
   });
 
   it('sends the Squad week summary to head coaches once', () => {
@@ -137,18 +175,46 @@ describe('digests about adult players', () => {
 
   it('sends none about a player over 18 until the player opts in themselves', async () => {
     t = await createMailTestApp();
-    const adult = t.db.select({ p: players, u: users }).from(players).innerJoin(users, eq(users.id, players.userId)).all().find((r) => r.u.email !== DEMO_ACCOUNTS.player && r.u.role === 'player')!;
+    const adult = t.db
+      .select({ p: players, u: users })
+      .from(players)
+      .innerJoin(users, eq(users.id, players.userId))
+      .all()
+      .find((r) => r.u.email !== DEMO_ACCOUNTS.player && r.u.role === 'player')!;
     expect(adultOn(adult.p.birthDate, LAST_WEEK)).toBeTrue();
     const guardian = t.db.select().from(users).where(eq(users.email, DEMO_ACCOUNTS.guardian)).get()!;
-    t.db.insert(guardianLinks).values({ id: '00000000-0000-4000-8000-0000000000e1', guardianUserId: guardian.id, playerId: adult.p.id, consentAt: '2026-11-01T10:00:00.000Z', consentRecordedBy: guardian.id, consentTextVersion: CONSENT_TEXT.version, digestOptIn: true }).run();
-    const aboutAdult = () => t.db.select().from(mailOutbox).all().filter((m) => m.dedupeKey.startsWith('family_digest:00000000-0000-4000-8000-0000000000e1'));
+    t.db
+      .insert(guardianLinks)
+      .values({
+        id: '00000000-0000-4000-8000-0000000000e1',
+        guardianUserId: guardian.id,
+        playerId: adult.p.id,
+        consentAt: '2026-11-01T10:00:00.000Z',
+        consentRecordedBy: guardian.id,
+        consentTextVersion: CONSENT_TEXT.version,
+        digestOptIn: true,
+      })
+      .run();
+    const aboutAdult = () =>
+      t.db
+        .select()
+        .from(mailOutbox)
+        .all()
+        .filter((m) => m.dedupeKey.startsWith('family_digest:00000000-0000-4000-8000-0000000000e1'));
     await t.digests.run({ clubId: guardian.clubId, weekStart: LAST_WEEK });
     expect(aboutAdult().length).toBe(0);
     const player = await signIn(t.app, adult.u.email);
-    expect((await request(t.app).get('/api/me/digest-opt-in').set('Authorization', `Bearer ${player.accessToken}`)).body).toEqual({ optIn: false });
-    const bad = await request(t.app).put('/api/me/digest-opt-in').set('Authorization', `Bearer ${player.accessToken}`).send({ optIn: 'yes' });
+    expect((await request(t.app).get('/api/me/digest-opt-in').set('Authorization', `Bearer ${player.accessToken}`)).body).toEqual({
+      optIn: false,
+    });
+    const bad = await request(t.app)
+      .put('/api/me/digest-opt-in')
+      .set('Authorization', `Bearer ${player.accessToken}`)
+      .send({ optIn: 'yes' });
     expect(bad.status).toBe(400);
-    expect((await request(t.app).put('/api/me/digest-opt-in').set('Authorization', `Bearer ${player.accessToken}`).send({ optIn: true })).body).toEqual({ optIn: true });
+    expect(
+      (await request(t.app).put('/api/me/digest-opt-in').set('Authorization', `Bearer ${player.accessToken}`).send({ optIn: true })).body,
+    ).toEqual({ optIn: true });
     const nextWeek = new Date(Date.parse(LAST_WEEK) + 7 * 86_400_000).toISOString().slice(0, 10);
     await t.digests.run({ clubId: guardian.clubId, weekStart: nextWeek });
     expect(aboutAdult().length).toBe(1);
@@ -167,7 +233,8 @@ describe('consent and digest opt-in', () => {
     linkId = res.body.links[0].id;
   });
   afterAll(() => t.close());
-  const send = (method: 'post' | 'put', path: string, body: object) => request(t.app)[method](path).set('Authorization', `Bearer ${guardian}`).send(body);
+  const send = (method: 'post' | 'put', path: string, body: object) =>
+    request(t.app)[method](path).set('Authorization', `Bearer ${guardian}`).send(body);
 
   it('withdraws consent (and with it the opt-in), refuses an opt-in without consent, and records consent with its text version', async () => {
     const withdrawn = await send('post', `/api/guardians/links/${linkId}/consent`, { consent: false });
@@ -186,15 +253,28 @@ describe('consent and digest opt-in', () => {
     expect(given.body.link.consentTextVersion).toBe(CONSENT_TEXT.version);
     expect(given.body.link.consentRecordedByName).toBeTruthy();
     expect((await send('put', `/api/guardians/links/${linkId}/digest`, { optIn: true })).body.link.digestOptIn).toBeTrue();
-    const actions = t.db.select().from(auditLog).where(eq(auditLog.entityId, linkId)).all().map((a) => a.action);
+    const actions = t.db
+      .select()
+      .from(auditLog)
+      .where(eq(auditLog.entityId, linkId))
+      .all()
+      .map((a) => a.action);
     expect(actions).toEqual(jasmine.arrayContaining(['consent.withdrawn', 'consent.given', 'digest.opted_in']));
   });
 
   it('refuses consent changes to links that are not the guardian’s own', async () => {
-    const other = t.db.select().from(guardianLinks).where(isNotNull(guardianLinks.consentAt)).all().find((l) => l.id !== linkId)!;
+    const other = t.db
+      .select()
+      .from(guardianLinks)
+      .where(isNotNull(guardianLinks.consentAt))
+      .all()
+      .find((l) => l.id !== linkId)!;
     expect((await send('post', `/api/guardians/links/${other.id}/consent`, { consent: false })).status).toBe(404);
     const admin = (await signIn(t.app, DEMO_ACCOUNTS.admin)).accessToken;
-    expect((await request(t.app).post(`/api/guardians/links/${linkId}/consent`).set('Authorization', `Bearer ${admin}`).send({ consent: false })).status).toBe(403);
+    expect(
+      (await request(t.app).post(`/api/guardians/links/${linkId}/consent`).set('Authorization', `Bearer ${admin}`).send({ consent: false }))
+        .status,
+    ).toBe(403);
   });
 
   it('shows the guardian their child’s summary and nothing of other players', async () => {
@@ -202,15 +282,27 @@ describe('consent and digest opt-in', () => {
     const summary = await request(t.app).get(`/api/guardians/children/${link.playerId}/summary`).set('Authorization', `Bearer ${guardian}`);
     expect(summary.status).toBe(200);
     expect(summary.body.firstName).toBe(link.playerFirstName);
-    const someoneElse = t.db.select().from(players).all().find((p) => p.id !== link.playerId)!;
-    expect((await request(t.app).get(`/api/guardians/children/${someoneElse.id}/summary`).set('Authorization', `Bearer ${guardian}`)).status).toBe(404);
+    const someoneElse = t.db
+      .select()
+      .from(players)
+      .all()
+      .find((p) => p.id !== link.playerId)!;
+    expect(
+      (await request(t.app).get(`/api/guardians/children/${someoneElse.id}/summary`).set('Authorization', `Bearer ${guardian}`)).status,
+    ).toBe(404);
   });
 });
 
 describe('invite and password reset over SMTP', () => {
   let t: MailTestApp;
   let admin: string;
-  const lastMailTo = (email: string) => t.db.select().from(capturedMail).all().filter((m) => (JSON.parse(m.toJson) as string[]).includes(email)).at(-1);
+  const lastMailTo = (email: string) =>
+    t.db
+      .select()
+      .from(capturedMail)
+      .all()
+      .filter((m) => (JSON.parse(m.toJson) as string[]).includes(email))
+      .at(-1);
   const tokenIn = (text: string, path: string) => new RegExp(`${path}\\?token=([\\w-]+)`).exec(text)![1]!;
 
   beforeAll(async () => {
@@ -221,7 +313,10 @@ describe('invite and password reset over SMTP', () => {
 
   it('invites a coach, who follows the link, sets a password and is signed in; the link then refuses reuse', async () => {
     const squads = (await request(t.app).get('/api/squads').set('Authorization', `Bearer ${admin}`)).body.squads;
-    const res = await request(t.app).post('/api/admin/invites').set('Authorization', `Bearer ${admin}`).send({ email: 'new.coach@kestrel-vale.test', displayName: 'Nova Coach', role: 'assistant_coach', squadIds: [squads[0].id] });
+    const res = await request(t.app)
+      .post('/api/admin/invites')
+      .set('Authorization', `Bearer ${admin}`)
+      .send({ email: 'new.coach@kestrel-vale.test', displayName: 'Nova Coach', role: 'assistant_coach', squadIds: [squads[0].id] });
     expect(res.status).toBe(201);
     await t.mailer.flush();
     const mail = lastMailTo('new.coach@kestrel-vale.test')!;
@@ -243,11 +338,16 @@ describe('invite and password reset over SMTP', () => {
     const reuse = await request(t.app).post('/api/auth/accept-invite').send({ token, password: 'another-long-password' });
     expect(reuse.status).toBe(400);
     expect(reuse.body.error.code).toBe('invite_used');
-    expect((await request(t.app).post('/api/auth/login').send({ email: 'new.coach@kestrel-vale.test', password: 'a-long-new-password' })).status).toBe(200);
+    expect(
+      (await request(t.app).post('/api/auth/login').send({ email: 'new.coach@kestrel-vale.test', password: 'a-long-new-password' })).status,
+    ).toBe(200);
   });
 
   it('refuses an expired invitation with a clear message', async () => {
-    await request(t.app).post('/api/admin/invites').set('Authorization', `Bearer ${admin}`).send({ email: 'late@kestrel-vale.test', displayName: 'Late Comer', role: 'assistant_coach' });
+    await request(t.app)
+      .post('/api/admin/invites')
+      .set('Authorization', `Bearer ${admin}`)
+      .send({ email: 'late@kestrel-vale.test', displayName: 'Late Comer', role: 'assistant_coach' });
     await t.mailer.flush();
     const token = tokenIn(lastMailTo('late@kestrel-vale.test')!.textBody, '/accept-invite');
     t.db.update(accountTokens).set({ expiresAt: '2000-01-01T00:00:00.000Z' }).where(isNull(accountTokens.usedAt)).run();
@@ -267,8 +367,12 @@ describe('invite and password reset over SMTP', () => {
     expect(lastMailTo('nobody@kestrel-vale.test')).toBeUndefined();
     const token = tokenIn(lastMailTo(DEMO_ACCOUNTS.head_coach)!.textBody, '/reset-password');
     expect((await request(t.app).post('/api/auth/reset-password').send({ token, password: 'my-brand-new-password' })).status).toBe(204);
-    expect((await request(t.app).post('/api/auth/login').send({ email: DEMO_ACCOUNTS.head_coach, password: DEMO_PASSWORD })).status).toBe(401);
-    expect((await request(t.app).post('/api/auth/login').send({ email: DEMO_ACCOUNTS.head_coach, password: 'my-brand-new-password' })).status).toBe(200);
+    expect((await request(t.app).post('/api/auth/login').send({ email: DEMO_ACCOUNTS.head_coach, password: DEMO_PASSWORD })).status).toBe(
+      401,
+    );
+    expect(
+      (await request(t.app).post('/api/auth/login').send({ email: DEMO_ACCOUNTS.head_coach, password: 'my-brand-new-password' })).status,
+    ).toBe(200);
     const reuse = await request(t.app).post('/api/auth/reset-password').send({ token, password: 'yet-another-password' });
     expect(reuse.body.error.code).toBe('reset_used');
   });

@@ -9,8 +9,24 @@ import { createTestApp, OTHER_CLUB, signIn, type TestApp } from './fixture';
 /** Hand-made kicks for the other club's player, with every expected figure worked out by hand below. */
 function insertFixture(t: TestApp): void {
   const sessionId = randomUUID();
-  t.db.insert(trainingSessions).values({ id: sessionId, clubId: OTHER_CLUB.clubId, squadId: OTHER_CLUB.squadId, startedAt: '2026-11-03T18:00:00Z', ballSize: 5, changeSeq: nextChangeSeq(t.db) }).run();
-  const kick = (recordedAt: string, technique: 'lofted' | 'driven', outcome: string, carryM: number | null, deletedAt: string | null = null) => ({
+  t.db
+    .insert(trainingSessions)
+    .values({
+      id: sessionId,
+      clubId: OTHER_CLUB.clubId,
+      squadId: OTHER_CLUB.squadId,
+      startedAt: '2026-11-03T18:00:00Z',
+      ballSize: 5,
+      changeSeq: nextChangeSeq(t.db),
+    })
+    .run();
+  const kick = (
+    recordedAt: string,
+    technique: 'lofted' | 'driven',
+    outcome: string,
+    carryM: number | null,
+    deletedAt: string | null = null,
+  ) => ({
     id: randomUUID(),
     clubId: OTHER_CLUB.clubId,
     sessionId,
@@ -25,19 +41,22 @@ function insertFixture(t: TestApp): void {
     deletedAt,
     changeSeq: nextChangeSeq(t.db),
   });
-  t.db.insert(kicks).values([
-    // ISO week starting Monday 2026-11-02.
-    kick('2026-11-02T00:00:00.000Z', 'lofted', 'short', 30),
-    kick('2026-11-03T18:10:00.000Z', 'lofted', 'short', 32),
-    kick('2026-11-03T18:11:00.000Z', 'lofted', 'on_target', 35),
-    kick('2026-11-05T18:12:00.000Z', 'lofted', 'on_target', 36),
-    kick('2026-11-08T23:59:59.000Z', 'lofted', 'long', null),
-    kick('2026-11-04T18:13:00.000Z', 'lofted', 'on_target', 50, '2026-11-04T19:00:00.000Z'), // voided: ignored
-    // ISO week starting Monday 2026-11-09 (Sunday 23:30 still belongs to it).
-    kick('2026-11-09T10:00:00.000Z', 'lofted', 'on_target', 34),
-    kick('2026-11-10T10:00:00.000Z', 'lofted', 'on_target', 35),
-    kick('2026-11-15T23:30:00.000Z', 'driven', 'left', 25),
-  ]).run();
+  t.db
+    .insert(kicks)
+    .values([
+      // ISO week starting Monday 2026-11-02.
+      kick('2026-11-02T00:00:00.000Z', 'lofted', 'short', 30),
+      kick('2026-11-03T18:10:00.000Z', 'lofted', 'short', 32),
+      kick('2026-11-03T18:11:00.000Z', 'lofted', 'on_target', 35),
+      kick('2026-11-05T18:12:00.000Z', 'lofted', 'on_target', 36),
+      kick('2026-11-08T23:59:59.000Z', 'lofted', 'long', null),
+      kick('2026-11-04T18:13:00.000Z', 'lofted', 'on_target', 50, '2026-11-04T19:00:00.000Z'), // voided: ignored
+      // ISO week starting Monday 2026-11-09 (Sunday 23:30 still belongs to it).
+      kick('2026-11-09T10:00:00.000Z', 'lofted', 'on_target', 34),
+      kick('2026-11-10T10:00:00.000Z', 'lofted', 'on_target', 35),
+      kick('2026-11-15T23:30:00.000Z', 'driven', 'left', 25),
+    ])
+    .run();
 }
 
 describe('player progress', () => {
@@ -110,7 +129,12 @@ describe('player progress', () => {
     const own200 = await progress(p.accessToken, own.id);
     expect(own200.status).toBe(200);
     expect(own200.body.weeks.length).toBeGreaterThan(0);
-    const teammate = t.db.select().from(players).where(and(eq(players.squadId, own.squadId))).all().find((x) => x.id !== own.id)!;
+    const teammate = t.db
+      .select()
+      .from(players)
+      .where(and(eq(players.squadId, own.squadId)))
+      .all()
+      .find((x) => x.id !== own.id)!;
     expect((await progress(p.accessToken, teammate.id)).status).toBe(404);
     const g = await signIn(t.app, DEMO_ACCOUNTS.guardian);
     const guardianId = t.db.select().from(users).where(eq(users.email, DEMO_ACCOUNTS.guardian)).get()!.id;

@@ -97,7 +97,10 @@ describe('route × role security matrix', () => {
     let req = request(app)[method](pathFor(route));
     if (token) req = req.set('Authorization', `Bearer ${token}`);
     // Harmless bodies: enough to pass authorisation, never enough to change anything.
-    if (route === 'DELETE /api/guardians/links/:id') req = request(app).delete(`/api/guardians/links/${randomUUID()}`).set('Authorization', `Bearer ${token ?? ''}`);
+    if (route === 'DELETE /api/guardians/links/:id')
+      req = request(app)
+        .delete(`/api/guardians/links/${randomUUID()}`)
+        .set('Authorization', `Bearer ${token ?? ''}`);
     const res = method === 'get' || method === 'delete' ? await req : await req.send({ unexpected: true });
     return res.status;
   }

@@ -22,7 +22,9 @@ describe('scoping of squads and players', () => {
 
   async function get<T>(email: string, path: string): Promise<{ status: number; body: T }> {
     if (!tokens.has(email)) tokens.set(email, (await signIn(t.app, email)).accessToken);
-    const res = await request(t.app).get(path).set('Authorization', `Bearer ${tokens.get(email)}`);
+    const res = await request(t.app)
+      .get(path)
+      .set('Authorization', `Bearer ${tokens.get(email)}`);
     return { status: res.status, body: res.body as T };
   }
   const squadsOf = async (email: string) => (await get<{ squads: SquadRow[] }>(email, '/api/squads')).body.squads;
@@ -39,7 +41,11 @@ describe('scoping of squads and players', () => {
     const s = await squadsOf('admin@kestrel-vale.test');
     expect(s.length).toBe(3);
     const p = await playersOf('admin@kestrel-vale.test');
-    const clubPlayers = t.db.select().from(players).where(and(eq(players.clubId, demoClubId()), isNull(players.deletedAt))).all();
+    const clubPlayers = t.db
+      .select()
+      .from(players)
+      .where(and(eq(players.clubId, demoClubId()), isNull(players.deletedAt)))
+      .all();
     expect(p.length).toBe(clubPlayers.length);
     expect(p.length).toBeGreaterThanOrEqual(40);
     expect(p.some((x) => x.id === OTHER_CLUB.playerId)).toBeFalse();
@@ -52,25 +58,45 @@ describe('scoping of squads and players', () => {
     const u14 = s.find((x) => x.ageGroup === 'U14')!;
     expect(u14.ballSize).toBe(4);
     for (const squad of s) {
-      const n = t.db.select().from(players).where(and(eq(players.squadId, squad.id), isNull(players.deletedAt))).all().length;
+      const n = t.db
+        .select()
+        .from(players)
+        .where(and(eq(players.squadId, squad.id), isNull(players.deletedAt)))
+        .all().length;
       expect(squad.playerCount).toBe(n);
     }
   });
 
   it('shows the assistant coach exactly the squads in squad_staff and their players', async () => {
     const email = 'assistant.coach@kestrel-vale.test';
-    const staffed = t.db.select().from(squadStaff).where(eq(squadStaff.userId, userId(email))).all().map((r) => r.squadId).sort();
+    const staffed = t.db
+      .select()
+      .from(squadStaff)
+      .where(eq(squadStaff.userId, userId(email)))
+      .all()
+      .map((r) => r.squadId)
+      .sort();
     const s = await squadsOf(email);
     expect(s.map((x) => x.id).sort()).toEqual(staffed);
     expect(s.length).toBeLessThan(3);
     const p = await playersOf(email);
-    const expected = t.db.select().from(players).where(inArray(players.squadId, staffed)).all().map((r) => r.id).sort();
+    const expected = t.db
+      .select()
+      .from(players)
+      .where(inArray(players.squadId, staffed))
+      .all()
+      .map((r) => r.id)
+      .sort();
     expect(p.map((x) => x.id).sort()).toEqual(expected);
   });
 
   it('shows a player only themselves and their own squad', async () => {
     const email = 'player@kestrel-vale.test';
-    const own = t.db.select().from(players).where(eq(players.userId, userId(email))).get()!;
+    const own = t.db
+      .select()
+      .from(players)
+      .where(eq(players.userId, userId(email)))
+      .get()!;
     const p = await playersOf(email);
     expect(p.map((x) => x.id)).toEqual([own.id]);
     const s = await squadsOf(email);
@@ -80,8 +106,17 @@ describe('scoping of squads and players', () => {
 
   it('never lets a player read another player', async () => {
     const email = 'player@kestrel-vale.test';
-    const own = t.db.select().from(players).where(eq(players.userId, userId(email))).get()!;
-    const teammate = t.db.select().from(players).where(eq(players.squadId, own.squadId)).all().find((x) => x.id !== own.id)!;
+    const own = t.db
+      .select()
+      .from(players)
+      .where(eq(players.userId, userId(email)))
+      .get()!;
+    const teammate = t.db
+      .select()
+      .from(players)
+      .where(eq(players.squadId, own.squadId))
+      .all()
+      .find((x) => x.id !== own.id)!;
     expect((await get(email, `/api/players/${teammate.id}`)).status).toBe(404);
     expect((await get<{ players: PlayerRow[] }>(email, `/api/players?squadId=${own.squadId}`)).body.players.length).toBe(1);
     expect((await get(email, `/api/players/${own.id}`)).status).toBe(200);
@@ -89,7 +124,11 @@ describe('scoping of squads and players', () => {
 
   it('shows a guardian only their linked child and no squads', async () => {
     const email = 'guardian@kestrel-vale.test';
-    const links = t.db.select().from(guardianLinks).where(eq(guardianLinks.guardianUserId, userId(email))).all();
+    const links = t.db
+      .select()
+      .from(guardianLinks)
+      .where(eq(guardianLinks.guardianUserId, userId(email)))
+      .all();
     expect(links.length).toBe(1);
     const p = await playersOf(email);
     expect(p.map((x) => x.id)).toEqual([links[0].playerId]);

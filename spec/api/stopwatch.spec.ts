@@ -14,7 +14,15 @@ describe('hang-time stopwatch: kicks, club timing settings and spin estimates', 
   let coach: string;
   let admin: string;
   let playerId: string;
-  const session = { temperatureC: 12, altitudeM: null, relativeHumidityPct: null, pressureHpa: null, windSpeedMs: null, windFromDeg: null, ballSize: 5 };
+  const session = {
+    temperatureC: 12,
+    altitudeM: null,
+    relativeHumidityPct: null,
+    pressureHpa: null,
+    windSpeedMs: null,
+    windFromDeg: null,
+    ballSize: 5,
+  };
 
   const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
   const push = (mutations: unknown[]) => request(t.app).post('/api/sync/push').set(auth(coach)).send({ deviceId: 'phone-sw', mutations });
@@ -49,7 +57,11 @@ describe('hang-time stopwatch: kicks, club timing settings and spin estimates', 
     coach = (await signIn(t.app, DEMO_ACCOUNTS.assistant_coach)).accessToken;
     admin = (await signIn(t.app, DEMO_ACCOUNTS.admin)).accessToken;
     // A U16 player without an account of their own, so the player account must not see them.
-    playerId = t.db.select().from(players).where(and(eq(players.squadId, DEMO_SQUAD_IDS.u16), isNull(players.deletedAt), isNull(players.userId))).all()[0]!.id;
+    playerId = t.db
+      .select()
+      .from(players)
+      .where(and(eq(players.squadId, DEMO_SQUAD_IDS.u16), isNull(players.deletedAt), isNull(players.userId)))
+      .all()[0]!.id;
   });
   afterAll(() => t.close());
 
@@ -72,7 +84,11 @@ describe('hang-time stopwatch: kicks, club timing settings and spin estimates', 
 
   it('rejects a stopwatch reading outside 0.2–10 s naming data.hangTimeS', async () => {
     const sessionId = randomUUID();
-    const res = await push([sessionMutation(sessionId), kickMutation(sessionId, { hangTimeS: 0.05 }), kickMutation(sessionId, { hangTimeS: 'fast' })]);
+    const res = await push([
+      sessionMutation(sessionId),
+      kickMutation(sessionId, { hangTimeS: 0.05 }),
+      kickMutation(sessionId, { hangTimeS: 'fast' }),
+    ]);
     const [, tooShort, notNumber] = (res.body as PushResponse).results;
     expect(tooShort!.status).toBe('rejected');
     expect(tooShort!.error!.fields!.map((f) => f.field)).toContain('data.hangTimeS');

@@ -11,7 +11,11 @@ describe('sync push and pull', () => {
   let token: string;
 
   const playerOf = (squadId: string) =>
-    t.db.select().from(players).where(and(eq(players.squadId, squadId), isNull(players.deletedAt))).all();
+    t.db
+      .select()
+      .from(players)
+      .where(and(eq(players.squadId, squadId), isNull(players.deletedAt)))
+      .all();
 
   function sessionMutation(id = randomUUID(), squadId = DEMO_SQUAD_IDS.u16) {
     return {
@@ -218,7 +222,11 @@ describe('sync push and pull', () => {
 
   it('lets a player pull only their own kicks', async () => {
     const tok = (await signIn(t.app, DEMO_ACCOUNTS.player)).accessToken;
-    const own = t.db.select().from(players).where(eq(players.userId, (await signIn(t.app, DEMO_ACCOUNTS.player)).user.id)).get()!;
+    const own = t.db
+      .select()
+      .from(players)
+      .where(eq(players.userId, (await signIn(t.app, DEMO_ACCOUNTS.player)).user.id))
+      .get()!;
     const res = await request(t.app).get('/api/sync/pull?since=0&limit=2000').set('Authorization', `Bearer ${tok}`);
     const body = res.body as PullResponse;
     const kickChanges = body.changes.filter((c) => c.entity === 'kick');

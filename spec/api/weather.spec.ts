@@ -32,9 +32,25 @@ describe('weather conversions', () => {
     // Kicking south-west (225°), wind from the north-west (315°): 90° to the kicker's right.
     { what: 'north-west wind, kicking south-west', windFrom: 315, kicking: 225, relative: 270, name: 'from_right', head: 0, left: -6 },
     // Kicking north-east (45°), wind from the north (0°): 45° off the nose, on the left.
-    { what: 'north wind, kicking north-east', windFrom: 0, kicking: 45, relative: 45, name: 'from_left', head: 6 * Math.SQRT1_2, left: 6 * Math.SQRT1_2 },
+    {
+      what: 'north wind, kicking north-east',
+      windFrom: 0,
+      kicking: 45,
+      relative: 45,
+      name: 'from_left',
+      head: 6 * Math.SQRT1_2,
+      left: 6 * Math.SQRT1_2,
+    },
     // Kicking 350°, wind from 10°: 20° off the nose, on the right (crosses north without a jump).
-    { what: 'wind from 10°, kicking 350°', windFrom: 10, kicking: 350, relative: 340, name: 'headwind', head: 6 * Math.cos((20 * Math.PI) / 180), left: -6 * Math.sin((20 * Math.PI) / 180) },
+    {
+      what: 'wind from 10°, kicking 350°',
+      windFrom: 10,
+      kicking: 350,
+      relative: 340,
+      name: 'headwind',
+      head: 6 * Math.cos((20 * Math.PI) / 180),
+      left: -6 * Math.sin((20 * Math.PI) / 180),
+    },
   ];
 
   for (const c of cases) {
@@ -98,19 +114,28 @@ describe('OpenMeteoClient against the local fake weather service', () => {
     fake.setMode('timeout');
     const client = new OpenMeteoClient(fake.url, { apiKey: null, timeoutMs: 300 });
     const started = Date.now();
-    await expectAsync(client.current({ latitude: 1, longitude: 2, elevationM: 0 })).toBeRejectedWithError(WeatherUnavailable, /within 0.3 s/);
+    await expectAsync(client.current({ latitude: 1, longitude: 2, elevationM: 0 })).toBeRejectedWithError(
+      WeatherUnavailable,
+      /within 0.3 s/,
+    );
     expect(Date.now() - started).toBeLessThan(1500);
   });
 
   it('reports the service’s own error reason', async () => {
     fake.setMode('error');
     const client = new OpenMeteoClient(fake.url, { apiKey: null, timeoutMs: 2000 });
-    await expectAsync(client.current({ latitude: 1, longitude: 2, elevationM: 0 })).toBeRejectedWithError(WeatherUnavailable, /500: Simulated failure/);
+    await expectAsync(client.current({ latitude: 1, longitude: 2, elevationM: 0 })).toBeRejectedWithError(
+      WeatherUnavailable,
+      /500: Simulated failure/,
+    );
   });
 
   it('reports a service that cannot be reached', async () => {
     const client = new OpenMeteoClient('http://127.0.0.1:9', { apiKey: null, timeoutMs: 2000 });
-    await expectAsync(client.current({ latitude: 1, longitude: 2, elevationM: 0 })).toBeRejectedWithError(WeatherUnavailable, /could not be reached/);
+    await expectAsync(client.current({ latitude: 1, longitude: 2, elevationM: 0 })).toBeRejectedWithError(
+      WeatherUnavailable,
+      /could not be reached/,
+    );
   });
 
   it('can be switched by its control endpoint', async () => {
@@ -126,13 +151,35 @@ describe('OpenMeteoClient against the local fake weather service', () => {
 describe('observationOf (the service’s answer in Loftline’s units)', () => {
   const answer = (units: Record<string, string>, current: Record<string, unknown>, offset = 0) => ({
     utc_offset_seconds: offset,
-    current_units: { temperature_2m: '°C', relative_humidity_2m: '%', surface_pressure: 'hPa', wind_speed_10m: 'km/h', wind_direction_10m: '°', ...units },
-    current: { time: 1763467200, temperature_2m: 9.4, relative_humidity_2m: 81, surface_pressure: 1002.1, wind_speed_10m: 18, wind_direction_10m: 360, ...current },
+    current_units: {
+      temperature_2m: '°C',
+      relative_humidity_2m: '%',
+      surface_pressure: 'hPa',
+      wind_speed_10m: 'km/h',
+      wind_direction_10m: '°',
+      ...units,
+    },
+    current: {
+      time: 1763467200,
+      temperature_2m: 9.4,
+      relative_humidity_2m: 81,
+      surface_pressure: 1002.1,
+      wind_speed_10m: 18,
+      wind_direction_10m: 360,
+      ...current,
+    },
   });
 
   it('converts km/h, keeps hPa and reads north as 0°', () => {
     const obs = observationOf(answer({}, {}));
-    expect(obs).toEqual({ observedAt: '2025-11-18T12:00:00.000Z', temperatureC: 9.4, relativeHumidityPct: 81, pressureHpa: 1002.1, windSpeedMs: 5, windFromBearingDeg: 0 });
+    expect(obs).toEqual({
+      observedAt: '2025-11-18T12:00:00.000Z',
+      temperatureC: 9.4,
+      relativeHumidityPct: 81,
+      pressureHpa: 1002.1,
+      windSpeedMs: 5,
+      windFromBearingDeg: 0,
+    });
   });
 
   it('reads local ISO times with the offset the service reports', () => {

@@ -10,18 +10,43 @@ const SECOND_PLAYER = '00000000-0000-4000-8000-0000000000d1';
 
 /** Two weeks of hand-made kicks in the other club; the expected figures are worked out beside each spec. */
 function insertFixture(t: TestApp): void {
-  t.db.insert(players).values({ id: SECOND_PLAYER, clubId: OTHER_CLUB.clubId, squadId: OTHER_CLUB.squadId, displayName: 'Second Player', shirtNumber: 11 }).run();
+  t.db
+    .insert(players)
+    .values({ id: SECOND_PLAYER, clubId: OTHER_CLUB.clubId, squadId: OTHER_CLUB.squadId, displayName: 'Second Player', shirtNumber: 11 })
+    .run();
   const session = (startedAt: string) => {
     const id = randomUUID();
-    t.db.insert(trainingSessions).values({ id, clubId: OTHER_CLUB.clubId, squadId: OTHER_CLUB.squadId, startedAt, ballSize: 5, changeSeq: nextChangeSeq(t.db) }).run();
+    t.db
+      .insert(trainingSessions)
+      .values({ id, clubId: OTHER_CLUB.clubId, squadId: OTHER_CLUB.squadId, startedAt, ballSize: 5, changeSeq: nextChangeSeq(t.db) })
+      .run();
     return id;
   };
   const prev = session('2026-11-04T18:00:00Z');
   const now = session('2026-11-11T18:00:00Z');
   const rows: (typeof kicks.$inferInsert)[] = [];
-  const add = (sessionId: string, playerId: string, day: string, technique: 'lofted' | 'driven', outcome: 'on_target' | 'short', n: number) => {
+  const add = (
+    sessionId: string,
+    playerId: string,
+    day: string,
+    technique: 'lofted' | 'driven',
+    outcome: 'on_target' | 'short',
+    n: number,
+  ) => {
     for (let i = 0; i < n; i++) {
-      rows.push({ id: randomUUID(), clubId: OTHER_CLUB.clubId, sessionId, playerId, technique, foot: 'right', targetDistanceM: 30, targetRadiusM: 3, outcome, recordedAt: `${day}T18:${String(10 + (i % 50)).padStart(2, '0')}:00.000Z`, changeSeq: nextChangeSeq(t.db) });
+      rows.push({
+        id: randomUUID(),
+        clubId: OTHER_CLUB.clubId,
+        sessionId,
+        playerId,
+        technique,
+        foot: 'right',
+        targetDistanceM: 30,
+        targetRadiusM: 3,
+        outcome,
+        recordedAt: `${day}T18:${String(10 + (i % 50)).padStart(2, '0')}:00.000Z`,
+        changeSeq: nextChangeSeq(t.db),
+      });
     }
   };
   // Previous week: player 1 — 10 lofted, 2 hits.

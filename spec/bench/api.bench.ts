@@ -62,17 +62,34 @@ async function main(): Promise<void> {
     const academy = generateLargeAcademy(db, { kicks: KICKS });
     const hash = bcrypt.hashSync(PASSWORD, 12);
     const coachId = randomUUID();
-    db.insert(users).values({ id: coachId, clubId: academy.clubId, email: 'coach@bench.test', displayName: 'Bench Coach', role: 'head_coach', passwordHash: hash }).run();
-    db.insert(squadStaff).values(academy.squadIds.map((squadId) => ({ squadId, userId: coachId }))).run();
+    db.insert(users)
+      .values({
+        id: coachId,
+        clubId: academy.clubId,
+        email: 'coach@bench.test',
+        displayName: 'Bench Coach',
+        role: 'head_coach',
+        passwordHash: hash,
+      })
+      .run();
+    db.insert(squadStaff)
+      .values(academy.squadIds.map((squadId) => ({ squadId, userId: coachId })))
+      .run();
     db.$client.pragma('wal_checkpoint(TRUNCATE)');
     db.$client.close();
-    console.log(`generated ${academy.kicks.toLocaleString('en-GB')} kicks, ${academy.sessions} sessions, ${academy.playerIds.length} players, ${academy.squadIds.length} squads in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
+    console.log(
+      `generated ${academy.kicks.toLocaleString('en-GB')} kicks, ${academy.sessions} sessions, ${academy.playerIds.length} players, ${academy.squadIds.length} squads in ${((performance.now() - t0) / 1000).toFixed(1)} s`,
+    );
 
     t0 = performance.now();
     server = await startBenchServer(dbPath, SECRET);
     const base = server.baseUrl;
     console.log(`server process ${server.process.pid} listening on ${base} after ${((performance.now() - t0) / 1000).toFixed(1)} s`);
-    const login = await fetch(`${base}/api/auth/login`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ email: 'coach@bench.test', password: PASSWORD }) });
+    const login = await fetch(`${base}/api/auth/login`, {
+      method: 'POST',
+      headers: { 'Content-Type': 'application/json' },
+      body: JSON.stringify({ email: 'coach@bench.test', password: PASSWORD }),
+    });
     const token = ((await login.json()) as { accessToken: string }).accessToken;
     const auth = { Authorization: `Bearer ${token}`, 'Content-Type': 'application/json' };
     const pushNow = async (body: string): Promise<PushResponse> => {
@@ -87,7 +104,19 @@ async function main(): Promise<void> {
       const id = randomUUID();
       sessions.push(id);
       const squadId = academy.squadIds[d % academy.squadIds.length]!;
-      await pushNow(JSON.stringify({ deviceId: `bench-device-${d}`, mutations: [{ id: randomUUID(), entity: 'training_session', op: 'upsert', data: { id, squadId, startedAt: '2026-11-30T18:00:00Z', ballSize: 5, windSpeedMs: 2, windFromDeg: 0 } }] }));
+      await pushNow(
+        JSON.stringify({
+          deviceId: `bench-device-${d}`,
+          mutations: [
+            {
+              id: randomUUID(),
+              entity: 'training_session',
+              op: 'upsert',
+              data: { id, squadId, startedAt: '2026-11-30T18:00:00Z', ballSize: 5, windSpeedMs: 2, windFromDeg: 0 },
+            },
+          ],
+        }),
+      );
     }
 
     const batches: Batch[] = [];
@@ -110,12 +139,28 @@ async function main(): Promise<void> {
           entity: 'kick',
           op: 'upsert',
           data: {
-            id: kickId, sessionId: sessions[device], playerId: squadPlayers[n % 25], technique: 'lofted', foot: 'right', backspinStep: (n % 7) - 3, sidespinStep: (n % 5) - 2,
-            targetDistanceM: 30, targetRadiusM: 3, outcome: 'on_target', carryM: null, recordedAt: new Date(Date.UTC(2026, 10, 30, 18) + n * 1000).toISOString(),
+            id: kickId,
+            sessionId: sessions[device],
+            playerId: squadPlayers[n % 25],
+            technique: 'lofted',
+            foot: 'right',
+            backspinStep: (n % 7) - 3,
+            sidespinStep: (n % 5) - 2,
+            targetDistanceM: 30,
+            targetRadiusM: 3,
+            outcome: 'on_target',
+            carryM: null,
+            recordedAt: new Date(Date.UTC(2026, 10, 30, 18) + n * 1000).toISOString(),
           },
         });
       }
-      const batch: Batch = { device, mutationIds, kickIds, body: JSON.stringify({ deviceId: `bench-device-${device}`, mutations }), answered: false };
+      const batch: Batch = {
+        device,
+        mutationIds,
+        kickIds,
+        body: JSON.stringify({ deviceId: `bench-device-${device}`, mutations }),
+        answered: false,
+      };
       batches.push(batch);
       return batch;
     };
@@ -161,7 +206,10 @@ async function main(): Promise<void> {
         },
       });
     // Pages through the season from different starting points, as devices catching up would.
-    const pull = await queryPhase('sync pull (500 changes a page)', (n) => `/api/sync/pull?since=${(n * 7919) % Math.max(1, KICKS)}&limit=500`);
+    const pull = await queryPhase(
+      'sync pull (500 changes a page)',
+      (n) => `/api/sync/pull?since=${(n * 7919) % Math.max(1, KICKS)}&limit=500`,
+    );
     const week = await queryPhase(
       'Squad week (GET /api/squads/:id/week)',
       (n) => `/api/squads/${academy.squadIds[n % academy.squadIds.length]}/week?start=${squadStart}`,
@@ -194,7 +242,12 @@ async function main(): Promise<void> {
     const stored = n('SELECT COUNT(*) AS n FROM pushed p JOIN kicks k ON k.id = p.kick_id');
     const lost = generated - stored;
     const onDevices = n("SELECT COUNT(*) AS n FROM kicks WHERE device_id LIKE 'bench-device-%'");
-    const duplicated = onDevices - stored + n("SELECT COUNT(*) AS n FROM (SELECT 1 FROM kicks WHERE device_id LIKE 'bench-device-%' GROUP BY session_id, recorded_at HAVING COUNT(*) > 1)");
+    const duplicated =
+      onDevices -
+      stored +
+      n(
+        "SELECT COUNT(*) AS n FROM (SELECT 1 FROM kicks WHERE device_id LIKE 'bench-device-%' GROUP BY session_id, recorded_at HAVING COUNT(*) > 1)",
+      );
     const acknowledged = n('SELECT COUNT(*) AS n FROM pushed p JOIN applied_mutations a ON a.id = p.mutation_id');
     const integrity = check.pragma('integrity_check', { simple: true });
     check.close();
@@ -203,22 +256,31 @@ async function main(): Promise<void> {
     const row = (r: PhaseResult, unit: string, per: number) =>
       `${r.label.padEnd(62)} ${r.requests.toString().padStart(6)} ${(r.perSecond * per).toFixed(0).padStart(8)} ${unit.padEnd(8)} ${r.p50.toFixed(0).padStart(6)} ${r.p95.toFixed(0).padStart(6)} ${r.p99.toFixed(0).padStart(6)} ${r.max.toFixed(0).padStart(6)}  ${r.non2xx + r.errors}`;
     console.log('');
-    console.log(`${'phase'.padEnd(62)} ${'reqs'.padStart(6)} ${'rate'.padStart(8)} ${''.padEnd(8)} ${'p50'.padStart(6)} ${'p95'.padStart(6)} ${'p99'.padStart(6)} ${'max'.padStart(6)}  errors  (latency in ms)`);
+    console.log(
+      `${'phase'.padEnd(62)} ${'reqs'.padStart(6)} ${'rate'.padStart(8)} ${''.padEnd(8)} ${'p50'.padStart(6)} ${'p95'.padStart(6)} ${'p99'.padStart(6)} ${'max'.padStart(6)}  errors  (latency in ms)`,
+    );
     console.log(row(push, 'kicks/s', BATCH));
     console.log(row(pull, 'req/s', 1));
     console.log(row(week, 'req/s', 1));
     console.log(row(progress, 'req/s', 1));
     console.log('');
-    console.log(`pushed ${generated.toLocaleString('en-GB')} kicks in ${batches.length} batches (${unanswered.length} retried after no answer); stored ${stored.toLocaleString('en-GB')}; applied_mutations ${acknowledged.toLocaleString('en-GB')}; not applied on first push ${notApplied}; sample replay ${replayedDuplicates}/${sample.length * BATCH} duplicate; integrity_check ${integrity}`);
+    console.log(
+      `pushed ${generated.toLocaleString('en-GB')} kicks in ${batches.length} batches (${unanswered.length} retried after no answer); stored ${stored.toLocaleString('en-GB')}; applied_mutations ${acknowledged.toLocaleString('en-GB')}; not applied on first push ${notApplied}; sample replay ${replayedDuplicates}/${sample.length * BATCH} duplicate; integrity_check ${integrity}`,
+    );
     const verdicts: [string, boolean][] = [
       [`push ≥ 5,000 kicks/s sustained (${kicksPerS.toFixed(0)} kicks/s)`, kicksPerS >= 5000],
       [`push p99 ≤ 250 ms per batch (${push.p99.toFixed(0)} ms)`, push.p99 <= 250],
       [`Squad week p95 ≤ 100 ms (${week.p95.toFixed(0)} ms)`, week.p95 <= 100],
       [`zero lost kicks (${lost})`, lost === 0],
-      [`zero duplicated kicks (${duplicated})`, duplicated === 0 && acknowledged === generated && replayedDuplicates === sample.length * BATCH],
+      [
+        `zero duplicated kicks (${duplicated})`,
+        duplicated === 0 && acknowledged === generated && replayedDuplicates === sample.length * BATCH,
+      ],
     ];
     for (const [what, ok] of verdicts) console.log(`${ok ? 'PASS' : 'FAIL'}  ${what}`);
-    console.log(`(database: ${KICKS.toLocaleString('en-GB')} generated kicks; peak RSS of this load process ${(process.memoryUsage().rss / 1048576).toFixed(0)} MB)`);
+    console.log(
+      `(database: ${KICKS.toLocaleString('en-GB')} generated kicks; peak RSS of this load process ${(process.memoryUsage().rss / 1048576).toFixed(0)} MB)`,
+    );
     if (verdicts.some(([, ok]) => !ok)) process.exitCode = 1;
   } finally {
     if (server) {

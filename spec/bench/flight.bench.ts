@@ -64,13 +64,10 @@ kicks.forEach((k, i) => {
 // RK4: the largest step (on a 5 % geometric grid) whose carry error stays ≤ 1 mm for every kick, and for
 // the next three smaller steps too, so a lucky cancellation cannot pick the step.
 const rk4 = new Rk4Baseline();
-const rk4MaxErr = (h: number): number =>
-  models.reduce((m, model, i) => Math.max(m, Math.abs(rk4.carry(model, h) - reference[i]!)), 0);
+const rk4MaxErr = (h: number): number => models.reduce((m, model, i) => Math.max(m, Math.abs(rk4.carry(model, h) - reference[i]!)), 0);
 const grid = Array.from({ length: 80 }, (_, k) => 0.25 * Math.pow(0.95, k));
 const errors = grid.map(rk4MaxErr);
-const pick = grid.findIndex(
-  (_, k) => k + 3 < grid.length && [0, 1, 2, 3].every((j) => errors[k + j]! <= CARRY_TOLERANCE_M),
-);
+const pick = grid.findIndex((_, k) => k + 3 < grid.length && [0, 1, 2, 3].every((j) => errors[k + j]! <= CARRY_TOLERANCE_M));
 if (pick < 0) throw new Error('no RK4 step on the grid keeps 1 mm');
 const rk4StepS = grid[pick]!;
 let rk4Evals = 0;
@@ -107,7 +104,15 @@ const profile: KickProfile = {
   sdSpeedMs: 2,
   meanSpeedSeMs: 0.3,
   sdSpeedSeMs: 0.25,
-  aimedSpeed: { offsetLogMean: 0, offsetLogSd: 0.08, offsetLogMeanSe: 0.012, offsetLogSdSe: 0.01, ceilingMs: 29, ceilingLogSe: 0.1, typicalTargetM: 40 },
+  aimedSpeed: {
+    offsetLogMean: 0,
+    offsetLogSd: 0.08,
+    offsetLogMeanSe: 0.012,
+    offsetLogSdSe: 0.01,
+    ceilingMs: 29,
+    ceilingLogSe: 0.1,
+    typicalTargetM: 40,
+  },
   meanAzimuthDeg: 0.5,
   sdAzimuthDeg: 2,
   meanAzimuthSeDeg: 0.4,

@@ -63,7 +63,11 @@ export async function runPhase(o: PhaseOptions): Promise<PhaseResult> {
   const runs: Promise<autocannon.Result>[] = [];
   for (let i = 0; i < streams; i++) {
     const delayMs = o.overallRate ? (1000 * i) / streams : 0;
-    runs.push(new Promise((ok) => setTimeout(ok, delayMs)).then(() => runStream(o, o.overallRate ? 1 : o.connections, o.overallRate ? 1 : undefined, times)));
+    runs.push(
+      new Promise((ok) => setTimeout(ok, delayMs)).then(() =>
+        runStream(o, o.overallRate ? 1 : o.connections, o.overallRate ? 1 : undefined, times),
+      ),
+    );
   }
   const results = await Promise.all(runs);
   const result = {

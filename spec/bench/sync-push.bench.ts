@@ -27,7 +27,15 @@ function batch(playerIds: string[]): unknown[] {
       id: randomUUID(),
       entity: 'training_session',
       op: 'upsert',
-      data: { id: sessionId, squadId: DEMO_SQUAD_IDS.u16, startedAt: new Date().toISOString(), temperatureC: 11, windSpeedMs: 3, windFromDeg: 0, ballSize: 5 },
+      data: {
+        id: sessionId,
+        squadId: DEMO_SQUAD_IDS.u16,
+        startedAt: new Date().toISOString(),
+        temperatureC: 11,
+        windSpeedMs: 3,
+        windFromDeg: 0,
+        ballSize: 5,
+      },
     },
   ];
   for (let i = 1; i < BATCH; i++) {
@@ -66,7 +74,11 @@ async function main(): Promise<void> {
   const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
   try {
     const { accessToken } = await signIn(t.app, DEMO_ACCOUNTS.assistant_coach);
-    const squad = t.db.select({ id: players.id }).from(players).where(and(eq(players.squadId, DEMO_SQUAD_IDS.u16), isNull(players.deletedAt))).all();
+    const squad = t.db
+      .select({ id: players.id })
+      .from(players)
+      .where(and(eq(players.squadId, DEMO_SQUAD_IDS.u16), isNull(players.deletedAt)))
+      .all();
     const ids = squad.map((p) => p.id);
     const push = async (mutations: unknown[]): Promise<{ ms: number; body: PushResponse }> => {
       const body = JSON.stringify({ deviceId: 'bench-phone', mutations });

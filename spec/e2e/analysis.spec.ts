@@ -103,7 +103,10 @@ describe('Player file and Squad week (end to end, Chromium)', () => {
       await page.getByRole('button', { name: 'Export CSV' }).click();
       const file = await download;
       expect(file.suggestedFilename()).toContain(lastWeek);
-      const csv = readFileSync((await file.path())!, 'utf8').replace(/^\ufeff/, '').trim().split('\r\n');
+      const csv = readFileSync((await file.path())!, 'utf8')
+        .replace(/^\ufeff/, '')
+        .trim()
+        .split('\r\n');
       expect(csv[0]).toContain('Player');
       expect(csv.length).toBe(rows + 1);
 
@@ -116,7 +119,10 @@ describe('Player file and Squad week (end to end, Chromium)', () => {
       await table.locator('tbody tr a').first().click();
       await page.waitForURL(/\/players\/[0-9a-f-]{36}/);
       await page.locator('ll-progress-chart circle.ll-progress__point').first().waitFor();
-      await page.getByRole('link', { name: /in Pitchside/ }).first().waitFor({ timeout: 60_000 });
+      await page
+        .getByRole('link', { name: /in Pitchside/ })
+        .first()
+        .waitFor({ timeout: 60_000 });
       expect(await page.locator('ll-reach-panel .reach-panel__number').first().innerText()).toMatch(/^\d+\.\d m$/);
     } finally {
       await close();

@@ -84,7 +84,10 @@ describe('imports and exports (end to end, Chromium)', () => {
       await choose(page, 'Squad', 'U16');
       await page.getByLabel('From', { exact: true }).fill('2026-11-30');
       await page.getByLabel('To', { exact: true }).fill('2026-11-30');
-      const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: /Download kicks CSV/ }).click()]);
+      const [download] = await Promise.all([
+        page.waitForEvent('download'),
+        page.getByRole('button', { name: /Download kicks CSV/ }).click(),
+      ]);
       expect(download.suggestedFilename()).toBe('loftline-kicks-2026-11-30-2026-11-30.csv');
       const csv = readFileSync(await download.path(), 'utf8');
       // The server reads the device's local times as the test process does (same machine).
@@ -106,7 +109,8 @@ describe('imports and exports (end to end, Chromium)', () => {
     try {
       const names = ['Amara Nwosu-Pike', 'Yusuf Demirel', 'Theo Castellane', 'Priya Raghunathan'];
       const lines = ['Kicker,Ball speed (m/s),Carry (m)'];
-      for (let i = 0; i < 40_000; i++) lines.push(`${names[i % names.length]},${(20 + (i % 90) / 10).toFixed(1)},${(25 + (i % 70) / 10).toFixed(1)}`);
+      for (let i = 0; i < 40_000; i++)
+        lines.push(`${names[i % names.length]},${(20 + (i % 90) / 10).toFixed(1)},${(25 + (i % 70) / 10).toFixed(1)}`);
       const big = join(dir, 'long-session.csv');
       writeFileSync(big, lines.join('\r\n') + '\r\n');
 
@@ -119,7 +123,12 @@ describe('imports and exports (end to end, Chromium)', () => {
 
       const cdp = await context.newCDPSession(page);
       await cdp.send('Network.enable');
-      await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 20, downloadThroughput: -1, uploadThroughput: 128 * 1024 });
+      await cdp.send('Network.emulateNetworkConditions', {
+        offline: false,
+        latency: 20,
+        downloadThroughput: -1,
+        uploadThroughput: 128 * 1024,
+      });
       await page.getByRole('button', { name: /Check the rows/ }).click();
       const sending = page.getByText(/Sending long-session\.csv: .* of .* \((\d+) %\)/);
       await sending.waitFor();
@@ -183,7 +192,10 @@ describe('imports and exports (end to end, Chromium)', () => {
       await page.getByRole('combobox', { name: 'Player' }).click();
       await page.getByRole('option', { name: /Gareth Pellow$/ }).click();
 
-      const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: /Download Gareth Pellow’s data/ }).click()]);
+      const [download] = await Promise.all([
+        page.waitForEvent('download'),
+        page.getByRole('button', { name: /Download Gareth Pellow’s data/ }).click(),
+      ]);
       const data = JSON.parse(readFileSync(await download.path(), 'utf8')) as { player: { displayName: string }; kicks: unknown[] };
       expect(data.player.displayName).toBe('Gareth Pellow');
       expect(data.kicks.length).toBeGreaterThan(0);

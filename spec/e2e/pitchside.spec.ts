@@ -223,12 +223,18 @@ describe('Pitchside offline logging (end to end, Chromium, service worker)', () 
     await page.getByRole('button', { name: 'Use this drill' }).click();
     await page.getByTestId('player-chip').first().waitFor();
     expect(await page.getByTestId('player-chip').count()).toBeGreaterThan(5);
-    await until('the session and drill to reach the server', () => rowExists('training_sessions', 'id', sessionId) && rowExists('drills', 'session_id', sessionId));
+    await until(
+      'the session and drill to reach the server',
+      () => rowExists('training_sessions', 'id', sessionId) && rowExists('drills', 'session_id', sessionId),
+    );
 
     // No signal.
     await context.setOffline(true);
     await server.stop();
-    await page.getByTestId('sync-badge').filter({ hasText: /Offline/ }).waitFor();
+    await page
+      .getByTestId('sync-badge')
+      .filter({ hasText: /Offline/ })
+      .waitFor();
     await instrumentTaps(page);
     await logKicks(page, 30, 0);
     const samples = await tapSamples(page);
@@ -249,7 +255,10 @@ describe('Pitchside offline logging (end to end, Chromium, service worker)', () 
     await restartServer();
     await context.setOffline(false);
     await until('50 kicks on the server', () => kicksInSession().rows >= 50, 45_000);
-    await page.getByTestId('sync-badge').filter({ hasText: /all synced/i }).waitFor({ timeout: 30_000 });
+    await page
+      .getByTestId('sync-badge')
+      .filter({ hasText: /all synced/i })
+      .waitFor({ timeout: 30_000 });
     expect(kicksInSession()).toEqual({ rows: 50, uniq: 50, live: 50 });
 
     expect(samples.length).toBe(50);
@@ -263,7 +272,10 @@ describe('Pitchside offline logging (end to end, Chromium, service worker)', () 
     expect(sessionId).not.toBe('');
     await context.setOffline(true);
     await server.stop();
-    await page.getByTestId('sync-badge').filter({ hasText: /Offline/ }).waitFor();
+    await page
+      .getByTestId('sync-badge')
+      .filter({ hasText: /Offline/ })
+      .waitFor();
     // The kicker stays selected between reps, so from here on each rep is one tap.
     const chips = page.getByTestId('player-chip');
     const players = await chips.count();
@@ -286,7 +298,10 @@ describe('Pitchside offline logging (end to end, Chromium, service worker)', () 
     await page.getByTestId('sync-badge').filter({ hasText: '200 unsynced' }).waitFor();
 
     await restartServer();
-    await page.getByTestId('sync-badge').filter({ hasText: /all synced/i }).waitFor({ timeout: 60_000 });
+    await page
+      .getByTestId('sync-badge')
+      .filter({ hasText: /all synced/i })
+      .waitFor({ timeout: 60_000 });
     expect(kicksInSession()).toEqual({ rows: 250, uniq: 250, live: 250 });
     const db = new Database(dbPath(), { readonly: true, fileMustExist: true });
     try {

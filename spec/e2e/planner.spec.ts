@@ -148,9 +148,13 @@ describe('set-piece planner (end to end, Chromium)', () => {
         await navigator.serviceWorker.ready;
       });
       // Every profile in and the ranking settled, then a second's rest: the ranking is kept.
-      await page.waitForFunction(() => !/still computing|computing…/.test(document.body.textContent ?? '') && !document.querySelector('mat-progress-bar'), undefined, {
-        timeout: 120_000,
-      });
+      await page.waitForFunction(
+        () => !/still computing|computing…/.test(document.body.textContent ?? '') && !document.querySelector('mat-progress-bar'),
+        undefined,
+        {
+          timeout: 120_000,
+        },
+      );
       const online = await page.locator('table tbody tr').allInnerTexts();
       await page.waitForTimeout(2500);
       await offlineServer.stop();

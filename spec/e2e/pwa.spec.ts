@@ -106,7 +106,9 @@ describe('installable PWA (end to end, Chromium, production build)', () => {
       expect(res.status).withContext(icon.src).toBe(200);
       const size = pngSize(Buffer.from(await res.arrayBuffer()));
       expect(size).withContext(`${icon.src} is a PNG`).not.toBeNull();
-      expect(`${size?.width}x${size?.height}`).withContext(icon.src).toBe(icon.sizes ?? '');
+      expect(`${size?.width}x${size?.height}`)
+        .withContext(icon.src)
+        .toBe(icon.sizes ?? '');
     }
   });
 
@@ -129,7 +131,9 @@ describe('installable PWA (end to end, Chromium, production build)', () => {
     await cdp.detach();
 
     const background = await page.evaluate(() => getComputedStyle(document.body).backgroundColor);
-    expect(background).withContext('splash background matches the light theme page').toBe(hexToRgb(manifest.background_color ?? '#000000'));
+    expect(background)
+      .withContext('splash background matches the light theme page')
+      .toBe(hexToRgb(manifest.background_color ?? '#000000'));
   }, 60_000);
 
   it('opens the app shell and a screen never visited before with the server gone', async () => {

@@ -53,7 +53,9 @@ describe('Pitchside stopwatch to Player file (end to end)', () => {
   function sessionAndDrillOnServer(sessionId: string): boolean {
     const db = new Database(server.dbPath, { readonly: true, fileMustExist: true });
     try {
-      return db.prepare('SELECT 1 FROM training_sessions t JOIN drills d ON d.session_id = t.id WHERE t.id = ?').get(sessionId) !== undefined;
+      return (
+        db.prepare('SELECT 1 FROM training_sessions t JOIN drills d ON d.session_id = t.id WHERE t.id = ?').get(sessionId) !== undefined
+      );
     } finally {
       db.close();
     }
@@ -94,7 +96,10 @@ describe('Pitchside stopwatch to Player file (end to end)', () => {
     const port = server.port;
     await server.stop();
     await tap.click();
-    await page.getByTestId('hang-timer-tap').filter({ hasText: /Bounce/ }).waitFor();
+    await page
+      .getByTestId('hang-timer-tap')
+      .filter({ hasText: /Bounce/ })
+      .waitFor();
     // A lofted kick at 20 m/s with 5 rev/s of backspin carries ~30.9 m in ~2.67 s (shared/flight); the hand adds ~0.2 s.
     await page.waitForTimeout(2_850);
     await tap.click();
@@ -107,9 +112,15 @@ describe('Pitchside stopwatch to Player file (end to end)', () => {
 
     await page.getByLabel('Carry', { exact: true }).fill('30.9');
     await page.getByRole('button', { name: 'On target', exact: true }).click();
-    await page.getByTestId('log-status').filter({ hasText: `${reading.toFixed(2)} s` }).waitFor();
+    await page
+      .getByTestId('log-status')
+      .filter({ hasText: `${reading.toFixed(2)} s` })
+      .waitFor();
     expect(await page.getByTestId('hang-time').inputValue()).toBe('');
-    await page.getByTestId('sync-badge').filter({ hasText: /\b1 unsynced/ }).waitFor();
+    await page
+      .getByTestId('sync-badge')
+      .filter({ hasText: /\b1 unsynced/ })
+      .waitFor();
     expect(timedKick(sessionId)).toBeUndefined();
 
     // Signal again: the timed repetition reaches the server with its reading.

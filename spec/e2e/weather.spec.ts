@@ -44,7 +44,15 @@ describe('Session conditions from the weather service (end to end)', () => {
   beforeAll(async () => {
     fake = await startFakeWeather(0);
     // 21.6 km/h = 6 m/s (SI), blowing from the bearing the drills kick towards (WMO from-direction): a headwind.
-    fake.pin({ latitude: GROUND.latitude, longitude: GROUND.longitude, windSpeedKmh: 21.6, windFromDeg: GROUND.kickingBearingDeg, temperatureC: 8.5, relativeHumidityPct: 88, surfacePressureHpa: 996.2 });
+    fake.pin({
+      latitude: GROUND.latitude,
+      longitude: GROUND.longitude,
+      windSpeedKmh: 21.6,
+      windFromDeg: GROUND.kickingBearingDeg,
+      temperatureC: 8.5,
+      relativeHumidityPct: 88,
+      surfacePressureHpa: 996.2,
+    });
     server = await startE2eServer({ env: { WEATHER_URL: fake.url } });
     ({ context, close: closeBrowser } = await launchContext({ width: 360, height: 740 }));
     page = await context.newPage();
@@ -82,7 +90,10 @@ describe('Session conditions from the weather service (end to end)', () => {
     await page.getByTestId('player-chip').first().click();
     await page.getByLabel('Carry').fill('34');
     await page.getByRole('button', { name: 'On target', exact: true }).click();
-    await page.getByTestId('sync-badge').filter({ hasText: /all synced/i }).waitFor({ timeout: 30_000 });
+    await page
+      .getByTestId('sync-badge')
+      .filter({ hasText: /all synced/i })
+      .waitFor({ timeout: 30_000 });
 
     const session = query<SessionConditions & { groundId: string; sources: string; observedAt: string | null }>(
       `SELECT temperature_c AS temperatureC, altitude_m AS altitudeM, relative_humidity_pct AS relativeHumidityPct, pressure_hpa AS pressureHpa,
@@ -92,10 +103,24 @@ describe('Session conditions from the weather service (end to end)', () => {
       sessionId,
     );
     expect(session).toEqual(
-      jasmine.objectContaining({ windSpeedMs: 6, windFromDeg: 0, temperatureC: 8.5, relativeHumidityPct: 88, pressureHpa: 996.2, altitudeM: 88 }),
+      jasmine.objectContaining({
+        windSpeedMs: 6,
+        windFromDeg: 0,
+        temperatureC: 8.5,
+        relativeHumidityPct: 88,
+        pressureHpa: 996.2,
+        altitudeM: 88,
+      }),
     );
     expect(JSON.parse(session!.sources)).toEqual(
-      jasmine.objectContaining({ windSpeedMs: 'weather', windFromDeg: 'weather', temperatureC: 'weather', relativeHumidityPct: 'weather', pressureHpa: 'weather', altitudeM: 'ground' }),
+      jasmine.objectContaining({
+        windSpeedMs: 'weather',
+        windFromDeg: 'weather',
+        temperatureC: 'weather',
+        relativeHumidityPct: 'weather',
+        pressureHpa: 'weather',
+        altitudeM: 'ground',
+      }),
     );
     expect(session!.observedAt).not.toBeNull();
 
@@ -103,7 +128,10 @@ describe('Session conditions from the weather service (end to end)', () => {
               sidespin_step AS sidespinStep, carry_m AS carryM, lateral_m AS lateralM, measured_speed_ms AS measuredSpeedMs,
               launch_angle_deg AS launchAngleDeg, measured_spin_rps AS measuredSpinRps, still_air_carry_m AS stillAir
          FROM kicks WHERE session_id = ?`;
-    await until('the server to re-fly the carry', () => (query<{ stillAir: number | null }>(kickSql, sessionId)?.stillAir ?? null) !== null);
+    await until(
+      'the server to re-fly the carry',
+      () => (query<{ stillAir: number | null }>(kickSql, sessionId)?.stillAir ?? null) !== null,
+    );
     const kick = query<StoredKick & { stillAir: number }>(kickSql, sessionId)!;
     expect(kick.carryM).toBe(34);
     // The model with this session's headwind, humidity and pressure gives exactly what the server stored…

@@ -40,8 +40,7 @@ describe('numerical accuracy at default tolerances', () => {
     const f = simulateKick({ ...kick, path: true });
     const path = f.path;
     expect(path[0]).toEqual({ t: 0, x: 0, y: 0, z: 0 });
-    for (let i = 1; i < path.length - 1; i++)
-      expect(Math.abs(path[i]!.t - i * PATH_SAMPLE_INTERVAL_S)).toBeLessThan(1e-12);
+    for (let i = 1; i < path.length - 1; i++) expect(Math.abs(path[i]!.t - i * PATH_SAMPLE_INTERVAL_S)).toBeLessThan(1e-12);
     const last = path[path.length - 1]!;
     expect(last.t).toBe(f.flightTimeS);
     expect(last.z).toBe(0);

@@ -45,9 +45,7 @@ describe('reachEnvelope (seeded Monte Carlo)', () => {
 
   it('is reproducible for a seed and differs for another seed', () => {
     // Seeded Monte Carlo is deterministic by construction (xoshiro128**, Blackman & Vigna 2018).
-    expect(
-      reachEnvelope(loftedProfile(2), conditions, { samples: 400, seed: 42, target: { distanceM: 40, radiusM: 3 } }),
-    ).toEqual(env);
+    expect(reachEnvelope(loftedProfile(2), conditions, { samples: 400, seed: 42, target: { distanceM: 40, radiusM: 3 } })).toEqual(env);
     const other = reachEnvelope(loftedProfile(2), conditions, {
       samples: 400,
       seed: 43,

@@ -2,7 +2,13 @@ import { DEFAULT_CEILINGS_MS, DEFAULT_PRIORS, fitProfile, simulateKick, solveLau
 import { syntheticAimed, type AimedTruth } from './support/synthetic-logs';
 
 describe('fitProfile (interval-censored maximum likelihood with shrinkage)', () => {
-  const truth: AimedTruth = { offsetLogMean: -0.03, offsetLogSd: 0.05, ceilingMs: Number.POSITIVE_INFINITY, meanAzimuthDeg: 1, sdAzimuthDeg: 2.5 };
+  const truth: AimedTruth = {
+    offsetLogMean: -0.03,
+    offsetLogSd: 0.05,
+    ceilingMs: Number.POSITIVE_INFINITY,
+    meanAzimuthDeg: 1,
+    sdAzimuthDeg: 2.5,
+  };
 
   for (const seed of [101, 202]) {
     it(`recovers a known aimed-speed distribution from censored logs at mixed targets (seed ${seed})`, () => {
@@ -104,7 +110,11 @@ describe('fitProfile (interval-censored maximum likelihood with shrinkage)', () 
     });
     const timing = { biasS: 0.2, sdS: 0.03 };
     const timed = fitProfile(logs, undefined, { timing });
-    const untimed = fitProfile(logs.map((l) => ({ ...l, hangTimeS: null })), undefined, { timing });
+    const untimed = fitProfile(
+      logs.map((l) => ({ ...l, hangTimeS: null })),
+      undefined,
+      { timing },
+    );
     expect(timed.observations.timed).toBe(12);
     expect(untimed.observations.timed).toBe(0);
     // The stopwatch recovers the spin the eye under-called (within 1 rev/s of the truth), where the

@@ -101,9 +101,7 @@ describe('setPieceCheck', () => {
     const a = setPieceCheck({ ballX: 22, ballY: 0, profile: curled({}), conditions: {}, samples: 300, seed: 11 });
     expect(a.shares.onTarget).toBeGreaterThan(0.05);
     expect(a.shares.over).toBeGreaterThan(0.05);
-    expect(setPieceCheck({ ballX: 22, ballY: 0, profile: curled({}), conditions: {}, samples: 300, seed: 11 })).toEqual(
-      a,
-    );
+    expect(setPieceCheck({ ballX: 22, ballY: 0, profile: curled({}), conditions: {}, samples: 300, seed: 11 })).toEqual(a);
   });
 
   it('sends a ball aimed beyond the post wide', () => {

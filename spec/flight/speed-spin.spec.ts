@@ -33,8 +33,12 @@ describe('solveSpeedAndSpin (carry plus flight time → launch speed and backspi
             expect(r.ok).withContext(label).toBeTrue();
             if (!r.ok) continue;
             // Tolerances (common practice): far inside what a hand timer resolves (~1 rev/s for 0.05 s).
-            expect(Math.abs(r.speedMs - speed)).withContext(label).toBeLessThan(0.01);
-            expect(Math.abs(r.backspinRps - backspinRps)).withContext(label).toBeLessThan(0.05);
+            expect(Math.abs(r.speedMs - speed))
+              .withContext(label)
+              .toBeLessThan(0.01);
+            expect(Math.abs(r.backspinRps - backspinRps))
+              .withContext(label)
+              .toBeLessThan(0.05);
           }
         });
       }
@@ -117,7 +121,8 @@ describe('solveSpeedAndSpin (carry plus flight time → launch speed and backspi
     });
 
     it('still reports spreads without NaN when the timing spread straddles the edge of what is possible', () => {
-      const edgeTime = (solveSpeedAndSpin({ carryM: flight.carryM, flightTimeS: 6, elevationDeg }) as { feasibleTimeS: { max: number } }).feasibleTimeS.max;
+      const edgeTime = (solveSpeedAndSpin({ carryM: flight.carryM, flightTimeS: 6, elevationDeg }) as { feasibleTimeS: { max: number } })
+        .feasibleTimeS.max;
       const r = solveSpeedAndSpin({ carryM: flight.carryM, flightTimeS: edgeTime - 0.01, elevationDeg, timingSdS: 0.05, samples: 40 });
       expectClean(r);
       expect(r.ok).toBeTrue();
@@ -128,7 +133,10 @@ describe('solveSpeedAndSpin (carry plus flight time → launch speed and backspi
 
     it('rejects malformed input with a RangeError naming the field', () => {
       expect(() => solveSpeedAndSpin({ carryM: Number.NaN, flightTimeS: 2, elevationDeg })).toThrowError(RangeError, /carryM/);
-      expect(() => solveSpeedAndSpin({ carryM: 30, flightTimeS: Number.POSITIVE_INFINITY, elevationDeg })).toThrowError(RangeError, /flightTimeS/);
+      expect(() => solveSpeedAndSpin({ carryM: 30, flightTimeS: Number.POSITIVE_INFINITY, elevationDeg })).toThrowError(
+        RangeError,
+        /flightTimeS/,
+      );
       expect(() => solveSpeedAndSpin({ carryM: 30, flightTimeS: 2, elevationDeg: 0 })).toThrowError(RangeError, /elevationDeg/);
       expect(() => solveSpeedAndSpin({ carryM: 30, flightTimeS: 2, elevationDeg, timingSdS: -1 })).toThrowError(RangeError, /timingSdS/);
     });
@@ -154,7 +162,14 @@ describe('solveSpeedAndSpin (carry plus flight time → launch speed and backspi
         let solved = 0;
         for (let trial = 0; trial < trials; trial++) {
           const flightTimeS = flight.flightTimeS + timingSdS * random.normal();
-          const r = solveSpeedAndSpin({ carryM: flight.carryM, flightTimeS, elevationDeg: c.elevationDeg, timingSdS, samples: 80, seed: 1000 + trial });
+          const r = solveSpeedAndSpin({
+            carryM: flight.carryM,
+            flightTimeS,
+            elevationDeg: c.elevationDeg,
+            timingSdS,
+            samples: 80,
+            seed: 1000 + trial,
+          });
           if (!r.ok || !r.uncertainty.backspinRps) continue;
           solved++;
           const s = r.uncertainty.backspinRps;
@@ -163,8 +178,12 @@ describe('solveSpeedAndSpin (carry plus flight time → launch speed and backspi
         }
         expect(solved).toBe(trials);
         const slack = (p: number): number => 3 * Math.sqrt((p * (1 - p)) / trials);
-        expect(Math.abs(in68 / trials - 0.68)).withContext(`68 % interval covered ${in68}/${trials}`).toBeLessThan(slack(0.68));
-        expect(Math.abs(in90 / trials - 0.9)).withContext(`90 % interval covered ${in90}/${trials}`).toBeLessThan(slack(0.9));
+        expect(Math.abs(in68 / trials - 0.68))
+          .withContext(`68 % interval covered ${in68}/${trials}`)
+          .toBeLessThan(slack(0.68));
+        expect(Math.abs(in90 / trials - 0.9))
+          .withContext(`90 % interval covered ${in90}/${trials}`)
+          .toBeLessThan(slack(0.9));
       });
     }
 
@@ -187,7 +206,12 @@ describe('timedKickEvidence (a timed repetition for the profile fit)', () => {
   const flight = simulateKick({ speed: 24, elevationDeg, backspinRps: 6 });
 
   it('subtracts the club timing bias from the stopwatch reading before solving', () => {
-    const e = timedKickEvidence({ carryM: flight.carryM, hangTimeS: flight.flightTimeS + 0.2, elevationDeg, timing: { biasS: 0.2, sdS: 0.08 } });
+    const e = timedKickEvidence({
+      carryM: flight.carryM,
+      hangTimeS: flight.flightTimeS + 0.2,
+      elevationDeg,
+      timing: { biasS: 0.2, sdS: 0.08 },
+    });
     expect(e.ok).toBeTrue();
     if (!e.ok) return;
     expect(e.flightTimeS).toBeCloseTo(flight.flightTimeS, 10);
@@ -195,7 +219,12 @@ describe('timedKickEvidence (a timed repetition for the profile fit)', () => {
     expect(Math.abs(e.backspinRps - 6)).toBeLessThan(0.05);
     expect(e.speedSdMs).toBeGreaterThan(0);
     expect(e.backspinSdRps).toBeGreaterThan(0);
-    const uncorrected = timedKickEvidence({ carryM: flight.carryM, hangTimeS: flight.flightTimeS + 0.2, elevationDeg, timing: { biasS: 0, sdS: 0.08 } });
+    const uncorrected = timedKickEvidence({
+      carryM: flight.carryM,
+      hangTimeS: flight.flightTimeS + 0.2,
+      elevationDeg,
+      timing: { biasS: 0, sdS: 0.08 },
+    });
     if (uncorrected.ok) expect(uncorrected.backspinRps).toBeGreaterThan(e.backspinRps + 1);
   });
 
@@ -217,6 +246,9 @@ describe('timedKickEvidence (a timed repetition for the profile fit)', () => {
   });
 
   it('rejects a malformed timing setting naming the field', () => {
-    expect(() => timedKickEvidence({ carryM: 30, hangTimeS: 2, elevationDeg, timing: { biasS: Number.NaN, sdS: 0.08 } })).toThrowError(RangeError, /timing\.biasS/);
+    expect(() => timedKickEvidence({ carryM: 30, hangTimeS: 2, elevationDeg, timing: { biasS: Number.NaN, sdS: 0.08 } })).toThrowError(
+      RangeError,
+      /timing\.biasS/,
+    );
   });
 });

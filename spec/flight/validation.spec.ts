@@ -32,9 +32,7 @@ describe('input validation', () => {
   ];
   for (const [name, input, field] of cases) {
     it(`rejects ${name}`, () => {
-      expect(() => simulateKick(input)).toThrowMatching(
-        (e: unknown) => e instanceof RangeError && e.message.startsWith(field),
-      );
+      expect(() => simulateKick(input)).toThrowMatching((e: unknown) => e instanceof RangeError && e.message.startsWith(field));
     });
   }
 

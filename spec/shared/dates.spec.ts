@@ -22,6 +22,7 @@ describe('parseLocalDateTime (device times read in the club’s zone)', () => {
   });
 
   it('refuses what is not a date and time', () => {
-    for (const bad of ['', 'yesterday', '2026-02-30 10:00', '2026-11-30 25:00', '30/11/2026 18:00']) expect(parseLocalDateTime(bad, 'Europe/London')).toBeNull();
+    for (const bad of ['', 'yesterday', '2026-02-30 10:00', '2026-11-30 25:00', '30/11/2026 18:00'])
+      expect(parseLocalDateTime(bad, 'Europe/London')).toBeNull();
   });
 });

@@ -32,7 +32,10 @@ export function freePort(): Promise<number> {
 }
 
 /** Spawns the API on `port` (a free one if absent) with `env` added to this process's, and waits until it answers. */
-export async function spawnApiServer(env: Record<string, string>, options: { port?: number; readyTimeoutMs: number }): Promise<ServerProcess> {
+export async function spawnApiServer(
+  env: Record<string, string>,
+  options: { port?: number; readyTimeoutMs: number },
+): Promise<ServerProcess> {
   const port = options.port ?? (await freePort());
   let output = '';
   const child = spawn(process.execPath, ['--import', 'tsx', resolve('api/cli/start.ts'), '--api-only'], {

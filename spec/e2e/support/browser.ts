@@ -19,7 +19,9 @@ export const CHROMIUM_ARGS = [
 ];
 
 /** A persistent context on a fresh profile (service workers and IndexedDB behave as on a phone). */
-export async function launchContext(options: { width?: number; height?: number } = {}): Promise<{ context: BrowserContext; close(): Promise<void> }> {
+export async function launchContext(
+  options: { width?: number; height?: number } = {},
+): Promise<{ context: BrowserContext; close(): Promise<void> }> {
   const profile = mkdtempSync(join(tmpdir(), 'loftline-chromium-'));
   const context = await chromium.launchPersistentContext(profile, {
     executablePath: process.env['CHROME_BIN'] ?? '/usr/bin/chromium',

@@ -23,7 +23,11 @@ export async function profilesFitted(baseUrl: string, email: string, password = 
   for (;;) {
     let pending = 0;
     for (const squad of squads) {
-      const week = await getJson<{ players: { reach: { pending: boolean }[] }[] }>(baseUrl, token, `/api/squads/${squad.id}/week?start=${weekStart}`);
+      const week = await getJson<{ players: { reach: { pending: boolean }[] }[] }>(
+        baseUrl,
+        token,
+        `/api/squads/${squad.id}/week?start=${weekStart}`,
+      );
       pending += week.players.reduce((n, p) => n + p.reach.filter((r) => r.pending).length, 0);
     }
     if (pending === 0) return;

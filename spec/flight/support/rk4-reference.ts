@@ -38,12 +38,7 @@ function hermiteRoot(p0: number, m0: number, p1: number, m1: number, target: num
 }
 
 /** Integrate `model` with RK4 at step `stepS` until the ball comes down. */
-export function rk4Reference(
-  model: FlightModel,
-  stepS: number,
-  sampleEveryS = 0.02,
-  planeX: number | null = null,
-): ReferenceFlight {
+export function rk4Reference(model: FlightModel, stepS: number, sampleEveryS = 0.02, planeX: number | null = null): ReferenceFlight {
   let s = model.initialState.slice();
   const samples: ReferenceFlight['samples'] = [{ t: 0, x: 0, y: 0, z: 0 }];
   const sampleStride = Math.round(sampleEveryS / stepS);

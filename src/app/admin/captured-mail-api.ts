@@ -10,14 +10,10 @@ export type { CapturedMailMessage, CapturedMailSummary };
  * The captured-mail list: either the messages, or the statement that this server has no fake
  * mail server (production sends real mail, and nothing is captured to read).
  */
-export type CapturedMailbox =
-  | { readonly active: true; readonly messages: CapturedMailSummary[] }
-  | { readonly active: false };
+export type CapturedMailbox = { readonly active: true; readonly messages: CapturedMailSummary[] } | { readonly active: false };
 
 /** One message look-up: the message, or gone (captured mail lives only as long as the fake server). */
-export type CapturedMailLookup =
-  | { readonly found: true; readonly message: CapturedMailMessage }
-  | { readonly found: false };
+export type CapturedMailLookup = { readonly found: true; readonly message: CapturedMailMessage } | { readonly found: false };
 
 /**
  * Mail caught by the local fake SMTP server, for admins checking invitations, resets and

@@ -44,12 +44,7 @@ describe('CapturedMail', () => {
         provideZonelessChangeDetection(),
         provideHttpClient(),
         provideHttpClientTesting(),
-        provideRouter(
-          [
-            { path: 'admin/mail', component: CapturedMail },
-          ],
-          withComponentInputBinding(),
-        ),
+        provideRouter([{ path: 'admin/mail', component: CapturedMail }], withComponentInputBinding()),
       ],
     });
     backend = TestBed.inject(HttpTestingController);
@@ -129,7 +124,9 @@ describe('CapturedMail', () => {
     await open(`/admin/mail?message=${digestSummary.id}`);
     backend.expectOne('/api/dev/mail').flush({ messages: [inviteSummary, digestSummary] });
     await harness.fixture.whenStable();
-    backend.expectOne(`/api/dev/mail/${digestSummary.id}`).flush({ message: { ...digestSummary, text: 'Nia logged 40 reps.', html: null, headers: {} } });
+    backend
+      .expectOne(`/api/dev/mail/${digestSummary.id}`)
+      .flush({ message: { ...digestSummary, text: 'Nia logged 40 reps.', html: null, headers: {} } });
     await harness.fixture.whenStable();
 
     expect(root().querySelector('iframe')).toBeNull();

@@ -28,7 +28,9 @@ const SECTIONS: readonly AdminSection[] = [
   template: `
     <header class="admin__header">
       <h1 class="admin__title">Club admin</h1>
-      <p class="admin__subtitle">Guardian links and consent, invitations, training grounds, the club’s outgoing mail and the Pitchside stopwatch timing.</p>
+      <p class="admin__subtitle">
+        Guardian links and consent, invitations, training grounds, the club’s outgoing mail and the Pitchside stopwatch timing.
+      </p>
     </header>
     <nav mat-tab-nav-bar [tabPanel]="panel" aria-label="Club admin sections" mat-stretch-tabs="false">
       @for (section of sections; track section.path) {

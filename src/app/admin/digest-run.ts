@@ -31,8 +31,8 @@ import { DigestApi, type DigestRunResult } from '../guardian/digest-api';
     @if (result(); as done) {
       <p class="digest-run__message digest-run__message--ok" role="status">
         Week of {{ weekOf(done) }}: {{ done.familySent }} Family {{ done.familySent === 1 ? 'digest' : 'digests' }} sent,
-        {{ done.familySkipped }} skipped (no consent, digest off, or already sent this week);
-        {{ done.squadWeekSent }} Squad week {{ done.squadWeekSent === 1 ? 'summary' : 'summaries' }} sent.
+        {{ done.familySkipped }} skipped (no consent, digest off, or already sent this week); {{ done.squadWeekSent }} Squad week
+        {{ done.squadWeekSent === 1 ? 'summary' : 'summaries' }} sent.
       </p>
     }
     @if (failure(); as message) {

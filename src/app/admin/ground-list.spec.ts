@@ -12,7 +12,14 @@ import { MatTableHarness } from '@angular/material/table/testing';
 import type { Ground } from '../core/ground-api';
 import { compassPoint, GroundList } from './ground-list';
 
-const longmere: Ground = { id: '3c9f1a7e-2b4d-4e6f-8a1b-5c7d9e0f1a31', name: 'Longmere Lane', latitude: 52.7713, longitude: -1.5528, altitudeM: 88, kickingBearingDeg: 205 };
+const longmere: Ground = {
+  id: '3c9f1a7e-2b4d-4e6f-8a1b-5c7d9e0f1a31',
+  name: 'Longmere Lane',
+  latitude: 52.7713,
+  longitude: -1.5528,
+  altitudeM: 88,
+  kickingBearingDeg: 205,
+};
 
 describe('GroundList (Club admin)', () => {
   let fixture: ComponentFixture<GroundList>;
@@ -77,7 +84,13 @@ describe('GroundList (Club admin)', () => {
     await (await loader.getHarness(MatButtonHarness.with({ text: /Save the correction/ }))).click();
     const request = backend.expectOne({ method: 'PUT', url: `/api/grounds/${longmere.id}` });
     request.flush(
-      { error: { code: 'invalid', message: 'Training ground is invalid — name: name is required', fields: [{ field: 'name', message: 'name is required' }] } },
+      {
+        error: {
+          code: 'invalid',
+          message: 'Training ground is invalid — name: name is required',
+          fields: [{ field: 'name', message: 'name is required' }],
+        },
+      },
       { status: 400, statusText: 'Bad Request' },
     );
     await fixture.whenStable();

@@ -30,7 +30,16 @@ export function compassPoint(bearingDeg: number): string {
  */
 @Component({
   selector: 'll-ground-list',
-  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, MatTableModule, LoadFailure],
+  imports: [
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatProgressBarModule,
+    MatTableModule,
+    LoadFailure,
+  ],
   templateUrl: './ground-list.html',
   styleUrl: './admin-section.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -106,15 +115,13 @@ export class GroundList {
     };
     const editing = this.editing();
     this.saving.set(true);
-    (editing ? this.api.update(editing.id, input) : this.api.create(input))
-      .pipe(finalize(() => this.saving.set(false)))
-      .subscribe({
-        next: (ground) => {
-          this.saved.set(editing ? `${ground.name} is corrected.` : `${ground.name} is added.`);
-          this.addNew();
-          this.load();
-        },
-        error: (error: unknown) => this.failure.set(applyServerErrors(this.form, describeApiError(error))),
-      });
+    (editing ? this.api.update(editing.id, input) : this.api.create(input)).pipe(finalize(() => this.saving.set(false))).subscribe({
+      next: (ground) => {
+        this.saved.set(editing ? `${ground.name} is corrected.` : `${ground.name} is added.`);
+        this.addNew();
+        this.load();
+      },
+      error: (error: unknown) => this.failure.set(applyServerErrors(this.form, describeApiError(error))),
+    });
   }
 }

@@ -20,11 +20,41 @@ const squads: SquadSummary[] = [
   { id: '3c9f1a7e-2b4d-4e6f-8a1b-5c7d9e0f1a02', name: 'U16', ageGroup: 'Under 16', ballSize: 5, playerCount: 18 },
 ];
 const players: PlayerSummary[] = [
-  { id: '3c9f1a7e-2b4d-4e6f-8a1b-5c7d9e0f1a11', squadId: squads[0]!.id, squadName: 'U14', displayName: 'Ivo Lind', shirtNumber: 7, dominantFoot: 'right', isMinor: true },
-  { id: '3c9f1a7e-2b4d-4e6f-8a1b-5c7d9e0f1a12', squadId: 'first', squadName: 'First team', displayName: 'Rui Costa', shirtNumber: 10, dominantFoot: 'left', isMinor: false },
+  {
+    id: '3c9f1a7e-2b4d-4e6f-8a1b-5c7d9e0f1a11',
+    squadId: squads[0]!.id,
+    squadName: 'U14',
+    displayName: 'Ivo Lind',
+    shirtNumber: 7,
+    dominantFoot: 'right',
+    isMinor: true,
+  },
+  {
+    id: '3c9f1a7e-2b4d-4e6f-8a1b-5c7d9e0f1a12',
+    squadId: 'first',
+    squadName: 'First team',
+    displayName: 'Rui Costa',
+    shirtNumber: 10,
+    dominantFoot: 'left',
+    isMinor: false,
+  },
 ];
-const waiting: AdminUser = { id: 'u-1', email: 'kim@example.org', displayName: 'Kim Berg', role: 'guardian', invitedAt: '2026-11-28T12:00:00.000Z', activated: false };
-const neverInvited: AdminUser = { id: 'u-2', email: 'admin@example.org', displayName: 'Ola Admin', role: 'admin', invitedAt: null, activated: true };
+const waiting: AdminUser = {
+  id: 'u-1',
+  email: 'kim@example.org',
+  displayName: 'Kim Berg',
+  role: 'guardian',
+  invitedAt: '2026-11-28T12:00:00.000Z',
+  activated: false,
+};
+const neverInvited: AdminUser = {
+  id: 'u-2',
+  email: 'admin@example.org',
+  displayName: 'Ola Admin',
+  role: 'admin',
+  invitedAt: null,
+  activated: true,
+};
 
 describe('InviteForm', () => {
   let fixture: ComponentFixture<InviteForm>;
@@ -100,7 +130,10 @@ describe('InviteForm', () => {
       role: 'assistant_coach',
       squadIds: [squads[0]?.id, squads[1]?.id],
     });
-    request.flush({ userId: 'u-3', email: 'sam@example.org', expiresAt: '2026-12-08T12:00:00.000Z' }, { status: 201, statusText: 'Created' });
+    request.flush(
+      { userId: 'u-3', email: 'sam@example.org', expiresAt: '2026-12-08T12:00:00.000Z' },
+      { status: 201, statusText: 'Created' },
+    );
     await fixture.whenStable();
     backend.expectOne('/api/admin/users').flush({ users: [waiting] });
     await fixture.whenStable();
@@ -130,7 +163,11 @@ describe('InviteForm', () => {
     expect(await fieldLabels()).toEqual(['E-mail', 'Display name', 'Role']);
     await fillPerson();
     await send();
-    expect(backend.expectOne('/api/admin/invites').request.body).toEqual({ email: 'sam@example.org', displayName: 'Sam Okoro', role: 'admin' });
+    expect(backend.expectOne('/api/admin/invites').request.body).toEqual({
+      email: 'sam@example.org',
+      displayName: 'Sam Okoro',
+      role: 'admin',
+    });
   });
 
   it('puts the server field errors under the fields they name', async () => {
@@ -141,7 +178,13 @@ describe('InviteForm', () => {
     await fillPerson();
     await send();
     backend.expectOne('/api/admin/invites').flush(
-      { error: { code: 'invalid', message: 'An account with this e-mail already exists', fields: [{ field: 'email', message: 'Already has an account' }] } },
+      {
+        error: {
+          code: 'invalid',
+          message: 'An account with this e-mail already exists',
+          fields: [{ field: 'email', message: 'Already has an account' }],
+        },
+      },
       { status: 400, statusText: 'Bad Request' },
     );
     await fixture.whenStable();

@@ -93,7 +93,10 @@ describe('OutboxView', () => {
     await (await loader.getHarness(MatButtonHarness.with({ text: /Send digests now/ }))).click();
     backend
       .expectOne('/api/digests/run')
-      .flush({ error: { code: 'forbidden', message: 'Only admins and head coaches can send digests' } }, { status: 403, statusText: 'Forbidden' });
+      .flush(
+        { error: { code: 'forbidden', message: 'Only admins and head coaches can send digests' } },
+        { status: 403, statusText: 'Forbidden' },
+      );
     await fixture.whenStable();
     expect(text()).toContain('Only admins and head coaches can send digests');
   });

@@ -67,12 +67,16 @@ describe('StopwatchTiming (Club admin)', () => {
 
     await (await input(/timingSdS/)).setValue('0.1');
     await (await loader.getHarness(MatButtonHarness.with({ text: 'Save timing' }))).click();
-    backend
-      .expectOne({ method: 'PUT', url: '/api/club/settings' })
-      .flush(
-        { error: { code: 'invalid', message: 'Club settings is not valid', fields: [{ field: 'timingBiasS', message: 'timingBiasS must be at most 1 s' }] } },
-        { status: 400, statusText: 'Bad Request' },
-      );
+    backend.expectOne({ method: 'PUT', url: '/api/club/settings' }).flush(
+      {
+        error: {
+          code: 'invalid',
+          message: 'Club settings is not valid',
+          fields: [{ field: 'timingBiasS', message: 'timingBiasS must be at most 1 s' }],
+        },
+      },
+      { status: 400, statusText: 'Bad Request' },
+    );
     await until('the server’s field error', () => text().includes('timingBiasS must be at most 1 s'));
     expect(text()).toContain('Club settings is not valid');
   });

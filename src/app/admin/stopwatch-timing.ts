@@ -22,10 +22,10 @@ import { applyServerErrors } from './server-errors';
     <section class="section__card" aria-labelledby="timing-title">
       <h2 id="timing-title" class="section__title">Pitchside stopwatch timing</h2>
       <p class="section__lead">
-        A coach taps once at foot contact and once at the first bounce. The second tap usually lags by a reaction time, so a
-        reading runs long. The defaults ({{ defaults.biasS }} s bias, {{ defaults.sdS }} s spread) are common practice, not a
-        measurement: calibrate them by timing a few kicks on Pitchside while filming them, then reading the true contact and
-        bounce frames from your own video. Enter the mean of (tapped − filmed) as the bias and its standard deviation as the spread.
+        A coach taps once at foot contact and once at the first bounce. The second tap usually lags by a reaction time, so a reading runs
+        long. The defaults ({{ defaults.biasS }} s bias, {{ defaults.sdS }} s spread) are common practice, not a measurement: calibrate them
+        by timing a few kicks on Pitchside while filming them, then reading the true contact and bounce frames from your own video. Enter
+        the mean of (tapped − filmed) as the bias and its standard deviation as the spread.
       </p>
       <form class="section__form" [formGroup]="form" (ngSubmit)="save()" aria-label="Stopwatch timing">
         <mat-form-field appearance="outline">

@@ -128,10 +128,12 @@ describe('AcceptInvite', () => {
     await answerInvite();
     await fill('aaaaaaaaaaaa', 'aaaaaaaaaaaa');
     await (await submit()).click();
-    backend.expectOne('/api/auth/accept-invite').flush(
-      { error: { code: 'invalid', message: 'Check the password', fields: [{ field: 'password', message: 'password is too common' }] } },
-      { status: 400, statusText: 'Bad Request' },
-    );
+    backend
+      .expectOne('/api/auth/accept-invite')
+      .flush(
+        { error: { code: 'invalid', message: 'Check the password', fields: [{ field: 'password', message: 'password is too common' }] } },
+        { status: 400, statusText: 'Bad Request' },
+      );
     await harness.fixture.whenStable();
 
     expect(await (await field('New password')).getTextErrors()).toEqual(['password is too common']);

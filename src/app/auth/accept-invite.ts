@@ -41,7 +41,16 @@ function isDeadLink(problem: ApiProblem): boolean {
  */
 @Component({
   selector: 'll-accept-invite',
-  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, LoadFailure, NewPasswordFields, PublicPanel],
+  imports: [
+    ReactiveFormsModule,
+    RouterLink,
+    MatButtonModule,
+    MatIconModule,
+    MatProgressBarModule,
+    LoadFailure,
+    NewPasswordFields,
+    PublicPanel,
+  ],
   templateUrl: './accept-invite.html',
   styleUrl: './public-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -47,8 +47,6 @@ export class AccountApi {
    */
   discardTokens(tokens: AuthTokens): void {
     const headers = new HttpHeaders({ Authorization: `Bearer ${tokens.accessToken}` });
-    this.http
-      .post('/api/auth/logout', { refreshToken: tokens.refreshToken }, { headers })
-      .subscribe({ error: () => undefined });
+    this.http.post('/api/auth/logout', { refreshToken: tokens.refreshToken }, { headers }).subscribe({ error: () => undefined });
   }
 }

@@ -62,7 +62,10 @@ describe('ResetPassword', () => {
     await save('a brand new password');
     backend
       .expectOne('/api/auth/reset-password')
-      .flush({ error: { code: 'reset_used', message: 'This reset link has already been used' } }, { status: 400, statusText: 'Bad Request' });
+      .flush(
+        { error: { code: 'reset_used', message: 'This reset link has already been used' } },
+        { status: 400, statusText: 'Bad Request' },
+      );
     await harness.fixture.whenStable();
 
     expect(text()).toContain('This reset link has already been used');
@@ -73,7 +76,13 @@ describe('ResetPassword', () => {
     await open();
     await save('0123456789');
     backend.expectOne('/api/auth/reset-password').flush(
-      { error: { code: 'invalid', message: 'Password reset is not valid', fields: [{ field: 'password', message: 'password must be at most 200 characters' }] } },
+      {
+        error: {
+          code: 'invalid',
+          message: 'Password reset is not valid',
+          fields: [{ field: 'password', message: 'password must be at most 200 characters' }],
+        },
+      },
       { status: 400, statusText: 'Bad Request' },
     );
     await harness.fixture.whenStable();

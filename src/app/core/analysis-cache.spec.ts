@@ -37,7 +37,12 @@ describe('AnalysisCache', () => {
 
   it('drops the oldest entries beyond its limit', async () => {
     await db.analysisCache.bulkPut(
-      Array.from({ length: ANALYSIS_CACHE_LIMIT }, (_, i) => ({ key: `k${i}`, kind: 'envelope', value: i, updatedAt: new Date(2026, 0, 1, 0, 0, i).toISOString() })),
+      Array.from({ length: ANALYSIS_CACHE_LIMIT }, (_, i) => ({
+        key: `k${i}`,
+        kind: 'envelope',
+        value: i,
+        updatedAt: new Date(2026, 0, 1, 0, 0, i).toISOString(),
+      })),
     );
     await cache.put('newest', 'envelope', 'n');
     expect(await db.analysisCache.count()).toBe(ANALYSIS_CACHE_LIMIT);

@@ -25,7 +25,10 @@ export class AnalysisCache {
       await this.db.analysisCache.put({ key, kind, value, updatedAt: new Date().toISOString() });
       const count = await this.db.analysisCache.count();
       if (count > ANALYSIS_CACHE_LIMIT) {
-        const oldest = await this.db.analysisCache.orderBy('updatedAt').limit(count - ANALYSIS_CACHE_LIMIT).primaryKeys();
+        const oldest = await this.db.analysisCache
+          .orderBy('updatedAt')
+          .limit(count - ANALYSIS_CACHE_LIMIT)
+          .primaryKeys();
         await this.db.analysisCache.bulkDelete(oldest);
       }
     });

@@ -30,9 +30,7 @@ describe('describeApiError', () => {
   });
 
   it('words a rate limit without a body and a server fault with its status', () => {
-    expect(describeApiError(new HttpErrorResponse({ status: 429, error: 'Too Many Requests' })).message).toContain(
-      'Wait a minute',
-    );
+    expect(describeApiError(new HttpErrorResponse({ status: 429, error: 'Too Many Requests' })).message).toContain('Wait a minute');
     expect(describeApiError(new HttpErrorResponse({ status: 502, error: '<html>' })).message).toContain('HTTP 502');
   });
 });

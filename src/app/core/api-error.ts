@@ -14,8 +14,7 @@ export interface ApiProblem {
 }
 
 /** Shown when the request never got an answer: the usual state of a training pitch. */
-export const UNREACHABLE_MESSAGE =
-  'The Loftline server cannot be reached. Check your connection and try again.';
+export const UNREACHABLE_MESSAGE = 'The Loftline server cannot be reached. Check your connection and try again.';
 
 /**
  * Whether a response body has the shape every failing Loftline API call answers with.

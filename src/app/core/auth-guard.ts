@@ -16,8 +16,7 @@ export const requireSignedIn: CanActivateFn = (_route, state) => {
 };
 
 /** Keeps a signed-in user off the sign-in page (e.g. an old bookmark) by sending them home. */
-export const requireSignedOut: CanMatchFn = () =>
-  inject(AuthSession).isSignedIn() ? inject(Router).createUrlTree(['/home']) : true;
+export const requireSignedOut: CanMatchFn = () => (inject(AuthSession).isSignedIn() ? inject(Router).createUrlTree(['/home']) : true);
 
 /**
  * The in-app path to go to after signing in: the requested one when it is a plain local

@@ -154,9 +154,7 @@ describe('authInterceptor', () => {
     http.get('/api/squads').subscribe({ error: (error: unknown) => (failure = error) });
 
     backend.expectOne('/api/squads').flush(expiredBody, unauthorized);
-    backend
-      .expectOne('/api/auth/refresh')
-      .flush({ error: { code: 'invalid_token', message: 'Refresh token is not valid' } }, unauthorized);
+    backend.expectOne('/api/auth/refresh').flush({ error: { code: 'invalid_token', message: 'Refresh token is not valid' } }, unauthorized);
 
     expect(session.isSignedIn()).toBeFalse();
     expect(storage.getItem(SESSION_STORAGE_KEY)).toBeNull();

@@ -129,9 +129,7 @@ export class AuthSession {
       return;
     }
     const headers = new HttpHeaders({ Authorization: `Bearer ${current.accessToken}` });
-    this.http
-      .post('/api/auth/logout', { refreshToken: current.refreshToken }, { headers })
-      .subscribe({ error: () => undefined });
+    this.http.post('/api/auth/logout', { refreshToken: current.refreshToken }, { headers }).subscribe({ error: () => undefined });
   }
 
   /**

@@ -15,7 +15,9 @@ const STORAGE_KEY = 'loftline.clubSettings';
 export class ClubSettingsStore {
   private readonly http = inject(HttpClient);
   private readonly storage = inject(BROWSER_STORAGE);
-  private readonly current = signal<ClubSettings>(this.readCached() ?? { timingBiasS: DEFAULT_TIMING.biasS, timingSdS: DEFAULT_TIMING.sdS });
+  private readonly current = signal<ClubSettings>(
+    this.readCached() ?? { timingBiasS: DEFAULT_TIMING.biasS, timingSdS: DEFAULT_TIMING.sdS },
+  );
 
   /** The settings in force on this device. */
   readonly settings = this.current.asReadonly();

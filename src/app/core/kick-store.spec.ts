@@ -182,7 +182,9 @@ describe('KickStore and SessionStore (real IndexedDB)', () => {
   it('removes a voided kick the server never accepted instead of sending a tombstone', async () => {
     const logged = await kicks.log(kick());
     const batch = await takeBatch(db, SPEC_COACH.id, 500);
-    await settlePush(db, batch, [{ id: batch[0].id, status: 'rejected', error: { code: 'invalid', message: 'data.playerId: Unknown player' } }]);
+    await settlePush(db, batch, [
+      { id: batch[0].id, status: 'rejected', error: { code: 'invalid', message: 'data.playerId: Unknown player' } },
+    ]);
 
     await kicks.void(logged.id);
 
@@ -206,7 +208,14 @@ describe('KickStore and SessionStore (real IndexedDB)', () => {
   });
 
   it('records a drill with its default spin and the session’s conditions in the outbox', async () => {
-    const drill = await sessions.addDrill(sessionId, { technique: 'chipped', targetDistanceM: 18, targetRadiusM: 2, backspinStep: 2, sidespinStep: 0, label: null });
+    const drill = await sessions.addDrill(sessionId, {
+      technique: 'chipped',
+      targetDistanceM: 18,
+      targetRadiusM: 2,
+      backspinStep: 2,
+      sidespinStep: 0,
+      label: null,
+    });
     await sessions.update(sessionId, { windSpeedMs: 6 });
 
     const outbox = await db.outbox.orderBy('seq').toArray();

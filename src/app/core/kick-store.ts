@@ -16,7 +16,17 @@ export type NewKick = Omit<KickData, 'id' | 'recordedAt' | 'updatedAt'>;
 export type KickCorrection = Partial<
   Pick<
     KickData,
-    'playerId' | 'outcome' | 'backspinStep' | 'sidespinStep' | 'carryM' | 'lateralM' | 'hangTimeS' | 'foot' | 'technique' | 'targetDistanceM' | 'targetRadiusM'
+    | 'playerId'
+    | 'outcome'
+    | 'backspinStep'
+    | 'sidespinStep'
+    | 'carryM'
+    | 'lateralM'
+    | 'hangTimeS'
+    | 'foot'
+    | 'technique'
+    | 'targetDistanceM'
+    | 'targetRadiusM'
   >
 >;
 

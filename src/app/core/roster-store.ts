@@ -35,9 +35,7 @@ export class RosterStore {
   /** The user's squads, by name (undefined until IndexedDB has answered). */
   readonly squads: Signal<CachedSquad[] | undefined> = toSignal(
     toObservable(this.userId).pipe(
-      switchMap((id) =>
-        id === null ? of([]) : from(liveQuery(() => this.db.squads.where('userIds').equals(id).sortBy('name'))),
-      ),
+      switchMap((id) => (id === null ? of([]) : from(liveQuery(() => this.db.squads.where('userIds').equals(id).sortBy('name'))))),
     ),
     { initialValue: undefined },
   );
@@ -109,7 +107,11 @@ export class RosterStore {
         );
         // Players who left a listed squad must not stay on its chips.
         const current = new Set(players.map((p) => p.id));
-        const stale = await this.db.players.where('squadId').anyOf([...listed]).filter((p) => !current.has(p.id)).primaryKeys();
+        const stale = await this.db.players
+          .where('squadId')
+          .anyOf([...listed])
+          .filter((p) => !current.has(p.id))
+          .primaryKeys();
         await this.db.players.bulkDelete(stale);
         await this.db.players.bulkPut(players.map((p) => ({ ...p, fetchedAt })));
       });

@@ -101,10 +101,12 @@ export class SessionStore {
         switchMap((sessionId) =>
           sessionId === null
             ? of(null)
-            : from(liveQuery(async () => {
-                const row = await this.db.sessions.get(sessionId);
-                return row && !row.deletedAt ? row : null;
-              })),
+            : from(
+                liveQuery(async () => {
+                  const row = await this.db.sessions.get(sessionId);
+                  return row && !row.deletedAt ? row : null;
+                }),
+              ),
         ),
       ),
       { initialValue: undefined },
@@ -118,11 +120,13 @@ export class SessionStore {
         switchMap((id) =>
           id === null
             ? of([])
-            : from(liveQuery(async () => {
-                const drills = await this.db.drills.where('sessionId').equals(id).toArray();
-                const added = (d: LocalDrill): string => d.addedAt ?? d.updatedAt;
-                return drills.filter((d) => !d.deletedAt).sort((a, b) => added(a).localeCompare(added(b)) || a.id.localeCompare(b.id));
-              })),
+            : from(
+                liveQuery(async () => {
+                  const drills = await this.db.drills.where('sessionId').equals(id).toArray();
+                  const added = (d: LocalDrill): string => d.addedAt ?? d.updatedAt;
+                  return drills.filter((d) => !d.deletedAt).sort((a, b) => added(a).localeCompare(added(b)) || a.id.localeCompare(b.id));
+                }),
+              ),
         ),
       ),
       { initialValue: undefined },

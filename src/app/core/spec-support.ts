@@ -19,7 +19,12 @@ export function signedInStorage(user: SessionUser): MemoryStorage {
   const storage = new MemoryStorage();
   storage.setItem(
     SESSION_STORAGE_KEY,
-    JSON.stringify({ accessToken: 'access-1', refreshToken: 'refresh-token-number-1', user, club: { id: user.clubId, name: 'Harbour Academy' } }),
+    JSON.stringify({
+      accessToken: 'access-1',
+      refreshToken: 'refresh-token-number-1',
+      user,
+      club: { id: user.clubId, name: 'Harbour Academy' },
+    }),
   );
   return storage;
 }

@@ -20,8 +20,6 @@ export class SquadApi {
   /** The players the caller may see (`GET /api/players`), optionally of one squad only. */
   listPlayers(squadId?: string): Observable<PlayerSummary[]> {
     const params = squadId ? new HttpParams().set('squadId', squadId) : undefined;
-    return this.http
-      .get<{ players: PlayerSummary[] }>('/api/players', { params })
-      .pipe(map((body) => body.players));
+    return this.http.get<{ players: PlayerSummary[] }>('/api/players', { params }).pipe(map((body) => body.players));
   }
 }

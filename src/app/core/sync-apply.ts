@@ -212,5 +212,9 @@ export function discardEntry(db: LoftlineDb, mutationId: string): Promise<boolea
 
 /** Sends a rejected entry again as it is (e.g. after its session reached the server). */
 export async function retryEntry(db: LoftlineDb, mutationId: string): Promise<void> {
-  await db.outbox.where('id').equals(mutationId).filter((e) => e.state === 'rejected').modify({ state: 'pending', error: undefined });
+  await db.outbox
+    .where('id')
+    .equals(mutationId)
+    .filter((e) => e.state === 'rejected')
+    .modify({ state: 'pending', error: undefined });
 }

@@ -19,7 +19,14 @@ import { PUSH_BATCH_SIZE, SYNC_TIMING, SyncQueue, backoffDelayMs, type SyncTimin
 class Blank {}
 
 /** Short timings so the spec runs in real time; jitter fixed at the middle of its range. */
-const TIMING: SyncTiming = { writeDebounceMs: 20, periodMs: 3_600_000, backoffBaseMs: 60, backoffMaxMs: 1000, pullPageSize: 2, random: () => 0.5 };
+const TIMING: SyncTiming = {
+  writeDebounceMs: 20,
+  periodMs: 3_600_000,
+  backoffBaseMs: 60,
+  backoffMaxMs: 1000,
+  pullPageSize: 2,
+  random: () => 0.5,
+};
 
 describe('SyncQueue (real IndexedDB, HttpTestingController)', () => {
   let db: LoftlineDb;
@@ -51,7 +58,10 @@ describe('SyncQueue (real IndexedDB, HttpTestingController)', () => {
     return found[0];
   }
 
-  function pushBody(request: TestRequest): { deviceId: string; mutations: { id: string; entity: string; baseVersion?: number; data: Record<string, unknown> }[] } {
+  function pushBody(request: TestRequest): {
+    deviceId: string;
+    mutations: { id: string; entity: string; baseVersion?: number; data: Record<string, unknown> }[];
+  } {
     return request.request.body as ReturnType<typeof pushBody>;
   }
 
@@ -122,7 +132,13 @@ describe('SyncQueue (real IndexedDB, HttpTestingController)', () => {
     const page1 = await next('/api/sync/pull');
     expect(page1.request.params.get('since')).toBe('0');
     expect(page1.request.params.get('limit')).toBe('2');
-    const pulled: SyncRow = { ...(await db.kicks.get(first.id))!, version: 1, updatedAt: '2026-11-20T18:41:13.000Z', deletedAt: null, carryM: 36 };
+    const pulled: SyncRow = {
+      ...(await db.kicks.get(first.id))!,
+      version: 1,
+      updatedAt: '2026-11-20T18:41:13.000Z',
+      deletedAt: null,
+      carryM: 36,
+    };
     page1.flush({ changes: [{ entity: 'kick', changeSeq: 7, data: pulled }], cursor: 7, hasMore: true });
     const page2 = await next('/api/sync/pull');
     expect(page2.request.params.get('since')).toBe('7');
@@ -259,7 +275,15 @@ describe('SyncQueue (real IndexedDB, HttpTestingController)', () => {
     push.flush({
       results: [
         { id: session.id, status: 'applied' },
-        { id: k.id, status: 'rejected', error: { code: 'invalid', message: 'data.playerId: Unknown player', fields: [{ field: 'data.playerId', message: 'Unknown player' }] } },
+        {
+          id: k.id,
+          status: 'rejected',
+          error: {
+            code: 'invalid',
+            message: 'data.playerId: Unknown player',
+            fields: [{ field: 'data.playerId', message: 'Unknown player' }],
+          },
+        },
       ],
       cursor: 2,
     });
@@ -293,7 +317,15 @@ describe('SyncQueue (real IndexedDB, HttpTestingController)', () => {
     const push = await next('/api/sync/push');
     const [edit] = pushBody(push).mutations;
     expect(edit.baseVersion).toBe(2);
-    const current: SyncRow = { ...edit.data, id: theirsBase.id, outcome: 'short', carryM: 44, version: 3, updatedAt: '2026-11-21T10:00:00.000Z', deletedAt: null };
+    const current: SyncRow = {
+      ...edit.data,
+      id: theirsBase.id,
+      outcome: 'short',
+      carryM: 44,
+      version: 3,
+      updatedAt: '2026-11-21T10:00:00.000Z',
+      deletedAt: null,
+    };
     push.flush({ results: [{ id: edit.id, status: 'conflict', current }], cursor: 9 });
     await emptyPull(9);
 
@@ -323,7 +355,9 @@ describe('SyncQueue (real IndexedDB, HttpTestingController)', () => {
 
     // A later round: the push fails again but imagine the server sends an older copy on pull.
     const retry = await next('/api/sync/push');
-    const results = pushBody(retry).mutations.filter((m) => m.entity === 'training_session').map((m) => ({ id: m.id, status: 'applied' as const }));
+    const results = pushBody(retry)
+      .mutations.filter((m) => m.entity === 'training_session')
+      .map((m) => ({ id: m.id, status: 'applied' as const }));
     retry.flush({ results, cursor: 5 });
     const older: SyncRow = { ...mine, outcome: 'short', version: 1, deletedAt: null };
     (await next('/api/sync/pull')).flush({ changes: [{ entity: 'kick', changeSeq: 5, data: older }], cursor: 5, hasMore: false });
@@ -338,7 +372,10 @@ describe('SyncQueue (real IndexedDB, HttpTestingController)', () => {
     await kicks.log(kick());
     const queue = startQueue();
 
-    (await next('/api/sync/push')).flush({ error: { code: 'unauthorized', message: 'Token expired' } }, { status: 401, statusText: 'Unauthorized' });
+    (await next('/api/sync/push')).flush(
+      { error: { code: 'unauthorized', message: 'Token expired' } },
+      { status: 401, statusText: 'Unauthorized' },
+    );
     let refresh: TestRequest[] = [];
     await until('the refresh', () => (refresh = http.match('/api/auth/refresh')).length > 0);
     refresh[0].flush({ error: { code: 'invalid_refresh', message: 'Expired' } }, { status: 401, statusText: 'Unauthorized' });
@@ -359,7 +396,12 @@ describe('SyncQueue (real IndexedDB, HttpTestingController)', () => {
 
   it('pushes only the signed-in coach’s changes and keeps everything on sign-out', async () => {
     await kicks.log(kick());
-    await db.outbox.add({ ...(await db.outbox.orderBy('seq').last())!, id: '6a0c1c3e-5a7e-4c44-9a8e-0d7e0c6f1e01', seq: 99, userId: 'someone-else' });
+    await db.outbox.add({
+      ...(await db.outbox.orderBy('seq').last())!,
+      id: '6a0c1c3e-5a7e-4c44-9a8e-0d7e0c6f1e01',
+      seq: 99,
+      userId: 'someone-else',
+    });
     const queue = startQueue();
     const push = await next('/api/sync/push');
     expect(pushBody(push).mutations.length).toBe(2);

@@ -289,9 +289,8 @@ export class SyncQueue {
 
   /** A live count (or other query) over the current user's rows, as a signal. */
   private forUser<T>(initial: T, query: (userId: string) => Promise<T>): Signal<T> {
-    return toSignal(
-      toObservable(this.userId).pipe(switchMap((id) => (id === null ? of(initial) : from(liveQuery(() => query(id)))))),
-      { initialValue: initial },
-    );
+    return toSignal(toObservable(this.userId).pipe(switchMap((id) => (id === null ? of(initial) : from(liveQuery(() => query(id)))))), {
+      initialValue: initial,
+    });
   }
 }

@@ -16,7 +16,15 @@ import { textOf } from '../imports/import-spec-support';
 import { DataRequests } from './data-requests';
 
 const SQUADS: SquadSummary[] = [{ id: SPEC_IDS.squad, name: 'U16', ageGroup: 'U16', ballSize: 5, playerCount: 2 }];
-const ADA: PlayerSummary = { id: SPEC_IDS.playerA, squadId: SPEC_IDS.squad, squadName: 'U16', displayName: 'Ada Fixture', shirtNumber: 4, dominantFoot: 'left', isMinor: true };
+const ADA: PlayerSummary = {
+  id: SPEC_IDS.playerA,
+  squadId: SPEC_IDS.squad,
+  squadName: 'U16',
+  displayName: 'Ada Fixture',
+  shirtNumber: 4,
+  dominantFoot: 'left',
+  isMinor: true,
+};
 const BO: PlayerSummary = { ...ADA, id: SPEC_IDS.playerB, displayName: 'Bo Fixture', shirtNumber: 8 };
 
 describe('DataRequests', () => {
@@ -87,7 +95,9 @@ describe('DataRequests', () => {
     backend.expectOne(`/api/players?squadId=${SPEC_IDS.squad}`).flush({ players: [BO] });
     await fixture.whenStable();
     expect(await players!.isDisabled()).toBeFalse();
-    expect(textOf(fixture)).toContain('Ada Fixture has been erased: 12 kicks kept only as anonymised figures. The erasure is in the audit log.');
+    expect(textOf(fixture)).toContain(
+      'Ada Fixture has been erased: 12 kicks kept only as anonymised figures. The erasure is in the audit log.',
+    );
     expect(await loader.getAllHarnesses(MatButtonHarness.with({ text: /for good/ }))).toEqual([]);
   });
 
@@ -97,7 +107,10 @@ describe('DataRequests', () => {
     await (await eraseButton()).click();
     backend
       .expectOne(`/api/admin/players/${SPEC_IDS.playerA}/erase`)
-      .flush({ error: { code: 'invalid', message: 'Type the player’s full name exactly to confirm' } }, { status: 400, statusText: 'Bad Request' });
+      .flush(
+        { error: { code: 'invalid', message: 'Type the player’s full name exactly to confirm' } },
+        { status: 400, statusText: 'Bad Request' },
+      );
     await fixture.whenStable();
     expect(textOf(fixture)).toContain('Nothing was erased.');
     expect(textOf(fixture)).toContain('Type the player’s full name exactly to confirm');
@@ -105,9 +118,9 @@ describe('DataRequests', () => {
 
   it('downloads everything held about the player as JSON', async () => {
     await (await loader.getHarness(MatButtonHarness.with({ text: /Download Ada Fixture’s data \(JSON\)/ }))).click();
-    backend
-      .expectOne(`/api/exports/players/${SPEC_IDS.playerA}.json`)
-      .flush(new Blob(['{"player":{}}'], { type: 'application/json' }), { headers: { 'Content-Disposition': `attachment; filename="loftline-player-${SPEC_IDS.playerA}.json"` } });
+    backend.expectOne(`/api/exports/players/${SPEC_IDS.playerA}.json`).flush(new Blob(['{"player":{}}'], { type: 'application/json' }), {
+      headers: { 'Content-Disposition': `attachment; filename="loftline-player-${SPEC_IDS.playerA}.json"` },
+    });
     await until('the file to be saved', async () => {
       await fixture.whenStable();
       return saved.length > 0;

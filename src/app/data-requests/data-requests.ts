@@ -80,7 +80,9 @@ export class DataRequests {
   private readonly playerId = toSignal(this.choice.controls.playerId.valueChanges, { initialValue: '' });
   protected readonly players = toSignal(
     combineLatest([toObservable(this.squadId), this.reloadPlayers.pipe(startWith(undefined))]).pipe(
-      switchMap(([squadId]) => (squadId === '' ? of<LoadState<PlayerSummary[]>>(LOADING) : this.squadApi.listPlayers(squadId).pipe(toLoadState()))),
+      switchMap(([squadId]) =>
+        squadId === '' ? of<LoadState<PlayerSummary[]>>(LOADING) : this.squadApi.listPlayers(squadId).pipe(toLoadState()),
+      ),
     ),
     { initialValue: LOADING },
   );
@@ -95,7 +97,9 @@ export class DataRequests {
     const player = this.player();
     return player !== null && (this.eraseValue().confirmName ?? '').trim() === player.displayName;
   });
-  protected readonly canErase = computed(() => this.nameMatches() && (this.eraseValue().mode ?? null) !== null && this.erasing().status !== 'working');
+  protected readonly canErase = computed(
+    () => this.nameMatches() && (this.eraseValue().mode ?? null) !== null && this.erasing().status !== 'working',
+  );
 
   protected readonly exporting = signal<RequestState>(IDLE);
   protected readonly erasing = signal<RequestState>(IDLE);
@@ -140,7 +144,10 @@ export class DataRequests {
       this.exports.playerData(player.id).subscribe({
         next: (file) => {
           this.download.save(file.blob, file.fileName);
-          this.exporting.set({ status: 'done', message: `Saved ${file.fileName}. Send it to the person who asked by a secure route, then delete your copy.` });
+          this.exporting.set({
+            status: 'done',
+            message: `Saved ${file.fileName}. Send it to the person who asked by a secure route, then delete your copy.`,
+          });
         },
         error: (error: unknown) => this.exporting.set({ status: 'failed', problem: describeApiError(error) }),
       }),

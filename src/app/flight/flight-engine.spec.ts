@@ -84,10 +84,7 @@ describe('FlightEngine', () => {
     });
 
     it('passes a RangeError naming the field back from the worker', async () => {
-      await expectAsync(firstValueFrom(engine.simulate({ speed: -1, elevationDeg: 30 }))).toBeRejectedWithError(
-        RangeError,
-        /^speed/,
-      );
+      await expectAsync(firstValueFrom(engine.simulate({ speed: -1, elevationDeg: 30 }))).toBeRejectedWithError(RangeError, /^speed/);
     });
   });
 
@@ -96,9 +93,7 @@ describe('FlightEngine', () => {
       TestBed.configureTestingModule({ providers: [{ provide: FLIGHT_WORKER_FACTORY, useValue: () => null }] });
       const engine = TestBed.inject(FlightEngine);
       expect(engine.runsInWorker).toBeFalse();
-      expect(await firstValueFrom(engine.envelope(profile(), conditions, options))).toEqual(
-        reachEnvelope(profile(), conditions, options),
-      );
+      expect(await firstValueFrom(engine.envelope(profile(), conditions, options))).toEqual(reachEnvelope(profile(), conditions, options));
       await expectAsync(firstValueFrom(engine.simulate({ speed: 20, elevationDeg: 95 }))).toBeRejectedWithError(
         RangeError,
         /^elevationDeg/,

@@ -30,8 +30,7 @@ import type { SetPieceRankEntry, SetPieceRankInput } from './set-piece-rank';
  */
 export const FLIGHT_WORKER_FACTORY = new InjectionToken<() => Worker | null>('FLIGHT_WORKER_FACTORY', {
   providedIn: 'root',
-  factory: () => () =>
-    typeof Worker === 'undefined' ? null : new Worker(new URL('./flight.worker', import.meta.url), { type: 'module' }),
+  factory: () => () => (typeof Worker === 'undefined' ? null : new Worker(new URL('./flight.worker', import.meta.url), { type: 'module' })),
 });
 
 /**

@@ -33,8 +33,25 @@ function curler(overrides: Partial<KickProfile> = {}): KickProfile {
 
 const spots: SetPieceInput[] = [
   { ballX: 22, ballY: 0, profile: curler(), conditions: {}, samples: 250, seed: 11 },
-  { ballX: 25, ballY: 6, wallHeightM: 2.2, aimYM: -2, profile: curler({ meanSpeedMs: 26 }), conditions: { wind: { speedMs: 4, fromDeg: 60 } }, samples: 200, seed: 5 },
-  { ballX: 18, ballY: -8, wallHeightM: 1.8, profile: curler({ elevationDeg: 25, sidespinRps: -6 }), conditions: { air: { altitudeM: 800, temperatureC: 25 } }, samples: 150, seed: 2 },
+  {
+    ballX: 25,
+    ballY: 6,
+    wallHeightM: 2.2,
+    aimYM: -2,
+    profile: curler({ meanSpeedMs: 26 }),
+    conditions: { wind: { speedMs: 4, fromDeg: 60 } },
+    samples: 200,
+    seed: 5,
+  },
+  {
+    ballX: 18,
+    ballY: -8,
+    wallHeightM: 1.8,
+    profile: curler({ elevationDeg: 25, sidespinRps: -6 }),
+    conditions: { air: { altitudeM: 800, temperatureC: 25 } },
+    samples: 150,
+    seed: 2,
+  },
 ];
 
 describe('setPieceCloud', () => {
@@ -90,7 +107,14 @@ describe('aimLineFlight', () => {
     // IFAB Laws of the Game, Law 13: the wall at 9.15 m.
     expect(f.wallAlongAimM).toBeCloseTo(WALL_DISTANCE_M, 9);
     expect(f.goalAlongAimM).toBeCloseTo(24, 9);
-    const direct = simulateKick({ speed: 24, elevationDeg: 19, azimuthDeg: 0, backspinRps: 3, sidespinRps: 4, planes: [WALL_DISTANCE_M, 24] });
+    const direct = simulateKick({
+      speed: 24,
+      elevationDeg: 19,
+      azimuthDeg: 0,
+      backspinRps: 3,
+      sidespinRps: 4,
+      planes: [WALL_DISTANCE_M, 24],
+    });
     expect(f.wallHeightOfBallM).toBeCloseTo(direct.crossings[0]!.z, 3);
     expect(f.goalHeightOfBallM).toBeCloseTo(direct.crossings[1]!.z, 3);
     expect(f.carryM).toBe(direct.carryM);
@@ -112,6 +136,8 @@ describe('setPieceRank', () => {
     ];
     const ranked = setPieceRank({ ballX: 22, ballY: 0, conditions: {}, samples: 120, seed: 4, players });
     expect(ranked.map((e) => e.id)).toEqual(['slow', 'good']);
-    expect(ranked[1]!.result).toEqual(setPieceCloud({ ballX: 22, ballY: 0, profile: players[1]!.profile, conditions: {}, samples: 120, seed: 4 }));
+    expect(ranked[1]!.result).toEqual(
+      setPieceCloud({ ballX: 22, ballY: 0, profile: players[1]!.profile, conditions: {}, samples: 120, seed: 4 }),
+    );
   });
 });

@@ -28,6 +28,10 @@ export function describeTrend(firstName: string, weeks: readonly ChildWeek[]): s
   }
   const points = Math.round(last.hitRate * 100) - Math.round(first.hitRate * 100);
   const direction =
-    points === 0 ? 'unchanged' : points > 0 ? `up ${points} ${points === 1 ? 'point' : 'points'}` : `down ${-points} ${points === -1 ? 'point' : 'points'}`;
+    points === 0
+      ? 'unchanged'
+      : points > 0
+        ? `up ${points} ${points === 1 ? 'point' : 'points'}`
+        : `down ${-points} ${points === -1 ? 'point' : 'points'}`;
   return `${repsSentence} Hit rate ${percentLabel(first.hitRate)} at first, ${percentLabel(last.hitRate)} in the latest week (${direction}).`;
 }

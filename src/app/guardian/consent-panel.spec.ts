@@ -16,7 +16,12 @@ import { SPEC_CONSENT_TEXT, specConsentedLink, specLink } from './spec-fixtures'
 /** Plays Guardian home's part: holds the link and takes the panel's updates. */
 @Component({
   imports: [ConsentPanel],
-  template: `<ll-consent-panel [link]="link()" [consentText]="text()" (changed)="link.set($event)" (textOutdated)="outdatedCount.set(outdatedCount() + 1)" />`,
+  template: `<ll-consent-panel
+    [link]="link()"
+    [consentText]="text()"
+    (changed)="link.set($event)"
+    (textOutdated)="outdatedCount.set(outdatedCount() + 1)"
+  />`,
 })
 class Host {
   readonly link = signal<GuardianLinkView>(specLink());
@@ -146,10 +151,12 @@ describe('ConsentPanel', () => {
     await open(specConsentedLink());
     await (await digestToggle()).toggle();
 
-    backend.expectOne(digestUrl).flush(
-      { error: { code: 'consent_required', message: 'Give consent first: the digest is only sent with recorded consent' } },
-      { status: 400, statusText: 'Bad Request' },
-    );
+    backend
+      .expectOne(digestUrl)
+      .flush(
+        { error: { code: 'consent_required', message: 'Give consent first: the digest is only sent with recorded consent' } },
+        { status: 400, statusText: 'Bad Request' },
+      );
     await fixture.whenStable();
 
     expect(await (await digestToggle()).isChecked()).toBeFalse();

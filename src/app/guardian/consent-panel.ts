@@ -107,12 +107,7 @@ export class ConsentPanel {
     this.run('digest', this.api.setDigestOptIn(this.link().id, wanted), undefined, () => this.optInShown.set(!wanted));
   }
 
-  private run(
-    action: PendingAction,
-    request: Observable<GuardianLinkView>,
-    onDone?: () => void,
-    onFailure?: () => void,
-  ): void {
+  private run(action: PendingAction, request: Observable<GuardianLinkView>, onDone?: () => void, onFailure?: () => void): void {
     this.failure.set(null);
     this.pending.set(action);
     request.pipe(finalize(() => this.pending.set(null))).subscribe({

@@ -83,7 +83,9 @@ describe('GuardianHome', () => {
     expect(await Promise.all(cards.map((card) => card.getSubtitleText()))).toEqual(['U14', 'U12']);
     expect(text()).toContain('Nia logged 40 repetitions over 2 weeks. Hit rate 50 % at first, 59 % in the latest week (up 9 points).');
     expect(text()).toContain('Nia’s lofted passes reached 32 m on target.');
-    const tableCells = Array.from((fixture.nativeElement as HTMLElement).querySelectorAll('ll-weekly-trend-chart td')).map((cell) => cell.textContent?.trim());
+    const tableCells = Array.from((fixture.nativeElement as HTMLElement).querySelectorAll('ll-weekly-trend-chart td')).map((cell) =>
+      cell.textContent?.trim(),
+    );
     expect(tableCells.slice(0, 3)).toEqual(['2 Nov', '18', '50 %']);
     expect((fixture.nativeElement as HTMLElement).querySelectorAll('ll-weekly-trend-chart rect.ll-trend__bar').length).toBe(4);
 

@@ -70,9 +70,7 @@ export class GuardianHome {
   /** Puts the server's updated link in place of the old one. */
   protected replaceLink(updated: GuardianLinkView): void {
     this.links.update((state) =>
-      state.status === 'ready'
-        ? { status: 'ready', value: state.value.map((link) => (link.id === updated.id ? updated : link)) }
-        : state,
+      state.status === 'ready' ? { status: 'ready', value: state.value.map((link) => (link.id === updated.id ? updated : link)) } : state,
     );
   }
 }

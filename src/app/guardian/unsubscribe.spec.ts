@@ -66,10 +66,12 @@ describe('Unsubscribe', () => {
   it("shows the server's reason for a bad link and never tries to refresh anyone's session", async () => {
     await open();
     await (await stop()).click();
-    backend.expectOne(isUnsubscribe).flush(
-      { error: { code: 'unsubscribe_invalid', message: 'This unsubscribe link is not valid or has expired' } },
-      { status: 400, statusText: 'Bad Request' },
-    );
+    backend
+      .expectOne(isUnsubscribe)
+      .flush(
+        { error: { code: 'unsubscribe_invalid', message: 'This unsubscribe link is not valid or has expired' } },
+        { status: 400, statusText: 'Bad Request' },
+      );
     await harness.fixture.whenStable();
     expect(text()).toContain('This unsubscribe link is not valid or has expired');
 

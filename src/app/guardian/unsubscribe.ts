@@ -24,20 +24,21 @@ import { DigestApi } from './digest-api';
           <p>Done. You will not receive the Family digest about {{ firstName }} any more.</p>
         </div>
         <p class="page__lead">
-          Your consent record has not changed. To receive the digest again, or to withdraw consent as well, sign in and
-          open Guardian home.
+          Your consent record has not changed. To receive the digest again, or to withdraw consent as well, sign in and open Guardian home.
         </p>
         <p class="page__links"><a routerLink="/sign-in">Sign in</a></p>
       } @else if (!token()) {
         <div class="page__message page__message--failure" role="alert">
           <mat-icon aria-hidden="true">link_off</mat-icon>
-          <p>This unsubscribe link is incomplete. Open it from the digest e-mail again, or sign in and turn the digest off in Guardian home.</p>
+          <p>
+            This unsubscribe link is incomplete. Open it from the digest e-mail again, or sign in and turn the digest off in Guardian home.
+          </p>
         </div>
         <p class="page__links"><a routerLink="/sign-in">Sign in</a></p>
       } @else {
         <p class="page__lead">
-          This stops the weekly Family digest e-mail for the child this link was sent about. Nothing else changes: your
-          consent record stays as it is, and you can turn the digest on again in Guardian home.
+          This stops the weekly Family digest e-mail for the child this link was sent about. Nothing else changes: your consent record stays
+          as it is, and you can turn the digest on again in Guardian home.
         </p>
         @if (failure(); as message) {
           <div class="page__message page__message--failure" role="alert">

@@ -117,12 +117,21 @@ export class WeeklyTrendChart {
 
     g.append('g')
       .attr('class', 'll-chart__grid')
-      .call(axisLeft(reps).ticks(4).tickSize(-innerW).tickFormat(() => ''));
+      .call(
+        axisLeft(reps)
+          .ticks(4)
+          .tickSize(-innerW)
+          .tickFormat(() => ''),
+      );
     g.append('g').attr('class', 'll-chart__axis').call(axisLeft(reps).ticks(4));
     g.append('g')
       .attr('class', 'll-chart__axis')
       .attr('transform', `translate(${innerW},0)`)
-      .call(axisRight(rate).ticks(2).tickFormat((v) => `${Math.round(Number(v) * 100)} %`));
+      .call(
+        axisRight(rate)
+          .ticks(2)
+          .tickFormat((v) => `${Math.round(Number(v) * 100)} %`),
+      );
     g.append('g')
       .attr('class', 'll-chart__axis')
       .attr('transform', `translate(0,${innerH})`)
@@ -149,7 +158,9 @@ export class WeeklyTrendChart {
       .defined((week) => week.hitRate !== null)
       .x(centre)
       .y((week) => rate(week.hitRate ?? 0));
-    g.append('path').attr('class', 'll-trend__line').attr('d', rateLine([...weeks]));
+    g.append('path')
+      .attr('class', 'll-trend__line')
+      .attr('d', rateLine([...weeks]));
     g.selectAll('circle.ll-trend__point')
       .data(weeks.filter((week) => week.hitRate !== null))
       .join('circle')

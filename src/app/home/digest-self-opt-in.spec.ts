@@ -32,7 +32,9 @@ describe('DigestSelfOptIn', () => {
     http.expectOne('/api/me/digest-opt-in').flush({ optIn: false });
     const toggle = await TestbedHarnessEnvironment.loader(fixture).getHarness(MatSlideToggleHarness);
     await toggle.toggle();
-    http.expectOne((r) => r.method === 'PUT').flush({ error: { code: 'forbidden', message: 'Your role does not allow this' } }, { status: 403, statusText: 'Forbidden' });
+    http
+      .expectOne((r) => r.method === 'PUT')
+      .flush({ error: { code: 'forbidden', message: 'Your role does not allow this' } }, { status: 403, statusText: 'Forbidden' });
     await fixture.whenStable();
     expect(await toggle.isChecked()).toBeFalse();
     expect((fixture.nativeElement as HTMLElement).textContent).toContain('Your role does not allow this');

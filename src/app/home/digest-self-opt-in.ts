@@ -28,16 +28,28 @@ export class DigestSelfOptInApi {
   selector: 'll-digest-self-opt-in',
   imports: [MatSlideToggleModule],
   template: `
-    <mat-slide-toggle [checked]="optIn()" [disabled]="busy()" (change)="choose($event)">Let my guardians receive the weekly Family digest about me</mat-slide-toggle>
-    <p class="opt-in__hint">You are 18 or over, so no digest about you is sent unless you switch this on. You can switch it off at any time.</p>
+    <mat-slide-toggle [checked]="optIn()" [disabled]="busy()" (change)="choose($event)"
+      >Let my guardians receive the weekly Family digest about me</mat-slide-toggle
+    >
+    <p class="opt-in__hint">
+      You are 18 or over, so no digest about you is sent unless you switch this on. You can switch it off at any time.
+    </p>
     @if (problem(); as message) {
       <p class="opt-in__problem" role="alert">{{ message }}</p>
     }
   `,
   styles: `
-    :host { display: block; margin-top: 12px; }
-    .opt-in__hint { margin: 4px 0 0; font-size: 0.9rem; }
-    .opt-in__problem { color: var(--mat-sys-error); }
+    :host {
+      display: block;
+      margin-top: 12px;
+    }
+    .opt-in__hint {
+      margin: 4px 0 0;
+      font-size: 0.9rem;
+    }
+    .opt-in__problem {
+      color: var(--mat-sys-error);
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

@@ -110,7 +110,7 @@ describe('Home', () => {
     expect(await cardTitles()).toEqual(['Sam Keeper']);
   });
 
-  it("shows a guardian their linked children", async () => {
+  it('shows a guardian their linked children', async () => {
     const user = await openAs('guardian');
     answerMe(user, { childPlayerIds: ['player-7', 'player-9'] });
     backend.expectOne('/api/players').flush({

@@ -45,9 +45,7 @@ export class Home {
     return [role ? ROLE_LABELS[role] : null, this.clubName()].filter((part) => part !== null).join(' · ');
   });
   /** The name to greet: the server's current one once known, the stored one before. */
-  protected readonly displayName = computed(
-    () => this.profile.me()?.user.displayName ?? this.session.user()?.displayName ?? '',
-  );
+  protected readonly displayName = computed(() => this.profile.me()?.user.displayName ?? this.session.user()?.displayName ?? '');
 
   protected readonly list = toSignal(
     this.reloadList.pipe(
@@ -81,12 +79,14 @@ export class Home {
       return of({ kind: 'none' });
     }
     if (isStaffRole(role)) {
-      return this.squadApi
-        .listSquads()
-        .pipe(toLoadState(), map((state): HomeList => ({ kind: 'squads', state })));
+      return this.squadApi.listSquads().pipe(
+        toLoadState(),
+        map((state): HomeList => ({ kind: 'squads', state })),
+      );
     }
-    return this.squadApi
-      .listPlayers()
-      .pipe(toLoadState(), map((state): HomeList => ({ kind: 'players', state })));
+    return this.squadApi.listPlayers().pipe(
+      toLoadState(),
+      map((state): HomeList => ({ kind: 'players', state })),
+    );
   }
 }

@@ -39,6 +39,10 @@ describe('unit guesses', () => {
   });
 
   it('falls back to the given units where the headers say nothing', () => {
-    expect(guessUnits({ speed: 'Speed', spin: 'Spin rpm', lateral: 'Side yards' }, METRIC_UNITS)).toEqual({ speed: 'm/s', spin: 'rpm', distance: 'yd' });
+    expect(guessUnits({ speed: 'Speed', spin: 'Spin rpm', lateral: 'Side yards' }, METRIC_UNITS)).toEqual({
+      speed: 'm/s',
+      spin: 'rpm',
+      distance: 'yd',
+    });
   });
 });

@@ -52,7 +52,14 @@ export class ColumnMapping {
 
   /** The form's value as a signal, so the samples follow every change. */
   protected readonly value = toSignal(
-    toObservable(this.form).pipe(switchMap((form) => form.valueChanges.pipe(startWith(null), map(() => form.getRawValue())))),
+    toObservable(this.form).pipe(
+      switchMap((form) =>
+        form.valueChanges.pipe(
+          startWith(null),
+          map(() => form.getRawValue()),
+        ),
+      ),
+    ),
   );
 
   protected readonly sample = computed(() => {

@@ -82,7 +82,9 @@ export class DeviceMappings {
 
 /** The saved columns of `entry` that `header` lacks. */
 export function missingColumns(entry: SavedDeviceMapping, header: readonly string[]): string[] {
-  return FIELDS.map((field) => entry.columns[field]).filter((column): column is string => column !== undefined && columnIndex(header, column) < 0);
+  return FIELDS.map((field) => entry.columns[field]).filter(
+    (column): column is string => column !== undefined && columnIndex(header, column) < 0,
+  );
 }
 
 function normalise(device: string): string {

@@ -71,7 +71,14 @@ export function withParsedBody(error: unknown): Observable<never> {
         // Not JSON (a proxy's HTML page): keep the text; the status still says what happened.
       }
       return throwError(
-        () => new HttpErrorResponse({ error: body, headers: error.headers, status: error.status, statusText: error.statusText, url: error.url ?? undefined }),
+        () =>
+          new HttpErrorResponse({
+            error: body,
+            headers: error.headers,
+            status: error.status,
+            statusText: error.statusText,
+            url: error.url ?? undefined,
+          }),
       );
     }),
   );

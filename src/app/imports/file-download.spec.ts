@@ -7,7 +7,9 @@ describe('attachmentName', () => {
   });
 
   it('reads a quoted or bare filename', () => {
-    expect(attachmentName('attachment; filename="loftline-kicks-2026-11-01-2026-11-30.csv"', 'x.csv')).toBe('loftline-kicks-2026-11-01-2026-11-30.csv');
+    expect(attachmentName('attachment; filename="loftline-kicks-2026-11-01-2026-11-30.csv"', 'x.csv')).toBe(
+      'loftline-kicks-2026-11-01-2026-11-30.csv',
+    );
     expect(attachmentName('attachment; filename=kicks.csv', 'x.csv')).toBe('kicks.csv');
   });
 

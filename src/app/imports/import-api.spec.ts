@@ -1,4 +1,12 @@
-import { HttpBackend, HttpErrorResponse, HttpEventType, HttpXhrBackend, FetchBackend, provideHttpClient, withFetch } from '@angular/common/http';
+import {
+  HttpBackend,
+  HttpErrorResponse,
+  HttpEventType,
+  HttpXhrBackend,
+  FetchBackend,
+  provideHttpClient,
+  withFetch,
+} from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { EnvironmentInjector, createEnvironmentInjector, provideZonelessChangeDetection } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
@@ -72,7 +80,10 @@ describe('ImportApi', () => {
   it('passes a refused commit on with its per-row errors', async () => {
     const result = firstValueFrom(api.roster(new File(['x'], 'r.csv'), false)).catch((error: unknown) => describeImportFailure(error));
     backend.expectOne('/api/imports/roster?dryRun=false').flush(
-      { error: { code: 'import_invalid', message: 'The file has 1 problem; nothing was imported' }, errors: [{ row: 3, column: 'foot', message: 'Foot must be left or right' }, { row: 'x' }] },
+      {
+        error: { code: 'import_invalid', message: 'The file has 1 problem; nothing was imported' },
+        errors: [{ row: 3, column: 'foot', message: 'Foot must be left or right' }, { row: 'x' }],
+      },
       { status: 400, statusText: 'Bad Request' },
     );
     expect(await result).toEqual({
@@ -92,11 +103,15 @@ describe('describeImportFailure', () => {
   });
 
   it('words a proxy’s 413 as the size limit', () => {
-    expect(describeImportFailure(new HttpErrorResponse({ status: 413, error: '<html>' })).message).toContain('larger than the server accepts (5 MB)');
+    expect(describeImportFailure(new HttpErrorResponse({ status: 413, error: '<html>' })).message).toContain(
+      'larger than the server accepts (5 MB)',
+    );
   });
 
   it('keeps the message of a failure on the device', () => {
-    expect(describeImportFailure(new Error('The server answered without a result. Try again.')).message).toBe('The server answered without a result. Try again.');
+    expect(describeImportFailure(new Error('The server answered without a result. Try again.')).message).toBe(
+      'The server answered without a result. Try again.',
+    );
   });
 });
 

@@ -41,7 +41,8 @@ describe('ImportPreview', () => {
     loader = TestbedHarnessEnvironment.loader(fixture);
   });
 
-  const rowNumbers = async (): Promise<string[]> => (await (await loader.getHarness(MatTableHarness)).getCellTextByColumnName())['row']?.text ?? [];
+  const rowNumbers = async (): Promise<string[]> =>
+    (await (await loader.getHarness(MatTableHarness)).getCellTextByColumnName())['row']?.text ?? [];
 
   it('pages through the rows with problems, 25 at a time', async () => {
     // Every other row names nobody: rows 2, 4, … 60 (30 rows).
@@ -71,7 +72,13 @@ describe('ImportPreview', () => {
   });
 
   it('lists problems no row of the file can show above the table', async () => {
-    await show([{ row: 2, column: 'Spin', message: 'The file has no Spin column' }, { row: 0, column: '', message: 'The mapping is invalid' }], null);
+    await show(
+      [
+        { row: 2, column: 'Spin', message: 'The file has no Spin column' },
+        { row: 0, column: '', message: 'The mapping is invalid' },
+      ],
+      null,
+    );
     expect(textOf(fixture)).toContain('Row 2, Spin: The file has no Spin column');
     expect(textOf(fixture)).toContain('The mapping is invalid');
     expect(textOf(fixture)).not.toContain('Players not found');

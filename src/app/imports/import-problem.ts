@@ -27,7 +27,12 @@ export function describeImportFailure(error: unknown): ImportRefusal {
   }
   const problem = describeApiError(error);
   if (error.status === 413 && problem.code === null) {
-    return { message: 'The file is larger than the server accepts (5 MB). Split it and upload the parts one by one.', unreachable: false, code: 'file_too_large', rowErrors: [] };
+    return {
+      message: 'The file is larger than the server accepts (5 MB). Split it and upload the parts one by one.',
+      unreachable: false,
+      code: 'file_too_large',
+      rowErrors: [],
+    };
   }
   return { message: problem.message, unreachable: problem.unreachable, code: problem.code, rowErrors: rowErrorsOf(error.error) };
 }

@@ -25,7 +25,12 @@ export function csvFile(name: string, lines: readonly string[]): File {
 }
 
 /** Waits for the one upload to `url` with `dryRun` (files are read asynchronously first). */
-export async function nextUpload(backend: HttpTestingController, url: string, dryRun: boolean, fixture: ComponentFixture<unknown>): Promise<TestRequest> {
+export async function nextUpload(
+  backend: HttpTestingController,
+  url: string,
+  dryRun: boolean,
+  fixture: ComponentFixture<unknown>,
+): Promise<TestRequest> {
   const matches = (): TestRequest[] => backend.match((r) => r.url === url && r.params.get('dryRun') === String(dryRun));
   let found: TestRequest[] = [];
   await until(`an upload to ${url} (dryRun=${dryRun})`, async () => {

@@ -17,8 +17,24 @@ import { KickExports, countRecords } from './kick-exports';
 
 const SQUADS: SquadSummary[] = [{ id: SPEC_IDS.squad, name: 'U16', ageGroup: 'U16', ballSize: 5, playerCount: 2 }];
 const PLAYERS: PlayerSummary[] = [
-  { id: SPEC_IDS.playerA, squadId: SPEC_IDS.squad, squadName: 'U16', displayName: 'Ada Fixture', shirtNumber: 4, dominantFoot: 'left', isMinor: true },
-  { id: SPEC_IDS.playerB, squadId: SPEC_IDS.squad, squadName: 'U16', displayName: 'Bo Fixture', shirtNumber: null, dominantFoot: 'right', isMinor: true },
+  {
+    id: SPEC_IDS.playerA,
+    squadId: SPEC_IDS.squad,
+    squadName: 'U16',
+    displayName: 'Ada Fixture',
+    shirtNumber: 4,
+    dominantFoot: 'left',
+    isMinor: true,
+  },
+  {
+    id: SPEC_IDS.playerB,
+    squadId: SPEC_IDS.squad,
+    squadName: 'U16',
+    displayName: 'Bo Fixture',
+    shirtNumber: null,
+    dominantFoot: 'right',
+    isMinor: true,
+  },
 ];
 const CSV = 'kick_id,recorded_at,player\r\nk1,2026-11-20T18:00:00Z,"Fixture, Ada"\r\nk2,2026-11-21T18:00:00Z,"Two\r\nlines"\r\n';
 
@@ -58,7 +74,9 @@ describe('KickExports', () => {
     await (await download()).click();
     const request = backend.expectOne((r) => r.url === '/api/exports/kicks.csv');
     check(new URLSearchParams(request.request.params.toString()));
-    request.flush(new Blob([CSV], { type: 'text/csv' }), { headers: { 'Content-Disposition': 'attachment; filename="loftline-kicks-2026-11-03-2026-11-30.csv"' } });
+    request.flush(new Blob([CSV], { type: 'text/csv' }), {
+      headers: { 'Content-Disposition': 'attachment; filename="loftline-kicks-2026-11-03-2026-11-30.csv"' },
+    });
     await until('the file to be saved', async () => {
       await fixture.whenStable();
       return saved.length > 0;
@@ -99,10 +117,13 @@ describe('KickExports', () => {
     await (await download()).click();
     backend
       .expectOne((r) => r.url === '/api/exports/kicks.csv')
-      .flush(new Blob([JSON.stringify({ error: { code: 'not_found', message: 'No such squad among yours' } })], { type: 'application/json' }), {
-        status: 404,
-        statusText: 'Not Found',
-      });
+      .flush(
+        new Blob([JSON.stringify({ error: { code: 'not_found', message: 'No such squad among yours' } })], { type: 'application/json' }),
+        {
+          status: 404,
+          statusText: 'Not Found',
+        },
+      );
     await until('the refusal', async () => {
       await fixture.whenStable();
       return textOf(fixture).includes('No such squad among yours');

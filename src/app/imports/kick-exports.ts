@@ -29,7 +29,9 @@ type DownloadState =
 const rangeInOrder: ValidatorFn = (group) => {
   const from: unknown = group.get('from')?.value;
   const to: unknown = group.get('to')?.value;
-  return typeof from === 'string' && typeof to === 'string' && from !== '' && to !== '' && from > to ? { range: 'The first day is after the last day.' } : null;
+  return typeof from === 'string' && typeof to === 'string' && from !== '' && to !== '' && from > to
+    ? { range: 'The first day is after the last day.' }
+    : null;
 };
 
 /**
@@ -40,7 +42,16 @@ const rangeInOrder: ValidatorFn = (group) => {
  */
 @Component({
   selector: 'll-kick-exports',
-  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, MatSelectModule, LoadFailure],
+  imports: [
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatProgressBarModule,
+    MatSelectModule,
+    LoadFailure,
+  ],
   templateUrl: './kick-exports.html',
   styleUrl: './imports-wizard.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -73,11 +84,15 @@ export class KickExports {
   private readonly squadId = toSignal(this.form.controls.squadId.valueChanges, { initialValue: '' });
   protected readonly players = toSignal(
     toObservable(this.squadId).pipe(
-      switchMap((squadId) => (squadId === '' ? of<LoadState<PlayerSummary[]>>(LOADING) : this.squadApi.listPlayers(squadId).pipe(toLoadState()))),
+      switchMap((squadId) =>
+        squadId === '' ? of<LoadState<PlayerSummary[]>>(LOADING) : this.squadApi.listPlayers(squadId).pipe(toLoadState()),
+      ),
     ),
     { initialValue: LOADING },
   );
-  private readonly formValid = toSignal(this.form.statusChanges.pipe(map((status) => status === 'VALID')), { initialValue: this.form.valid });
+  private readonly formValid = toSignal(this.form.statusChanges.pipe(map((status) => status === 'VALID')), {
+    initialValue: this.form.valid,
+  });
   protected readonly state = signal<DownloadState>({ status: 'idle' });
   protected readonly canDownload = computed(() => this.formValid() && this.state().status !== 'downloading');
 

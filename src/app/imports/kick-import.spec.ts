@@ -204,7 +204,10 @@ describe('KickImport', () => {
 
   it('shows the server’s refusal of the whole upload in its own words', async () => {
     await toColumns(DEVICE_FILE);
-    (await checkRows()).flush({ error: { code: 'forbidden', message: 'You may not import kicks into this squad' } }, { status: 403, statusText: 'Forbidden' });
+    (await checkRows()).flush(
+      { error: { code: 'forbidden', message: 'You may not import kicks into this squad' } },
+      { status: 403, statusText: 'Forbidden' },
+    );
     await fixture.whenStable();
     expect(textOf(fixture)).toContain('The file could not be checked.');
     expect(textOf(fixture)).toContain('You may not import kicks into this squad');

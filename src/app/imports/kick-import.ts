@@ -103,17 +103,23 @@ export class KickImport {
 
   protected readonly step = computed(() => (this.commit.answer() ? 3 : this.preview.answer() ? 2 : this.stage()));
   private readonly drillStatus = toSignal(this.drill.statusChanges.pipe(map(() => this.drill.status)), { initialValue: this.drill.status });
-  private readonly mappingStatus = toSignal(this.mapping.statusChanges.pipe(map(() => this.mapping.status)), { initialValue: this.mapping.status });
+  private readonly mappingStatus = toSignal(this.mapping.statusChanges.pipe(map(() => this.mapping.status)), {
+    initialValue: this.mapping.status,
+  });
   protected readonly canMap = computed(() => this.drillStatus() === 'VALID' && this.csv() !== null);
   protected readonly canCheck = computed(() => this.mappingStatus() === 'VALID' && !this.preview.busy());
   protected readonly previewAnswer = this.preview.answer;
   protected readonly rowErrors = computed(() => {
     const state = this.commit.state();
-    return state.status === 'refused' && state.refusal.rowErrors.length > 0 ? state.refusal.rowErrors : (this.previewAnswer()?.errors ?? []);
+    return state.status === 'refused' && state.refusal.rowErrors.length > 0
+      ? state.refusal.rowErrors
+      : (this.previewAnswer()?.errors ?? []);
   });
   protected readonly canCommit = computed(() => {
     const answer = this.previewAnswer();
-    return answer !== null && answer.errors.length === 0 && !answer.alreadyImported && answer.summary.kicksCreated > 0 && !this.commit.busy();
+    return (
+      answer !== null && answer.errors.length === 0 && !answer.alreadyImported && answer.summary.kicksCreated > 0 && !this.commit.busy()
+    );
   });
   protected readonly previewColumns = computed<PreviewColumn[]>(() => {
     const checked = this.checkedMapping();

@@ -75,7 +75,9 @@ export const mappingValidator: ValidatorFn = (control): ValidationErrors | null 
     if (column === '') continue;
     const other = seen.get(column);
     if (other !== undefined) {
-      return { mapping: `“${column}” is chosen for both ${FIELD_LABELS[other].label.toLowerCase()} and ${FIELD_LABELS[field].label.toLowerCase()}.` };
+      return {
+        mapping: `“${column}” is chosen for both ${FIELD_LABELS[other].label.toLowerCase()} and ${FIELD_LABELS[field].label.toLowerCase()}.`,
+      };
     }
     seen.set(column, field);
   }
@@ -95,7 +97,13 @@ export function mappingOf(value: MappingValue): { columns: KickColumns; units: K
  * Fills the form from a guess or a saved mapping, taking each column only when this file's
  * header has it (spelled as in this file). Returns the columns that were asked for but missing.
  */
-export function fillMapping(form: MappingForm, header: readonly string[], columns: ColumnGuess, units: KickUnits, device?: string): string[] {
+export function fillMapping(
+  form: MappingForm,
+  header: readonly string[],
+  columns: ColumnGuess,
+  units: KickUnits,
+  device?: string,
+): string[] {
   const missing: string[] = [];
   const pick = (wanted: string | undefined): string => {
     if (wanted === undefined) return '';

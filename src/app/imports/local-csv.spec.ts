@@ -26,7 +26,13 @@ describe('parseCsv', () => {
   });
 
   it('finds a semicolon or tab delimiter from the header row', () => {
-    expect(parseCsv('a;b;c\n1;2,5;3\n')).toEqual({ delimiter: ';', records: [['a', 'b', 'c'], ['1', '2,5', '3']] });
+    expect(parseCsv('a;b;c\n1;2,5;3\n')).toEqual({
+      delimiter: ';',
+      records: [
+        ['a', 'b', 'c'],
+        ['1', '2,5', '3'],
+      ],
+    });
     expect(parseCsv('a\tb\n1\t2').delimiter).toBe('\t');
   });
 

@@ -53,17 +53,23 @@ export function columnIndex(header: readonly string[], column: string): number {
  */
 export async function readLocalCsv(file: File): Promise<LocalCsv> {
   if (!/\.(csv|txt)$/i.test(file.name)) {
-    throw new LocalCsvError(`${file.name} is not a CSV file. Only CSV files (.csv) can be imported: save the sheet as CSV and choose that file.`);
+    throw new LocalCsvError(
+      `${file.name} is not a CSV file. Only CSV files (.csv) can be imported: save the sheet as CSV and choose that file.`,
+    );
   }
   if (file.size === 0) {
     throw new LocalCsvError(`${file.name} is empty.`);
   }
   if (file.size > MAX_UPLOAD_BYTES) {
-    throw new LocalCsvError(`${file.name} is ${megabytes(file.size)}; the largest file accepted is ${megabytes(MAX_UPLOAD_BYTES)}. Split it and import the parts one by one.`);
+    throw new LocalCsvError(
+      `${file.name} is ${megabytes(file.size)}; the largest file accepted is ${megabytes(MAX_UPLOAD_BYTES)}. Split it and import the parts one by one.`,
+    );
   }
   const bytes = new Uint8Array(await file.arrayBuffer());
   if (looksBinary(bytes)) {
-    throw new LocalCsvError(`${file.name} is not a CSV text file (it looks like a spreadsheet or other binary file). Save it as CSV and try again.`);
+    throw new LocalCsvError(
+      `${file.name} is not a CSV text file (it looks like a spreadsheet or other binary file). Save it as CSV and try again.`,
+    );
   }
   const { text, encoding } = decode(bytes);
   const { delimiter, records } = parseCsv(text);

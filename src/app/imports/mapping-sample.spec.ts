@@ -26,7 +26,12 @@ describe('unit conversion', () => {
 describe('mappingSample', () => {
   it('shows the first rows in Loftline units, with the units in the headings', () => {
     const form = createMappingForm();
-    fillMapping(form, csv([]).header, { player: 'Kicker', speed: 'Speed', spin: 'Spin', carry: 'Carry' }, { speed: 'mph', spin: 'rpm', distance: 'yd' });
+    fillMapping(
+      form,
+      csv([]).header,
+      { player: 'Kicker', speed: 'Speed', spin: 'Spin', carry: 'Carry' },
+      { speed: 'mph', spin: 'rpm', distance: 'yd' },
+    );
     const sample = mappingSample(csv([['7', '', '50', '600', '40']]), form.getRawValue());
     expect(sample.fields.map((f) => f.label)).toEqual(['Player', 'Ball speed (m/s)', 'Spin (rev/s)', 'Carry (m)']);
     expect(sample.rows[0]?.row).toBe(2);
@@ -38,7 +43,13 @@ describe('mappingSample', () => {
   it('flags a value that the chosen unit puts out of range, a non-number and an unreadable time', () => {
     const form = createMappingForm();
     fillMapping(form, csv([]).header, { player: 'Kicker', time: 'When', speed: 'Speed' }, { speed: 'm/s', spin: 'rev/s', distance: 'm' });
-    const sample = mappingSample(csv([['', 'yesterday', '90'], ['8', '2026-11-30 18:05:10', 'fast']]), form.getRawValue());
+    const sample = mappingSample(
+      csv([
+        ['', 'yesterday', '90'],
+        ['8', '2026-11-30 18:05:10', 'fast'],
+      ]),
+      form.getRawValue(),
+    );
     const [first, second] = sample.rows;
     expect(first?.cells[0]?.warning).toBe('No player given');
     expect(first?.cells[1]?.warning).toContain('Not a date and time');
@@ -75,7 +86,13 @@ describe('the mapping form', () => {
 
   it('takes saved columns as this file spells them and reports those it lacks', () => {
     const form = createMappingForm();
-    const missing = fillMapping(form, header, { player: 'KICKER', speed: 'Speed', lateral: 'Side' }, { speed: 'mph', spin: 'rev/s', distance: 'm' }, 'Radar');
+    const missing = fillMapping(
+      form,
+      header,
+      { player: 'KICKER', speed: 'Speed', lateral: 'Side' },
+      { speed: 'mph', spin: 'rev/s', distance: 'm' },
+      'Radar',
+    );
     expect(missing).toEqual(['Side']);
     expect(mappingOf(form.getRawValue())).toEqual({
       columns: { player: 'Kicker', speed: 'Speed' },

@@ -22,7 +22,14 @@ const ROSTER = csvFile('roster.csv', [
   'U12,Cy Fixture,9,2013,right,',
 ]);
 const SUMMARY: RosterSummary = { squadsCreated: 1, playersCreated: 3, playersUpdated: 0, guardiansCreated: 1, linksCreated: 1 };
-const clean = (dryRun: boolean): ImportAnswer<RosterSummary> => ({ dryRun, uploadId: dryRun ? null : 'u-1', alreadyImported: false, rows: 3, errors: [], summary: SUMMARY });
+const clean = (dryRun: boolean): ImportAnswer<RosterSummary> => ({
+  dryRun,
+  uploadId: dryRun ? null : 'u-1',
+  alreadyImported: false,
+  rows: 3,
+  errors: [],
+  summary: SUMMARY,
+});
 
 describe('RosterImport', () => {
   let fixture: ComponentFixture<RosterImport>;
@@ -87,7 +94,9 @@ describe('RosterImport', () => {
     (await nextUpload(backend, '/api/imports/roster', true, fixture)).flush(clean(true));
     await fixture.whenStable();
     expect(textOf(fixture)).toContain('All 3 rows can be imported.');
-    expect(textOf(fixture)).toContain('Importing would make: 1 squad created · 3 players added · 1 guardian account created · 1 guardian link made.');
+    expect(textOf(fixture)).toContain(
+      'Importing would make: 1 squad created · 3 players added · 1 guardian account created · 1 guardian link made.',
+    );
 
     await (await importButton()).click();
     const commit = backend.expectOne('/api/imports/roster?dryRun=false');
@@ -106,14 +115,19 @@ describe('RosterImport', () => {
     await (await importButton()).click();
     backend.expectOne('/api/imports/roster?dryRun=false').flush(
       {
-        error: { code: 'import_invalid', message: 'Row 2: ada.parent@example.org belongs to an account that is not a guardian of this club; nothing was imported' },
+        error: {
+          code: 'import_invalid',
+          message: 'Row 2: ada.parent@example.org belongs to an account that is not a guardian of this club; nothing was imported',
+        },
         errors: [{ row: 2, column: 'guardian_emails', message: 'ada.parent@example.org is not a guardian account of this club' }],
       },
       { status: 400, statusText: 'Bad Request' },
     );
     await fixture.whenStable();
     expect(textOf(fixture)).toContain('Nothing was imported.');
-    expect(textOf(fixture)).toContain('Row 2: ada.parent@example.org belongs to an account that is not a guardian of this club; nothing was imported');
+    expect(textOf(fixture)).toContain(
+      'Row 2: ada.parent@example.org belongs to an account that is not a guardian of this club; nothing was imported',
+    );
     const cells = await (await table()).getCellTextByColumnName();
     expect(cells['row']?.text).toEqual(['2']);
     expect(cells['problems']?.text).toEqual(['guardian_emails: ada.parent@example.org is not a guardian account of this club']);
@@ -156,6 +170,8 @@ describe('RosterImport', () => {
     await (await loader.getHarness(MatButtonHarness.with({ text: /Save a template file/ }))).click();
     expect(saved.length).toBe(1);
     expect(saved[0]?.name).toBe('loftline-roster-template.csv');
-    expect((await saved[0]!.blob.text()).split('\r\n')[0]).toBe('squad,name,shirt_number,birth_year,foot,guardian_emails,age_group,ball_size');
+    expect((await saved[0]!.blob.text()).split('\r\n')[0]).toBe(
+      'squad,name,shirt_number,birth_year,foot,guardian_emails,age_group,ball_size',
+    );
   });
 });

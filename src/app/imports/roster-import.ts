@@ -68,13 +68,17 @@ export class RosterImport {
   /** Row errors to highlight: the preview's, or those of a refused commit. */
   protected readonly rowErrors = computed(() => {
     const state = this.commit.state();
-    return state.status === 'refused' && state.refusal.rowErrors.length > 0 ? state.refusal.rowErrors : (this.previewAnswer()?.errors ?? []);
+    return state.status === 'refused' && state.refusal.rowErrors.length > 0
+      ? state.refusal.rowErrors
+      : (this.previewAnswer()?.errors ?? []);
   });
   protected readonly canCommit = computed(() => {
     const answer = this.previewAnswer();
     return answer !== null && answer.errors.length === 0 && !answer.alreadyImported && !this.commit.busy();
   });
-  protected readonly previewColumns = computed<PreviewColumn[]>(() => (this.csv()?.header ?? []).map((header) => ({ header, label: header })));
+  protected readonly previewColumns = computed<PreviewColumn[]>(() =>
+    (this.csv()?.header ?? []).map((header) => ({ header, label: header })),
+  );
   protected readonly summaryLines = computed(() => summaryLines(this.commit.answer()?.summary ?? this.previewAnswer()?.summary ?? null));
 
   constructor() {
@@ -152,6 +156,8 @@ export class RosterImport {
 /** "2 squads created", … for the counts that are not zero ("Nothing to change" when all are). */
 export function summaryLines(summary: RosterSummary | null): string[] {
   if (summary === null) return [];
-  const lines = SUMMARY_LABELS.filter(([key]) => summary[key] > 0).map(([key, one, many]) => `${summary[key]} ${summary[key] === 1 ? one : many}`);
+  const lines = SUMMARY_LABELS.filter(([key]) => summary[key] > 0).map(
+    ([key, one, many]) => `${summary[key]} ${summary[key] === 1 ? one : many}`,
+  );
   return lines.length > 0 ? lines : ['Nothing to change: everyone in the file is already on the roster as written.'];
 }

@@ -52,26 +52,29 @@ export class UploadProgress {
   /** Emitted when the coach stops an upload that is still sending. */
   readonly cancelUpload = output<void>();
 
-  protected readonly view = computed(() => {
-    const state = this.state();
-    if (state.status === 'checking') {
-      const what = state.dryRun ? 'Checking every row on the server' : 'Importing on the server';
-      return { mode: 'indeterminate' as const, percent: 0, text: `${what}…` };
-    }
-    if (state.status !== 'uploading') {
-      return null;
-    }
-    const { loadedBytes, totalBytes } = state;
-    if (totalBytes === null || totalBytes === 0) {
-      return { mode: 'determinate' as const, percent: 0, text: `Sending ${this.fileName()}: ${kilobytes(loadedBytes)}…` };
-    }
-    const percent = Math.min(100, Math.round((loadedBytes / totalBytes) * 100));
-    return {
-      mode: 'determinate' as const,
-      percent,
-      text: `Sending ${this.fileName()}: ${kilobytes(loadedBytes)} of ${kilobytes(totalBytes)} (${percent} %)`,
-    };
-  }, { equal: (a, b) => a?.text === b?.text && a?.mode === b?.mode });
+  protected readonly view = computed(
+    () => {
+      const state = this.state();
+      if (state.status === 'checking') {
+        const what = state.dryRun ? 'Checking every row on the server' : 'Importing on the server';
+        return { mode: 'indeterminate' as const, percent: 0, text: `${what}…` };
+      }
+      if (state.status !== 'uploading') {
+        return null;
+      }
+      const { loadedBytes, totalBytes } = state;
+      if (totalBytes === null || totalBytes === 0) {
+        return { mode: 'determinate' as const, percent: 0, text: `Sending ${this.fileName()}: ${kilobytes(loadedBytes)}…` };
+      }
+      const percent = Math.min(100, Math.round((loadedBytes / totalBytes) * 100));
+      return {
+        mode: 'determinate' as const,
+        percent,
+        text: `Sending ${this.fileName()}: ${kilobytes(loadedBytes)} of ${kilobytes(totalBytes)} (${percent} %)`,
+      };
+    },
+    { equal: (a, b) => a?.text === b?.text && a?.mode === b?.mode },
+  );
 }
 
 /** A byte count for people: "840 kB", "3.2 MB". */

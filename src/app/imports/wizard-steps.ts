@@ -13,7 +13,12 @@ import { MatIconModule } from '@angular/material/icon';
   template: `
     <ol class="steps" [attr.aria-label]="label()">
       @for (step of steps(); track step; let i = $index) {
-        <li class="steps__step" [class.steps__step--done]="i < current()" [class.steps__step--now]="i === current()" [attr.aria-current]="i === current() ? 'step' : null">
+        <li
+          class="steps__step"
+          [class.steps__step--done]="i < current()"
+          [class.steps__step--now]="i === current()"
+          [attr.aria-current]="i === current() ? 'step' : null"
+        >
           <span class="steps__badge" aria-hidden="true">
             @if (i < current()) {
               <mat-icon>check</mat-icon>

@@ -22,8 +22,15 @@ import { TECHNIQUE_LABELS, TECHNIQUE_ORDER, backspinLabel, sidespinLabel } from 
   imports: [ReactiveFormsModule, MatButtonModule, MatButtonToggleModule, MatFormFieldModule, MatInputModule, StepControl],
   template: `
     <form [formGroup]="form" (ngSubmit)="submit()" class="drill-form">
-      <h2 class="drill-form__title">{{ suggested() ? 'Suggested drill (from Next targets)' : previous() ? 'Next drill' : 'First drill' }}</h2>
-      <mat-button-toggle-group formControlName="technique" aria-label="Technique" class="drill-form__techniques" hideSingleSelectionIndicator>
+      <h2 class="drill-form__title">
+        {{ suggested() ? 'Suggested drill (from Next targets)' : previous() ? 'Next drill' : 'First drill' }}
+      </h2>
+      <mat-button-toggle-group
+        formControlName="technique"
+        aria-label="Technique"
+        class="drill-form__techniques"
+        hideSingleSelectionIndicator
+      >
         @for (technique of techniques; track technique) {
           <mat-button-toggle [value]="technique">{{ techniqueLabels[technique] }}</mat-button-toggle>
         }
@@ -47,8 +54,26 @@ import { TECHNIQUE_LABELS, TECHNIQUE_ORDER, backspinLabel, sidespinLabel } from 
         </mat-form-field>
       </div>
       <div class="drill-form__row">
-        <ll-step-control name="Default spin" [(value)]="backspinStep" [min]="-3" [max]="3" [describe]="backspinLabel" [leftStep]="-1" leftLabel="More topspin" rightLabel="More backspin" />
-        <ll-step-control name="Default curl" [(value)]="sidespinStep" [min]="-2" [max]="2" [describe]="sidespinLabel" [leftStep]="1" leftLabel="More left curl" rightLabel="More right curl" />
+        <ll-step-control
+          name="Default spin"
+          [(value)]="backspinStep"
+          [min]="-3"
+          [max]="3"
+          [describe]="backspinLabel"
+          [leftStep]="-1"
+          leftLabel="More topspin"
+          rightLabel="More backspin"
+        />
+        <ll-step-control
+          name="Default curl"
+          [(value)]="sidespinStep"
+          [min]="-2"
+          [max]="2"
+          [describe]="sidespinLabel"
+          [leftStep]="1"
+          leftLabel="More left curl"
+          rightLabel="More right curl"
+        />
       </div>
       <mat-form-field appearance="outline" class="drill-form__label">
         <mat-label>Name (optional)</mat-label>
@@ -129,7 +154,12 @@ export class DrillForm implements OnInit {
     const previous = this.previous();
     const suggested = this.suggestion.pending();
     if (suggested) {
-      this.form.patchValue({ technique: suggested.technique, targetDistanceM: suggested.targetDistanceM, targetRadiusM: suggested.targetRadiusM, label: 'Next target' });
+      this.form.patchValue({
+        technique: suggested.technique,
+        targetDistanceM: suggested.targetDistanceM,
+        targetRadiusM: suggested.targetRadiusM,
+        label: 'Next target',
+      });
       this.backspinStep.set(previous?.backspinStep ?? 0);
       this.sidespinStep.set(previous?.sidespinStep ?? 0);
       this.suggested.set(true);

@@ -49,7 +49,12 @@ export interface EntryCorrection {
               }
             </span>
             <mat-icon class="entry__sync" [attr.aria-label]="syncLabel(entry)">{{ syncIcon(entry) }}</mat-icon>
-            <button mat-icon-button type="button" [attr.aria-label]="'Correct ' + playerName(kick.playerId) + ' at ' + time(kick.recordedAt)" (click)="editingId.set(kick.id)">
+            <button
+              mat-icon-button
+              type="button"
+              [attr.aria-label]="'Correct ' + playerName(kick.playerId) + ' at ' + time(kick.recordedAt)"
+              (click)="editingId.set(kick.id)"
+            >
               <mat-icon aria-hidden="true">edit</mat-icon>
             </button>
           }

@@ -56,7 +56,14 @@ const SAME_TAP_MS = 1500;
           <mat-error>{{ message }}</mat-error>
         }
       </mat-form-field>
-      <button mat-icon-button type="button" class="timer__discard" aria-label="Discard time" [disabled]="!hasReading() && !running()" (click)="discard()">
+      <button
+        mat-icon-button
+        type="button"
+        class="timer__discard"
+        aria-label="Discard time"
+        [disabled]="!hasReading() && !running()"
+        (click)="discard()"
+      >
         <mat-icon aria-hidden="true">close</mat-icon>
       </button>
     </div>

@@ -35,8 +35,25 @@ import { StepControl } from './step-control';
         }
       </mat-button-toggle-group>
       <div class="editor__row">
-        <ll-step-control name="Spin" [(value)]="backspinStep" [min]="-3" [max]="3" [describe]="backspinLabel" leftLabel="More topspin" rightLabel="More backspin" />
-        <ll-step-control name="Curl" [(value)]="sidespinStep" [min]="-2" [max]="2" [describe]="sidespinLabel" [leftStep]="1" leftLabel="More left curl" rightLabel="More right curl" />
+        <ll-step-control
+          name="Spin"
+          [(value)]="backspinStep"
+          [min]="-3"
+          [max]="3"
+          [describe]="backspinLabel"
+          leftLabel="More topspin"
+          rightLabel="More backspin"
+        />
+        <ll-step-control
+          name="Curl"
+          [(value)]="sidespinStep"
+          [min]="-2"
+          [max]="2"
+          [describe]="sidespinLabel"
+          [leftStep]="1"
+          leftLabel="More left curl"
+          rightLabel="More right curl"
+        />
       </div>
       <div class="editor__row">
         <mat-form-field appearance="outline">

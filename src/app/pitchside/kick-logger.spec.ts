@@ -18,8 +18,26 @@ import { HANG_TIMER_CLOCK } from './hang-timer';
 import { KickLogger } from './kick-logger';
 
 const players: CachedPlayer[] = [
-  { id: SPEC_IDS.playerA, squadId: SPEC_IDS.squad, squadName: 'U16', displayName: 'Ada Lovelock', shirtNumber: 7, dominantFoot: 'left', isMinor: true, fetchedAt: '2026-11-20T10:00:00.000Z' },
-  { id: SPEC_IDS.playerB, squadId: SPEC_IDS.squad, squadName: 'U16', displayName: 'Bo Brennan', shirtNumber: 9, dominantFoot: 'right', isMinor: true, fetchedAt: '2026-11-20T10:00:00.000Z' },
+  {
+    id: SPEC_IDS.playerA,
+    squadId: SPEC_IDS.squad,
+    squadName: 'U16',
+    displayName: 'Ada Lovelock',
+    shirtNumber: 7,
+    dominantFoot: 'left',
+    isMinor: true,
+    fetchedAt: '2026-11-20T10:00:00.000Z',
+  },
+  {
+    id: SPEC_IDS.playerB,
+    squadId: SPEC_IDS.squad,
+    squadName: 'U16',
+    displayName: 'Bo Brennan',
+    shirtNumber: 9,
+    dominantFoot: 'right',
+    isMinor: true,
+    fetchedAt: '2026-11-20T10:00:00.000Z',
+  },
 ];
 
 describe('KickLogger (Pitchside logging)', () => {
@@ -47,7 +65,14 @@ describe('KickLogger (Pitchside logging)', () => {
     const sessions = TestBed.inject(SessionStore);
     session = await sessions.start({ squadId: SPEC_IDS.squad, ballSize: 5 });
     if (withDrill) {
-      await sessions.addDrill(session.id, { technique: 'lofted', targetDistanceM: 35, targetRadiusM: 3, backspinStep: 2, sidespinStep: 0, label: null });
+      await sessions.addDrill(session.id, {
+        technique: 'lofted',
+        targetDistanceM: 35,
+        targetRadiusM: 3,
+        backspinStep: 2,
+        sidespinStep: 0,
+        label: null,
+      });
     }
     fixture = TestBed.createComponent(KickLogger);
     fixture.componentRef.setInput('session', session);
@@ -92,7 +117,15 @@ describe('KickLogger (Pitchside logging)', () => {
     await until('the kick in IndexedDB', async () => (await liveKicks()).length === 1);
     const [kick] = await liveKicks();
     expect(kick).toEqual(
-      jasmine.objectContaining({ playerId: SPEC_IDS.playerA, outcome: 'on_target', technique: 'lofted', foot: 'left', backspinStep: 2, targetDistanceM: 35, carryM: null }),
+      jasmine.objectContaining({
+        playerId: SPEC_IDS.playerA,
+        outcome: 'on_target',
+        technique: 'lofted',
+        foot: 'left',
+        backspinStep: 2,
+        targetDistanceM: 35,
+        carryM: null,
+      }),
     );
     expect(await db.outbox.where('entityId').equals(kick.id).count()).toBe(1);
     await until('the saved message', () => status().includes('Saved'));
@@ -133,7 +166,18 @@ describe('KickLogger (Pitchside logging)', () => {
     await open();
     const kicks = TestBed.inject(KickStore);
     for (let i = 0; i < 40; i++) {
-      await kicks.log({ sessionId: session.id, drillId: null, playerId: SPEC_IDS.playerA, technique: 'lofted', foot: 'left', backspinStep: 0, sidespinStep: 0, targetDistanceM: 35, targetRadiusM: 3, outcome: 'short' });
+      await kicks.log({
+        sessionId: session.id,
+        drillId: null,
+        playerId: SPEC_IDS.playerA,
+        technique: 'lofted',
+        foot: 'left',
+        backspinStep: 0,
+        sidespinStep: 0,
+        targetDistanceM: 35,
+        targetRadiusM: 3,
+        outcome: 'short',
+      });
     }
     await until('40 on the chip', async () => (await (await chip(/Ada/)).getText()).includes('40'));
     expect(text()).not.toContain('passed 40 repetitions');

@@ -87,17 +87,23 @@ export class KickLogger {
   protected readonly savedCount = signal(0);
   protected readonly failure = signal<string | null>(null);
   protected readonly carry = new FormControl('', { nonNullable: true, validators: metresValidator(kickDataSchema.shape.carryM) });
-  protected readonly hangTime = new FormControl('', { nonNullable: true, validators: metresValidator(kickDataSchema.shape.hangTimeS, 'seconds') });
+  protected readonly hangTime = new FormControl('', {
+    nonNullable: true,
+    validators: metresValidator(kickDataSchema.shape.hangTimeS, 'seconds'),
+  });
 
   protected readonly backspinLabel = backspinLabel;
   protected readonly sidespinLabel = sidespinLabel;
   protected readonly techniqueLabels = TECHNIQUE_LABELS;
 
   /** The drill repetitions are logged against: the one chosen, else the latest added. */
-  protected readonly drill = computed<LocalDrill | null>(() => {
-    const drills = this.drills() ?? [];
-    return drills.find((d) => d.id === this.chosenDrillId()) ?? drills.at(-1) ?? null;
-  }, { equal: sameDrill });
+  protected readonly drill = computed<LocalDrill | null>(
+    () => {
+      const drills = this.drills() ?? [];
+      return drills.find((d) => d.id === this.chosenDrillId()) ?? drills.at(-1) ?? null;
+    },
+    { equal: sameDrill },
+  );
   /** Whether the hang-time stopwatch is on for the current drill (a per-device choice). */
   protected readonly stopwatchOn = computed(() => {
     const drill = this.drill();
@@ -192,9 +198,7 @@ export class KickLogger {
   protected async undoLast(): Promise<void> {
     try {
       const undone = await this.kicksStore.undoLast(this.sessionId());
-      this.statusText.set(
-        undone ? `Undone · ${this.playerName(undone.playerId)} · ${OUTCOME_LABELS[undone.outcome]}` : 'Nothing to undo.',
-      );
+      this.statusText.set(undone ? `Undone · ${this.playerName(undone.playerId)} · ${OUTCOME_LABELS[undone.outcome]}` : 'Nothing to undo.');
     } catch (error) {
       this.failure.set(describeLocalError(error));
     }
@@ -269,12 +273,5 @@ export class KickLogger {
 
 /** Whether two drill values describe the same drill set-up (a re-read row is not a new drill). */
 function sameDrill(a: LocalDrill | null, b: LocalDrill | null): boolean {
-  return (
-    a === b ||
-    (a !== null &&
-      b !== null &&
-      a.id === b.id &&
-      a.version === b.version &&
-      a.updatedAt === b.updatedAt)
-  );
+  return a === b || (a !== null && b !== null && a.id === b.id && a.version === b.version && a.updatedAt === b.updatedAt);
 }

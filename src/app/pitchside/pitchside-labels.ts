@@ -95,7 +95,11 @@ export function windLabel(speedMs: number | null | undefined, fromDeg: number | 
     fromDeg === null || fromDeg === undefined
       ? 'wind'
       : (WIND_DIRECTIONS.find((d) => d.fromDeg !== null && angleDistance(d.fromDeg, fromDeg) <= 45)?.label.toLowerCase() ?? 'wind');
-  const strength = [...WIND_STRENGTHS].reverse().find((s) => speedMs >= s.speedMs - 1.5)?.label.toLowerCase() ?? 'light';
+  const strength =
+    [...WIND_STRENGTHS]
+      .reverse()
+      .find((s) => speedMs >= s.speedMs - 1.5)
+      ?.label.toLowerCase() ?? 'light';
   return `${direction} ${strength}`;
 }
 

@@ -48,11 +48,36 @@ describe('Pitchside', () => {
   it('opens a session from IndexedDB with no signal and says how many entries the server lacks', async () => {
     TestBed.inject(Connectivity);
     window.dispatchEvent(new Event('offline'));
-    await db.squads.put({ id: SPEC_IDS.squad, name: 'U16', ageGroup: 'U16', ballSize: 5, playerCount: 16, userIds: [SPEC_COACH.id], fetchedAt: '2026-11-20T10:00:00.000Z' });
-    const session = await TestBed.inject(SessionStore).start({ squadId: SPEC_IDS.squad, ballSize: 5, temperatureC: 9, windSpeedMs: 6, windFromDeg: 0 });
+    await db.squads.put({
+      id: SPEC_IDS.squad,
+      name: 'U16',
+      ageGroup: 'U16',
+      ballSize: 5,
+      playerCount: 16,
+      userIds: [SPEC_COACH.id],
+      fetchedAt: '2026-11-20T10:00:00.000Z',
+    });
+    const session = await TestBed.inject(SessionStore).start({
+      squadId: SPEC_IDS.squad,
+      ballSize: 5,
+      temperatureC: 9,
+      windSpeedMs: 6,
+      windFromDeg: 0,
+    });
     const kicks = TestBed.inject(KickStore);
     for (const outcome of ['short', 'long', 'over'] as const) {
-      await kicks.log({ sessionId: session.id, drillId: null, playerId: SPEC_IDS.playerA, technique: 'lofted', foot: 'left', backspinStep: 0, sidespinStep: 0, targetDistanceM: 35, targetRadiusM: 3, outcome });
+      await kicks.log({
+        sessionId: session.id,
+        drillId: null,
+        playerId: SPEC_IDS.playerA,
+        technique: 'lofted',
+        foot: 'left',
+        backspinStep: 0,
+        sidespinStep: 0,
+        targetDistanceM: 35,
+        targetRadiusM: 3,
+        outcome,
+      });
     }
 
     fixture = TestBed.createComponent(Pitchside);

@@ -141,9 +141,7 @@ describe('SessionStart (Pitchside)', () => {
 
     await until('the session', async () => (await db.sessions.count()) === 1);
     const [session] = await db.sessions.toArray();
-    expect(session).toEqual(
-      jasmine.objectContaining({ squadId: U12, temperatureC: 14, windSpeedMs: 11, windFromDeg: 0, ballSize: 5 }),
-    );
+    expect(session).toEqual(jasmine.objectContaining({ squadId: U12, temperatureC: 14, windSpeedMs: 11, windFromDeg: 0, ballSize: 5 }));
     expect(session.conditionsSource).toEqual({ temperatureC: 'coach', windSpeedMs: 'coach', windFromDeg: 'coach', ballSize: 'coach' });
     expect((await db.outbox.toArray()).map((e) => [e.entity, e.entityId])).toEqual([['training_session', session.id]]);
     await until('the session page', () => TestBed.inject(Router).url === `/pitchside/${session.id}`);
@@ -238,7 +236,9 @@ describe('SessionStart (Pitchside)', () => {
     await (await loader.getHarness(MatButtonHarness.with({ selector: '[aria-label="Warmer"]' }))).click();
     await tap('Tailwind');
     expect(text()).toContain('10.5 °C');
-    expect((fixture.nativeElement as HTMLElement).querySelector('[data-testid="source-temperatureC"]')?.textContent?.trim()).toBe('entered');
+    expect((fixture.nativeElement as HTMLElement).querySelector('[data-testid="source-temperatureC"]')?.textContent?.trim()).toBe(
+      'entered',
+    );
     expect(text()).toContain('Use the measurement');
 
     const session = await startAndRead();
@@ -267,13 +267,30 @@ describe('SessionStart (Pitchside)', () => {
     await answerRoster();
     await tap('U18');
     await answerConditions({ source: 'unavailable', groundId: GROUND_ID, reason: 'The weather service did not answer within 2 s' });
-    await until('the note', () => text().includes('No measurement from the weather service (The weather service did not answer within 2 s). Your taps are used.'));
+    await until('the note', () =>
+      text().includes('No measurement from the weather service (The weather service did not answer within 2 s). Your taps are used.'),
+    );
     expect(await checked('Calm')).toBeTrue();
     await tap('Headwind');
     const session = await startAndRead();
-    expect(session).toEqual(jasmine.objectContaining({ groundId: GROUND_ID, temperatureC: 12, windSpeedMs: 3, windFromDeg: 0, altitudeM: 88, conditionsObservedAt: null }));
+    expect(session).toEqual(
+      jasmine.objectContaining({
+        groundId: GROUND_ID,
+        temperatureC: 12,
+        windSpeedMs: 3,
+        windFromDeg: 0,
+        altitudeM: 88,
+        conditionsObservedAt: null,
+      }),
+    );
     expect(session.relativeHumidityPct ?? null).toBeNull();
-    expect(session.conditionsSource).toEqual({ temperatureC: 'default', windSpeedMs: 'coach', windFromDeg: 'coach', altitudeM: 'ground', ballSize: 'default' });
+    expect(session.conditionsSource).toEqual({
+      temperatureC: 'default',
+      windSpeedMs: 'coach',
+      windFromDeg: 'coach',
+      altitudeM: 'ground',
+      ballSize: 'default',
+    });
   });
 
   it('starts at once while the conditions are still on their way', async () => {

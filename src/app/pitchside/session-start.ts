@@ -19,9 +19,7 @@ import { StartConditions } from './start-conditions';
 
 /** What the session start knows of the weather at the ground. */
 type WeatherState =
-  | { readonly state: 'none' }
-  | { readonly state: 'asking' }
-  | { readonly state: 'answered'; readonly answer: GroundConditions };
+  { readonly state: 'none' } | { readonly state: 'asking' } | { readonly state: 'answered'; readonly answer: GroundConditions };
 
 /**
  * Starting a session on the pitch: the squad, its training ground, then the conditions as big taps —
@@ -178,7 +176,9 @@ export class SessionStart {
   });
 
   /** Whether the coach changed a measured value (so "use the measurement" would change something). */
-  protected readonly overridden = computed(() => this.measured() !== null && this.conditions.fields().some((f) => this.conditions[f]().source === 'coach'));
+  protected readonly overridden = computed(
+    () => this.measured() !== null && this.conditions.fields().some((f) => this.conditions[f]().source === 'coach'),
+  );
 
   protected setTemperature(value: number): void {
     this.conditions.enter('temperatureC', value);

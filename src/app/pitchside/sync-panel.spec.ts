@@ -86,7 +86,9 @@ describe('SyncPanel', () => {
 
   it('lists a rejected change with the server’s reason, and a discard puts the server’s version back', async () => {
     const batch = await takeBatch(db, SPEC_COACH.id, 500);
-    await settlePush(db, batch, [{ id: batch[0].id, status: 'rejected', error: { code: 'forbidden', message: 'You may not change this squad’s sessions' } }]);
+    await settlePush(db, batch, [
+      { id: batch[0].id, status: 'rejected', error: { code: 'forbidden', message: 'You may not change this squad’s sessions' } },
+    ]);
 
     await until('the rejection', () => text().includes('Not accepted by the server'));
     expect(text()).toContain('Repetition by Ada Lovelock · Long — You may not change this squad’s sessions');
@@ -102,7 +104,14 @@ describe('SyncPanel', () => {
 
   it('shows what changed on the server in a conflict, and keeping the server’s version clears it', async () => {
     const batch = await takeBatch(db, SPEC_COACH.id, 500);
-    const current = { ...batch[0].data, id: synced.id, outcome: 'short', version: 3, updatedAt: '2026-11-21T09:00:00.000Z', deletedAt: null };
+    const current = {
+      ...batch[0].data,
+      id: synced.id,
+      outcome: 'short',
+      version: 3,
+      updatedAt: '2026-11-21T09:00:00.000Z',
+      deletedAt: null,
+    };
     await settlePush(db, batch, [{ id: batch[0].id, status: 'conflict', current }]);
 
     await until('the conflict', () => text().includes('Changed on the server meanwhile'));

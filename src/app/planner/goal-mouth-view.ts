@@ -1,4 +1,13 @@
-import { ChangeDetectionStrategy, Component, ElementRef, ViewEncapsulation, afterRenderEffect, computed, input, viewChild } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  ElementRef,
+  ViewEncapsulation,
+  afterRenderEffect,
+  computed,
+  input,
+  viewChild,
+} from '@angular/core';
 import { select, symbol, symbolCross, symbolTriangle } from 'd3';
 import { GOAL_CROSSING, type GoalCrossingKind, type SetPieceCloudResult } from '../flight/set-piece-rank';
 import { goalMouthMarkings, viewBoxAttr } from '../ui/pitch-markings';
@@ -143,9 +152,11 @@ export class GoalMouthView {
 
   private shape(kind: GoalCrossingKind, size: number): string {
     if (kind === GOAL_CROSSING.in) return symbol().size(size)() ?? '';
-    return symbol()
-      .type(kind === GOAL_CROSSING.over ? symbolTriangle : symbolCross)
-      .size(size)() ?? '';
+    return (
+      symbol()
+        .type(kind === GOAL_CROSSING.over ? symbolTriangle : symbolCross)
+        .size(size)() ?? ''
+    );
   }
 
   private draw(): void {
@@ -153,7 +164,11 @@ export class GoalMouthView {
     const svg = select(this.svgRef().nativeElement).attr('viewBox', viewBoxAttr(m.viewBox));
     if (svg.select('g.ll-goal-mouth__static').empty()) {
       const g = svg.append('g').attr('class', 'll-goal-mouth__static').attr('aria-hidden', 'true');
-      g.selectAll('path.ll-goal-mouth__ground').data(m.paths).join('path').attr('class', 'll-goal-mouth__ground').attr('d', (d) => d);
+      g.selectAll('path.ll-goal-mouth__ground')
+        .data(m.paths)
+        .join('path')
+        .attr('class', 'll-goal-mouth__ground')
+        .attr('d', (d) => d);
       g.append('path').attr('class', 'll-goal-mouth__frame').attr('d', m.goal);
     }
     // Marks sized in metres: a dot of about the ball's own size (radius ~0.11 m, IFAB Laws of the Game, Law 2).
@@ -166,7 +181,10 @@ export class GoalMouthView {
       .selectAll<SVGPathElement, CloudMark>('path.ll-goal-mouth__mark')
       .data(this.marks(), (d) => d.i)
       .join('path')
-      .attr('class', (d) => `ll-goal-mouth__mark ll-goal-mouth__mark--${KIND_CLASS[d.kind]}${d.pinned ? ' ll-goal-mouth__mark--pinned' : ''}`)
+      .attr(
+        'class',
+        (d) => `ll-goal-mouth__mark ll-goal-mouth__mark--${KIND_CLASS[d.kind]}${d.pinned ? ' ll-goal-mouth__mark--pinned' : ''}`,
+      )
       .attr('d', (d) => this.shape(d.kind, area))
       .attr('transform', (d) => `translate(${d.x},${d.y})`);
   }

@@ -28,7 +28,13 @@ export function curlProfile(overrides: Partial<KickProfile>): KickProfile {
 }
 
 /** The fixture squad. */
-export const FIXTURE_SQUAD: SquadSummary = { id: '6a0c1c3e-5a7e-4c44-9a8e-0d7e0c6f1b01', name: 'U16', ageGroup: 'U16', ballSize: 5, playerCount: 4 };
+export const FIXTURE_SQUAD: SquadSummary = {
+  id: '6a0c1c3e-5a7e-4c44-9a8e-0d7e0c6f1b01',
+  name: 'U16',
+  ageGroup: 'U16',
+  ballSize: 5,
+  playerCount: 4,
+};
 
 const entry = (playerId: string, displayName: string, shirtNumber: number, profile: KickProfile | null) => ({
   playerId,

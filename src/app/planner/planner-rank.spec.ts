@@ -22,7 +22,9 @@ describe('clampBall', () => {
       expect(Math.hypot(c.x - wall.centre.x, c.y - wall.centre.y)).toBeCloseTo(WALL_DISTANCE_M, 6);
       // Same direction from the goal's centre as the ball was dropped.
       expect(Math.atan2(c.y, c.x)).toBeCloseTo(Math.atan2(p.y, p.x), 1);
-      expect(() => setPieceCheck({ ballX: c.y, ballY: -c.x, profile: FIXTURE_PROFILES.players[2]!.profile!, conditions: {}, samples: 1, seed: 1 })).not.toThrow();
+      expect(() =>
+        setPieceCheck({ ballX: c.y, ballY: -c.x, profile: FIXTURE_PROFILES.players[2]!.profile!, conditions: {}, samples: 1, seed: 1 }),
+      ).not.toThrow();
     }
   });
 
@@ -48,7 +50,15 @@ describe('rankSetPiece', () => {
 
   it('breaks a tie by the share over the wall, then by name', () => {
     const [a, b, c] = players;
-    const shares = (onTarget: number, clearsWall: number) => ({ onTarget, clearsWall, blocked: 0, shortOfWall: 0, shortOfGoal: 0, wide: 0, over: 0 });
+    const shares = (onTarget: number, clearsWall: number) => ({
+      onTarget,
+      clearsWall,
+      blocked: 0,
+      shortOfWall: 0,
+      shortOfGoal: 0,
+      wide: 0,
+      over: 0,
+    });
     const fake = (id: string, onTarget: number, clearsWall: number) => {
       const e = setPieceRank({ ...spot, samples: 1, players: [{ id, profile: a!.profile }] })[0]!;
       return { ...e, result: { ...e.result, shares: shares(onTarget, clearsWall) } };
@@ -69,7 +79,10 @@ describe('planner cache keys', () => {
   });
 
   it('change the fingerprint when a profile is recomputed', () => {
-    const later = { ...FIXTURE_PROFILES, players: FIXTURE_PROFILES.players.map((p, i) => (i === 0 ? { ...p, computedAt: '2026-12-01T08:00:00.000Z' } : p)) };
+    const later = {
+      ...FIXTURE_PROFILES,
+      players: FIXTURE_PROFILES.players.map((p, i) => (i === 0 ? { ...p, computedAt: '2026-12-01T08:00:00.000Z' } : p)),
+    };
     expect(profilesFingerprint(later)).not.toBe(profilesFingerprint(FIXTURE_PROFILES));
   });
 });

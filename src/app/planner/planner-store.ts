@@ -30,7 +30,15 @@ import type { SetPieceRankEntry, SetPieceRankInput } from '../flight/set-piece-r
 import { toSetPieceFrame } from '../ui/pitch-markings';
 import { PLANNER_CACHE } from './planner-cache';
 import { PlannerApi } from './planner-api';
-import { clampBall, profilesCacheKey, profilesFingerprint, rankSetPiece, resultsCacheKey, type PlannerSpot, type RankedPlayer } from './planner-rank';
+import {
+  clampBall,
+  profilesCacheKey,
+  profilesFingerprint,
+  rankSetPiece,
+  resultsCacheKey,
+  type PlannerSpot,
+  type RankedPlayer,
+} from './planner-rank';
 
 /** Monte Carlo samples per player: ±2.5 percentage points on a 50 % share (common practice for a planning aid). */
 export const PLANNER_SAMPLES = 400;
@@ -136,7 +144,9 @@ export class PlannerStore {
   readonly profiles = toSignal(
     toObservable(this.profileQuery).pipe(
       distinctUntilChanged((a, b) => a?.squadId === b?.squadId && a?.technique === b?.technique && a?.reload === b?.reload),
-      switchMap((q) => (q === null ? of<CachedLoad<SquadProfilesResponse>>({ status: 'loading' }) : this.loadProfiles(q.squadId, q.technique))),
+      switchMap((q) =>
+        q === null ? of<CachedLoad<SquadProfilesResponse>>({ status: 'loading' }) : this.loadProfiles(q.squadId, q.technique),
+      ),
     ),
     { initialValue: { status: 'loading' } as CachedLoad<SquadProfilesResponse> },
   );

@@ -119,7 +119,10 @@ describe('Planner (Set-piece planner)', () => {
   it('ranks the squad for the spot by share in under the bar, players without a profile last', async () => {
     await openOnline(memoryCache());
     const expected = expectedShares(SPOT).sort((a, b) => b.result.shares.onTarget - a.result.shares.onTarget);
-    await until('the ranking', async () => (await rankingNames()).length === 4 && count('g.ll-goal-mouth__cloud path.ll-goal-mouth__mark') > 0);
+    await until(
+      'the ranking',
+      async () => (await rankingNames()).length === 4 && count('g.ll-goal-mouth__cloud path.ll-goal-mouth__mark') > 0,
+    );
     const names = await rankingNames();
     expect(names.slice(0, 3)).toEqual(expected.map((e) => jasmine.stringContaining(e.name) as unknown as string));
     expect(names[3]).toContain('Di Marsh');
@@ -166,7 +169,10 @@ describe('Planner (Set-piece planner)', () => {
 
   it('recomputes when the ball is moved with the keyboard', async () => {
     await openOnline(memoryCache());
-    await until('the ranking', async () => (await rankingNames()).length === 4 && count('g.ll-goal-mouth__cloud path.ll-goal-mouth__mark') > 0);
+    await until(
+      'the ranking',
+      async () => (await rankingNames()).length === 4 && count('g.ll-goal-mouth__cloud path.ll-goal-mouth__mark') > 0,
+    );
     const ball = (fixture.nativeElement as HTMLElement).querySelector<SVGGElement>('[data-testid="planner-ball"]')!;
     for (let i = 0; i < 4; i++) ball.dispatchEvent(new KeyboardEvent('keydown', { key: 'ArrowDown', shiftKey: true, bubbles: true }));
     const moved: PlannerSpot = { ...SPOT, ball: { x: -6, y: 30 } };
@@ -175,7 +181,10 @@ describe('Planner (Set-piece planner)', () => {
       const table = await loader.getHarness(MatTableHarness);
       const row = (await table.getRows())[0];
       const first = row ? await row.getCellTextByColumnName() : {};
-      return (first['player'] ?? '').includes(expected[0]!.name) && first['onTarget'] === `${Math.round(expected[0]!.result.shares.onTarget * 100)} %`;
+      return (
+        (first['player'] ?? '').includes(expected[0]!.name) &&
+        first['onTarget'] === `${Math.round(expected[0]!.result.shares.onTarget * 100)} %`
+      );
     });
     expect((fixture.nativeElement as HTMLElement).textContent).toContain('Ball 30.0 m out');
   }, 60_000);
@@ -185,7 +194,11 @@ describe('Planner (Set-piece planner)', () => {
     await openOnline(cache);
     await until('the ranking', async () => (await rankingNames()).length === 4);
     const online = await rankingNames();
-    await until('the ranking kept', () => cache.keys().some((k) => k.startsWith('planner:') && k !== 'planner:last') && cache.keys().includes('planner:last'), 4000);
+    await until(
+      'the ranking kept',
+      () => cache.keys().some((k) => k.startsWith('planner:') && k !== 'planner:last') && cache.keys().includes('planner:last'),
+      4000,
+    );
     for (const req of http.match(() => true)) req.error(new ProgressEvent('error'), { status: 0 });
     TestBed.resetTestingModule();
 

@@ -105,7 +105,8 @@ export class Planner {
     const k = p?.meanKick;
     if (!p || !k) return 'Side view: no flight to show yet.';
     const wall = k.wallHeightOfBallM === null ? 'lands before the wall' : `passes the wall at ${k.wallHeightOfBallM.toFixed(2)} m`;
-    const goal = k.goalHeightOfBallM === null ? 'lands before the goal line' : `crosses the goal line at ${k.goalHeightOfBallM.toFixed(2)} m`;
+    const goal =
+      k.goalHeightOfBallM === null ? 'lands before the goal line' : `crosses the goal line at ${k.goalHeightOfBallM.toFixed(2)} m`;
     return `Side view along the aim of ${playerName(p)}'s typical kick: ${wall} and ${goal}; carry ${k.carryM.toFixed(1)} m.`;
   });
 

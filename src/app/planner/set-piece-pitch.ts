@@ -205,7 +205,11 @@ export class SetPiecePitch {
       .attr('y', m.viewBox.minY)
       .attr('width', m.viewBox.width)
       .attr('height', m.viewBox.height);
-    g.selectAll('path.ll-pitch__line').data(m.paths).join('path').attr('class', 'll-pitch__line').attr('d', (d) => d);
+    g.selectAll('path.ll-pitch__line')
+      .data(m.paths)
+      .join('path')
+      .attr('class', 'll-pitch__line')
+      .attr('d', (d) => d);
     g.append('path').attr('class', 'll-pitch__goal').attr('d', m.goal);
     g.selectAll('circle.ll-pitch__spot')
       .data(m.spots)

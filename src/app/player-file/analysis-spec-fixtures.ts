@@ -1,11 +1,5 @@
 import { DEFAULT_PRIORS, type KickProfile, fitProfile } from '../../../shared/flight';
-import type {
-  PlayerKick,
-  ProfileEntry,
-  ProgressWeek,
-  SquadWeek,
-  SquadWeekPlayer,
-} from '../../../shared/schemas/analysis';
+import type { PlayerKick, ProfileEntry, ProgressWeek, SquadWeek, SquadWeekPlayer } from '../../../shared/schemas/analysis';
 import type { SessionUser } from '../../../shared/schemas/auth';
 import type { PlayerSummary, SquadSummary } from '../../../shared/schemas/squads';
 import type { Outcome, Technique } from '../../../shared/schemas/sync';
@@ -30,10 +24,20 @@ export function fixtureUser(role: SessionUser['role']): SessionUser {
 }
 
 /** The squad. */
-export const FIXTURE_SQUAD: SquadSummary = { id: FIXTURE_IDS.squad, name: 'U16 Kestrels', ageGroup: 'Under 16', ballSize: 5, playerCount: 3 };
+export const FIXTURE_SQUAD: SquadSummary = {
+  id: FIXTURE_IDS.squad,
+  name: 'U16 Kestrels',
+  ageGroup: 'Under 16',
+  ballSize: 5,
+  playerCount: 3,
+};
 
 /** A player of the squad. */
-export function fixturePlayer(id: string = FIXTURE_IDS.playerAda, displayName = 'Ada Okafor', shirtNumber: number | null = 7): PlayerSummary {
+export function fixturePlayer(
+  id: string = FIXTURE_IDS.playerAda,
+  displayName = 'Ada Okafor',
+  shirtNumber: number | null = 7,
+): PlayerSummary {
   return { id, squadId: FIXTURE_IDS.squad, squadName: FIXTURE_SQUAD.name, displayName, shirtNumber, dominantFoot: 'right', isMinor: true };
 }
 
@@ -43,7 +47,13 @@ export function shares(set: Partial<Record<Outcome, number>>): Record<Outcome, n
 }
 
 /** One week of progress. */
-export function progressWeek(weekStart: string, technique: Technique, reps: number, hitRate: number, medianCarryM: number | null): ProgressWeek {
+export function progressWeek(
+  weekStart: string,
+  technique: Technique,
+  reps: number,
+  hitRate: number,
+  medianCarryM: number | null,
+): ProgressWeek {
   return {
     weekStart,
     technique,
@@ -75,7 +85,12 @@ export function fixtureProfile(technique: Technique = 'lofted', repetitions = 40
 }
 
 /** A profile answer. */
-export function profileEntry(playerId: string, technique: Technique, profile: KickProfile | null, reliableReachM: number | null = null): ProfileEntry {
+export function profileEntry(
+  playerId: string,
+  technique: Technique,
+  profile: KickProfile | null,
+  reliableReachM: number | null = null,
+): ProfileEntry {
   return {
     playerId,
     technique,

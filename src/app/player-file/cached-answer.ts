@@ -70,7 +70,13 @@ export function isUnreachable(error: unknown): boolean {
  * on a pitch without signal still sees last week. Without a cached copy the original error is
  * passed on. A failing cache write never fails the request.
  */
-export function cachedAnswer<T>(store: AnswerStore, key: string, kind: AnswerKind, request: Observable<T>, now: () => Date = () => new Date()): Observable<Answer<T>> {
+export function cachedAnswer<T>(
+  store: AnswerStore,
+  key: string,
+  kind: AnswerKind,
+  request: Observable<T>,
+  now: () => Date = () => new Date(),
+): Observable<Answer<T>> {
   return request.pipe(
     map((value): Answer<T> => ({ value, fetchedAt: now().toISOString(), fromCache: false })),
     tap((answer) => {

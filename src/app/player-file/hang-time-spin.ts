@@ -25,7 +25,9 @@ const SKIP_WORDS: Record<SpinEstimateSkip, string> = {
     } @else {
       <div class="spin__scroll">
         <table class="spin__table">
-          <caption class="spin__caption">Backspin inferred from carry and hang time (negative = topspin), ± one standard deviation</caption>
+          <caption class="spin__caption">
+            Backspin inferred from carry and hang time (negative = topspin), ± one standard deviation
+          </caption>
           <thead>
             <tr>
               <th scope="col">Technique</th>
@@ -121,7 +123,9 @@ export class HangTimeSpin {
   }
 
   protected skippedText(row: TechniqueSpinEstimate): string | null {
-    const parts = (Object.entries(row.skipped) as [SpinEstimateSkip, number][]).filter(([, n]) => n > 0).map(([why, n]) => `${n} ${SKIP_WORDS[why]}`);
+    const parts = (Object.entries(row.skipped) as [SpinEstimateSkip, number][])
+      .filter(([, n]) => n > 0)
+      .map(([why, n]) => `${n} ${SKIP_WORDS[why]}`);
     return parts.length ? parts.join('; ') : null;
   }
 }

@@ -30,7 +30,10 @@ describe('nextTarget', () => {
   });
 
   it('says when no distance reaches 50 %, with the best probability', () => {
-    const result = nextTarget(curveOf(40, () => 0.08), 3);
+    const result = nextTarget(
+      curveOf(40, () => 0.08),
+      3,
+    );
     expect(result.kind).toBe('none');
     if (result.kind !== 'none') return;
     expect(result.peakProbability).toBeCloseTo(0.08, 10);
@@ -39,7 +42,10 @@ describe('nextTarget', () => {
 
   it('reports the nearest far-side distance when the probability jumps over the band', () => {
     // 70 % up to 30 m, 20 % from 31 m: the grid point between interpolates to 45 %, outside the band.
-    const result = nextTarget(curveOf(40, (d) => (d <= 30 ? 0.7 : 0.2)), 3);
+    const result = nextTarget(
+      curveOf(40, (d) => (d <= 30 ? 0.7 : 0.2)),
+      3,
+    );
     expect(result.kind).toBe('none');
     if (result.kind !== 'none') return;
     expect(result.peakProbability).toBeCloseTo(0.7, 10);
@@ -54,7 +60,10 @@ describe('nextTarget', () => {
 describe('bestTarget', () => {
   it('finds the distance most likely to be hit', () => {
     // A plateau of 70 % from 10 to 16 m: the first grid point on it is reported.
-    const best = bestTarget(curveOf(40, (d) => (d >= 10 && d <= 16 ? 0.7 : 0.3)), 3);
+    const best = bestTarget(
+      curveOf(40, (d) => (d >= 10 && d <= 16 ? 0.7 : 0.3)),
+      3,
+    );
     expect(best.distanceM).toBe(10);
     expect(best.probability).toBeCloseTo(0.7, 10);
   });

@@ -109,7 +109,11 @@ export class PlayerFileApi {
 
   /** Spin inferred from the player's timed repetitions, per technique (`GET /api/players/:id/spin-estimates`). */
   spinEstimates(playerId: string): Observable<Answer<SpinEstimatesResponse>> {
-    return this.cached(`spin:${playerId}`, 'spin', this.http.get<SpinEstimatesResponse>(`/api/players/${encodeURIComponent(playerId)}/spin-estimates`));
+    return this.cached(
+      `spin:${playerId}`,
+      'spin',
+      this.http.get<SpinEstimatesResponse>(`/api/players/${encodeURIComponent(playerId)}/spin-estimates`),
+    );
   }
 
   private cached<T>(key: string, kind: AnswerKind, request: Observable<T>): Observable<Answer<T>> {

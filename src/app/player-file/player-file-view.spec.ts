@@ -57,7 +57,12 @@ describe('progress shaping', () => {
 
 describe('drillTargets', () => {
   it('lists the targets of one technique, most used first', () => {
-    const kicks = [kick(1, 'lofted', 'on_target', 30, 30), kick(2, 'lofted', 'short', 26, 35), kick(3, 'lofted', 'long', 38, 35), kick(4, 'driven', 'long', 20, 20)];
+    const kicks = [
+      kick(1, 'lofted', 'on_target', 30, 30),
+      kick(2, 'lofted', 'short', 26, 35),
+      kick(3, 'lofted', 'long', 38, 35),
+      kick(4, 'driven', 'long', 20, 20),
+    ];
     expect(drillTargets(kicks, 'lofted')).toEqual([
       { distanceM: 35, radiusM: 3, reps: 2 },
       { distanceM: 30, radiusM: 3, reps: 1 },

@@ -101,7 +101,10 @@ describe('PlayerFile', () => {
     expectGet('/api/squads').flush({ squads: [FIXTURE_SQUAD] });
     await fixture.whenStable();
     for (const technique of ['driven', 'lofted', 'chipped', 'curled'] as Technique[]) {
-      const entry = technique === 'lofted' ? profileEntry(ADA, technique, fixtureProfile()) : { ...profileEntry(ADA, technique, null), pending: technique === 'chipped' };
+      const entry =
+        technique === 'lofted'
+          ? profileEntry(ADA, technique, fixtureProfile())
+          : { ...profileEntry(ADA, technique, null), pending: technique === 'chipped' };
       expectGet(`/api/players/${ADA}/profile`, ['technique', technique]).flush(entry);
     }
     await fixture.whenStable();
@@ -157,7 +160,11 @@ describe('PlayerFile', () => {
     expect(text()).toContain('Carries as logged');
     const toggle = await loader.getHarness(MatSlideToggleHarness.with({ label: 'Still-air carry' }));
     await toggle.toggle();
-    expectGet(`/api/players/${ADA}/progress`, ['carry', 'still-air']).flush({ playerId: ADA, carryBasis: 'still-air', weeks: WEEKS.slice(2) });
+    expectGet(`/api/players/${ADA}/progress`, ['carry', 'still-air']).flush({
+      playerId: ADA,
+      carryBasis: 'still-air',
+      weeks: WEEKS.slice(2),
+    });
     await fixture.whenStable();
     expect(await toggle.isChecked()).toBeTrue();
     expect(text()).toContain('normalised through the flight model to still air at ISA sea level, 15 °C, no wind');
@@ -218,7 +225,13 @@ describe('PlayerFile', () => {
     open(fixtureUser('head_coach'), ADA, answers);
     await fixture.whenStable();
     const offline = { status: 0, statusText: 'Unknown Error' };
-    for (const path of [`/api/players/${ADA}`, `/api/players/${ADA}/progress`, `/api/players/${ADA}/kicks`, `/api/players/${ADA}/spin-estimates`, '/api/squads']) {
+    for (const path of [
+      `/api/players/${ADA}`,
+      `/api/players/${ADA}/progress`,
+      `/api/players/${ADA}/kicks`,
+      `/api/players/${ADA}/spin-estimates`,
+      '/api/squads',
+    ]) {
       expectGet(path).error(new ProgressEvent('error'), offline);
     }
     // The cached answers are read asynchronously; the profiles are asked for once the squad is known.

@@ -79,16 +79,28 @@ export class PlayerFile {
   private readonly playerId = computed(() => readyValue(this.playerIdState()));
   private readonly playerId$ = toObservable(this.playerId);
 
-  protected readonly header = toSignal(this.whenPlayer((id) => this.api.player(id)), { initialValue: LOADING });
+  protected readonly header = toSignal(
+    this.whenPlayer((id) => this.api.player(id)),
+    { initialValue: LOADING },
+  );
   protected readonly progress = toSignal(
     combineLatest([this.playerId$, toObservable(this.carry.basis), this.retry$]).pipe(
       switchMap(([id, basis]) => (id === null ? of(LOADING) : this.api.progress(id, basis).pipe(toAnswerState()))),
     ),
     { initialValue: LOADING },
   );
-  protected readonly kicks = toSignal(this.whenPlayer((id) => this.api.kicks(id)), { initialValue: LOADING });
-  private readonly squads = toSignal(this.whenPlayer(() => this.api.squads()), { initialValue: LOADING });
-  protected readonly spin = toSignal(this.whenPlayer((id) => this.api.spinEstimates(id)), { initialValue: LOADING });
+  protected readonly kicks = toSignal(
+    this.whenPlayer((id) => this.api.kicks(id)),
+    { initialValue: LOADING },
+  );
+  private readonly squads = toSignal(
+    this.whenPlayer(() => this.api.squads()),
+    { initialValue: LOADING },
+  );
+  protected readonly spin = toSignal(
+    this.whenPlayer((id) => this.api.spinEstimates(id)),
+    { initialValue: LOADING },
+  );
 
   /** Whether the server refused this file (not the caller's, or no such player). */
   protected readonly refused = computed(() => isNotFound(this.header()) || isNotFound(this.playerIdState()));
@@ -98,7 +110,9 @@ export class PlayerFile {
     const player = readyValue(this.header())?.value;
     const squads = this.squads();
     if (!player || squads.status === 'loading') return null;
-    return squads.status === 'ready' ? (squads.value.value.find((s) => s.id === player.squadId)?.ballSize ?? DEFAULT_BALL_SIZE) : DEFAULT_BALL_SIZE;
+    return squads.status === 'ready'
+      ? (squads.value.value.find((s) => s.id === player.squadId)?.ballSize ?? DEFAULT_BALL_SIZE)
+      : DEFAULT_BALL_SIZE;
   });
 
   private readonly chosenTechnique = signal<Technique | null>(null);
@@ -159,7 +173,9 @@ export class PlayerFile {
             return of({ technique, status: 'empty', entry });
           }
           return this.envelopes.analyse(entry, ballSize, true).pipe(
-            map((analysis): TechniqueReach => (analysis ? { technique, status: 'ready', entry, analysis } : { technique, status: 'empty', entry })),
+            map((analysis): TechniqueReach =>
+              analysis ? { technique, status: 'ready', entry, analysis } : { technique, status: 'empty', entry },
+            ),
             startWith<TechniqueReach>({ technique, status: 'computing', entry }),
           );
         }),

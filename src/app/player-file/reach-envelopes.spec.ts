@@ -36,7 +36,11 @@ describe('ReachEnvelopes', () => {
   it('computes the standard-conditions envelope the server uses, with reliable reach and its range', async () => {
     const entry = profileEntry(FIXTURE_IDS.playerAda, 'lofted', fixtureProfile());
     const analysis = (await firstValueFrom(envelopes.analyse(entry, 5, true)))!;
-    const direct = reachEnvelope(entry.profile!, standardConditions(5), { samples: ENVELOPE_SAMPLES, seed: ENVELOPE_SEED, reliableReachRadiusM: 3 });
+    const direct = reachEnvelope(entry.profile!, standardConditions(5), {
+      samples: ENVELOPE_SAMPLES,
+      seed: ENVELOPE_SEED,
+      reliableReachRadiusM: 3,
+    });
     expect(analysis.envelope).toEqual(direct);
     expect(analysis.reliableReachM).toBe(direct.reliableReach.distanceM);
     expect(analysis.reliableReachM).not.toBeNull();

@@ -124,16 +124,16 @@ export class ReachEnvelopes {
           throw new RangeError('the envelope came without its reach curve');
         }
         return {
-        technique: entry.technique,
-        envelope,
-        curve,
-        ballSize,
-        radiusM,
-        reliableReachM: envelope.reliableReach.distanceM,
-        ...reachRange(envelope.reliableReach.distanceM, bounds),
-        hasRange: bounds !== null,
-        nextTarget: nextTarget(curve, radiusM),
-        bestTarget: bestTarget(curve, radiusM),
+          technique: entry.technique,
+          envelope,
+          curve,
+          ballSize,
+          radiusM,
+          reliableReachM: envelope.reliableReach.distanceM,
+          ...reachRange(envelope.reliableReach.distanceM, bounds),
+          hasRange: bounds !== null,
+          nextTarget: nextTarget(curve, radiusM),
+          bestTarget: bestTarget(curve, radiusM),
         };
       }),
     );

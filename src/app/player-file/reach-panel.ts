@@ -23,7 +23,11 @@ import { type TechniqueReach, reachHeadline, reachUncertainty } from './techniqu
       <p class="reach-panel__note" role="alert">{{ r.message }}</p>
     } @else if (r.status === 'empty') {
       <p class="reach-panel__note">
-        {{ r.entry.pending ? 'The envelope is being fitted from the newest kicks; look again in a minute.' : 'No ' + label() + ' repetitions logged yet, so there is no envelope.' }}
+        {{
+          r.entry.pending
+            ? 'The envelope is being fitted from the newest kicks; look again in a minute.'
+            : 'No ' + label() + ' repetitions logged yet, so there is no envelope.'
+        }}
       </p>
     } @else {
       <div class="reach-panel__headline">
@@ -51,9 +55,9 @@ import { type TechniqueReach, reachHeadline, reachUncertainty } from './techniqu
           [summary]="summary()"
         />
         <p class="reach-panel__note">
-          Predicted landings of {{ r.analysis.envelope.samples }} simulated kicks aimed at {{ r.analysis.envelope.aimDistanceM }} m
-          (the usual drill distance) at standard conditions: ISA sea level, 15 °C, still air, size {{ r.analysis.ballSize }} ball.
-          Hit rates at other distances come from kicks aimed at each of them.
+          Predicted landings of {{ r.analysis.envelope.samples }} simulated kicks aimed at {{ r.analysis.envelope.aimDistanceM }} m (the
+          usual drill distance) at standard conditions: ISA sea level, 15 °C, still air, size {{ r.analysis.ballSize }} ball. Hit rates at
+          other distances come from kicks aimed at each of them.
         </p>
       }
     }

@@ -118,7 +118,12 @@ export class ReachTable {
           next: reach.entry.pending ? 'Waiting for the fit' : 'Log some repetitions first',
         };
       case 'computing':
-        return { ...base, reps: this.reps(reach.entry.repetitions, reach.entry.reachRadiusM), reach: reachHeadline(reach), next: 'Computing the envelope…' };
+        return {
+          ...base,
+          reps: this.reps(reach.entry.repetitions, reach.entry.reachRadiusM),
+          reach: reachHeadline(reach),
+          next: 'Computing the envelope…',
+        };
       case 'ready': {
         const next = reach.analysis.nextTarget;
         const link = next.kind === 'target' ? drillLink(reach.technique, next.distanceM, next.radiusM) : null;
@@ -129,7 +134,10 @@ export class ReachTable {
           uncertainty: reachUncertainty(reach.analysis),
           next: describeNextTarget(next),
           link,
-          nextLabel: next.kind === 'target' ? `Add ${technique.toLowerCase()} drill at ${next.distanceM} m, radius ${next.radiusM} m, in Pitchside` : '',
+          nextLabel:
+            next.kind === 'target'
+              ? `Add ${technique.toLowerCase()} drill at ${next.distanceM} m, radius ${next.radiusM} m, in Pitchside`
+              : '',
         };
       }
     }

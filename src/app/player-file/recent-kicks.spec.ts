@@ -14,7 +14,9 @@ import { RecentKicks } from './recent-kicks';
 /** 23 kicks: carries 20.0, 20.5, … (kick 0 has none), outcomes cycling, two techniques. */
 function kicks(): PlayerKick[] {
   const outcomes: Outcome[] = ['on_target', 'short', 'long', 'left'];
-  return Array.from({ length: 23 }, (_, i) => kick(i, i % 5 === 0 ? 'driven' : 'lofted', outcomes[i % 4]!, i === 0 ? null : 20 + i / 2)).reverse();
+  return Array.from({ length: 23 }, (_, i) =>
+    kick(i, i % 5 === 0 ? 'driven' : 'lofted', outcomes[i % 4]!, i === 0 ? null : 20 + i / 2),
+  ).reverse();
 }
 
 describe('RecentKicks', () => {

@@ -30,8 +30,15 @@ export const KICK_COLUMNS = ['recordedAt', 'technique', 'target', 'outcome', 'ca
 
 /** A kick as the table shows it, on the chosen carry basis. */
 export function kickRow(kick: PlayerKick, basis: CarryBasis): KickRow {
-  const lateral = kick.lateralM === null ? '–' : Math.abs(kick.lateralM) < 0.05 ? 'on line' : `${Math.abs(kick.lateralM).toFixed(1)} m ${kick.lateralM > 0 ? 'L' : 'R'}`;
-  const spin = [backspinLabel(kick.backspinStep), kick.sidespinStep === 0 ? null : sidespinLabel(kick.sidespinStep)].filter((s) => s !== null).join(', ');
+  const lateral =
+    kick.lateralM === null
+      ? '–'
+      : Math.abs(kick.lateralM) < 0.05
+        ? 'on line'
+        : `${Math.abs(kick.lateralM).toFixed(1)} m ${kick.lateralM > 0 ? 'L' : 'R'}`;
+  const spin = [backspinLabel(kick.backspinStep), kick.sidespinStep === 0 ? null : sidespinLabel(kick.sidespinStep)]
+    .filter((s) => s !== null)
+    .join(', ');
   return {
     kick,
     when: WHEN.format(new Date(kick.recordedAt)),

@@ -1,7 +1,23 @@
 import { BALL_SIZES, GOAL_HEIGHT_M, WALL_DISTANCE_M, simulateKick } from '../../../shared/flight';
-import { DEFAULT_GOAL_DISTANCE_M, DEFAULT_KICK, decodeState, encodeState, flightFigures, toKickInput, type SandboxKick } from './sandbox-kick';
+import {
+  DEFAULT_GOAL_DISTANCE_M,
+  DEFAULT_KICK,
+  decodeState,
+  encodeState,
+  flightFigures,
+  toKickInput,
+  type SandboxKick,
+} from './sandbox-kick';
 
-const curler: SandboxKick = { ...DEFAULT_KICK, speedMs: 23.5, elevationDeg: 19, sidespinRps: 6.5, windSpeedMs: 3, windFromDeg: 90, ballSize: 4 };
+const curler: SandboxKick = {
+  ...DEFAULT_KICK,
+  speedMs: 23.5,
+  elevationDeg: 19,
+  sidespinRps: 6.5,
+  windSpeedMs: 3,
+  windFromDeg: 90,
+  ballSize: 4,
+};
 
 describe('sandbox permalink', () => {
   it('reads back exactly the kicks, the edited kick and the goal distance it wrote', () => {

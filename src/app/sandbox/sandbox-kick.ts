@@ -4,15 +4,7 @@
  * results table shows for a computed flight. Pure functions, no Angular, so they are tested directly.
  */
 
-import {
-  BALL_SIZES,
-  GOAL_HEIGHT_M,
-  GOAL_WIDTH_M,
-  LIMITS,
-  WALL_DISTANCE_M,
-  type Flight,
-  type KickInput,
-} from '../../../shared/flight';
+import { BALL_SIZES, GOAL_HEIGHT_M, GOAL_WIDTH_M, LIMITS, WALL_DISTANCE_M, type Flight, type KickInput } from '../../../shared/flight';
 
 /** Ball sizes a club trains with (IFAB Laws of the Game, Law 2 for size 5; 3 and 4 common practice). */
 export type SandboxBallSize = 3 | 4 | 5;
@@ -62,16 +54,65 @@ export interface FieldSpec<K extends SandboxFieldKey = SandboxFieldKey> {
 export const LAUNCH_FIELDS: readonly FieldSpec<SandboxNumberField>[] = [
   { key: 'speedMs', label: 'Speed', unit: 'm/s', sliderMin: 5, sliderMax: 40, min: 1, max: LIMITS.speedMs[1], step: 0.5 },
   { key: 'elevationDeg', label: 'Elevation', unit: '°', sliderMin: 1, sliderMax: 70, min: 1, max: 85, step: 1 },
-  { key: 'azimuthDeg', label: 'Azimuth', unit: '°', sliderMin: -15, sliderMax: 15, min: -45, max: 45, step: 0.5, hint: '+ left of the aim' },
-  { key: 'backspinRps', label: 'Backspin', unit: 'rev/s', sliderMin: -15, sliderMax: 15, min: LIMITS.spinRps[0], max: LIMITS.spinRps[1], step: 0.5, hint: '− = topspin' },
-  { key: 'sidespinRps', label: 'Sidespin', unit: 'rev/s', sliderMin: -15, sliderMax: 15, min: LIMITS.spinRps[0], max: LIMITS.spinRps[1], step: 0.5, hint: '+ curls left' },
+  {
+    key: 'azimuthDeg',
+    label: 'Azimuth',
+    unit: '°',
+    sliderMin: -15,
+    sliderMax: 15,
+    min: -45,
+    max: 45,
+    step: 0.5,
+    hint: '+ left of the aim',
+  },
+  {
+    key: 'backspinRps',
+    label: 'Backspin',
+    unit: 'rev/s',
+    sliderMin: -15,
+    sliderMax: 15,
+    min: LIMITS.spinRps[0],
+    max: LIMITS.spinRps[1],
+    step: 0.5,
+    hint: '− = topspin',
+  },
+  {
+    key: 'sidespinRps',
+    label: 'Sidespin',
+    unit: 'rev/s',
+    sliderMin: -15,
+    sliderMax: 15,
+    min: LIMITS.spinRps[0],
+    max: LIMITS.spinRps[1],
+    step: 0.5,
+    hint: '+ curls left',
+  },
 ];
 
 /** Conditions fields in screen order. */
 export const CONDITION_FIELDS: readonly FieldSpec<SandboxNumberField>[] = [
   { key: 'windSpeedMs', label: 'Wind', unit: 'm/s', sliderMin: 0, sliderMax: 15, min: 0, max: LIMITS.windSpeedMs[1], step: 0.5 },
-  { key: 'windFromDeg', label: 'Wind from', unit: '°', sliderMin: 0, sliderMax: 345, min: 0, max: 359, step: 15, hint: '0 head, 90 left, 180 tail' },
-  { key: 'temperatureC', label: 'Temperature', unit: '°C', sliderMin: -10, sliderMax: 40, min: LIMITS.temperatureC[0], max: LIMITS.temperatureC[1], step: 1 },
+  {
+    key: 'windFromDeg',
+    label: 'Wind from',
+    unit: '°',
+    sliderMin: 0,
+    sliderMax: 345,
+    min: 0,
+    max: 359,
+    step: 15,
+    hint: '0 head, 90 left, 180 tail',
+  },
+  {
+    key: 'temperatureC',
+    label: 'Temperature',
+    unit: '°C',
+    sliderMin: -10,
+    sliderMax: 40,
+    min: LIMITS.temperatureC[0],
+    max: LIMITS.temperatureC[1],
+    step: 1,
+  },
   { key: 'altitudeM', label: 'Altitude', unit: 'm', sliderMin: 0, sliderMax: 3000, min: LIMITS.altitudeM[0], max: 5000, step: 50 },
   { key: 'humidityPct', label: 'Humidity', unit: '%', sliderMin: 0, sliderMax: 100, min: 0, max: 100, step: 5 },
 ];

@@ -42,7 +42,8 @@ export function figureRows(figures: readonly FlightFigures[]): FigureRow[] {
 export function sideSummary(figures: readonly FlightFigures[], goalDistanceM: number): string {
   if (figures.length === 0) return 'Side view: computing the flight.';
   const parts = figures.map((f, i) => {
-    const wall = f.wallHeightM === null ? `lands before ${WALL_DISTANCE_M} m` : `passes ${WALL_DISTANCE_M} m at ${f.wallHeightM.toFixed(2)} m`;
+    const wall =
+      f.wallHeightM === null ? `lands before ${WALL_DISTANCE_M} m` : `passes ${WALL_DISTANCE_M} m at ${f.wallHeightM.toFixed(2)} m`;
     return `kick ${KICK_NAMES[i]} carries ${f.carryM.toFixed(1)} m with an apex of ${f.apexM.toFixed(2)} m, ${wall}, and is ${VERDICT_TEXT[f.goalVerdict]} at ${goalDistanceM} m`;
   });
   return `Side view of height over distance: ${parts.join('; ')}.`;

@@ -34,7 +34,12 @@ import { figureRows, sideSummary, topSummary, type FigureRow } from './sandbox-t
 
 /** The latest computed flights with the inputs they belong to, or why they could not be computed. */
 type SandboxRun =
-  | { readonly status: 'ready'; readonly kicks: readonly SandboxKick[]; readonly goalDistanceM: number; readonly flights: readonly Flight[] }
+  | {
+      readonly status: 'ready';
+      readonly kicks: readonly SandboxKick[];
+      readonly goalDistanceM: number;
+      readonly flights: readonly Flight[];
+    }
   | { readonly status: 'error'; readonly message: string };
 
 /** A sandbox wall for reference in the side view, m (common practice: an adult wall jumping). */
@@ -90,7 +95,11 @@ export class Sandbox {
   });
   protected readonly goalControl = this.control(this.initial.goalDistanceM);
 
-  private readonly state = computed<SandboxState>(() => ({ kicks: [...this.kicks()], selected: this.selected(), goalDistanceM: this.goalDistanceM() }));
+  private readonly state = computed<SandboxState>(() => ({
+    kicks: [...this.kicks()],
+    selected: this.selected(),
+    goalDistanceM: this.goalDistanceM(),
+  }));
   private readonly work = computed(() => ({ kicks: this.kicks(), goalDistanceM: this.goalDistanceM() }));
 
   protected readonly run = toSignal(
@@ -113,7 +122,11 @@ export class Sandbox {
   });
   protected readonly sideTraces = computed(() => this.traces((p) => p.z));
   protected readonly topTraces = computed(() => this.traces((p) => p.y));
-  protected readonly landmarks = computed(() => ({ wallAtM: WALL_DISTANCE_M, wallHeightM: REFERENCE_WALL_HEIGHT_M, goalAtM: this.readyRun()?.goalDistanceM ?? this.goalDistanceM() }));
+  protected readonly landmarks = computed(() => ({
+    wallAtM: WALL_DISTANCE_M,
+    wallHeightM: REFERENCE_WALL_HEIGHT_M,
+    goalAtM: this.readyRun()?.goalDistanceM ?? this.goalDistanceM(),
+  }));
   protected readonly sideSummary = computed(() => sideSummary(this.figures(), this.readyRun()?.goalDistanceM ?? this.goalDistanceM()));
   protected readonly topSummary = computed(() => topSummary(this.readyRun()?.flights ?? []));
   protected readonly rows = computed<readonly FigureRow[]>(() => figureRows(this.figures()));

@@ -92,9 +92,7 @@ export class AppShell {
     const label = `${offline ? 'Offline, ' : ''}${unsynced} ${unsynced === 1 ? 'change' : 'changes'} not synced`;
     return { offline, unsynced, label };
   });
-  protected readonly themeToggleLabel = computed(() =>
-    this.theme.isDark() ? 'Switch to light theme' : 'Switch to dark theme',
-  );
+  protected readonly themeToggleLabel = computed(() => (this.theme.isDark() ? 'Switch to light theme' : 'Switch to dark theme'));
 
   constructor() {
     // The club name in the bar comes from GET /api/me; the stored one shows until it answers.

@@ -24,8 +24,9 @@ export type SignOutWarningChoice = 'sign_out' | 'stay';
     <h2 mat-dialog-title>Changes not sent yet</h2>
     <mat-dialog-content>
       <p>
-        {{ data.unsynced }} {{ data.unsynced === 1 ? 'change is' : 'changes are' }} saved on this phone but not on the server
-        yet{{ data.offline ? ' (the phone is offline)' : '' }}.
+        {{ data.unsynced }} {{ data.unsynced === 1 ? 'change is' : 'changes are' }} saved on this phone but not on the server yet{{
+          data.offline ? ' (the phone is offline)' : ''
+        }}.
       </p>
       <p>Signing out keeps them here. They are sent the next time you sign in on this phone.</p>
     </mat-dialog-content>

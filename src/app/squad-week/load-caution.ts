@@ -24,8 +24,8 @@ export function loadLine(player: Pick<SquadWeekPlayer, 'displayName' | 'loadFlag
       <div>
         <p class="load-caution__title">Kicking load</p>
         <p>
-          {{ flagged().length === 1 ? 'One player' : flagged().length + ' players' }} passed {{ limit() }} repetitions in a
-          session this week: {{ lines() }}.
+          {{ flagged().length === 1 ? 'One player' : flagged().length + ' players' }} passed {{ limit() }} repetitions in a session this
+          week: {{ lines() }}.
         </p>
         <p>Repeated hard kicking strains hips and groin. Defer to the club's medical staff on rest and load.</p>
       </div>

@@ -3,7 +3,12 @@ import { busiestTechniqueOfWeek, changeMark, csvCell, csvFileName, squadRows, sq
 
 describe('Squad week rows', () => {
   const next = {
-    byPlayer: new Map([[FIXTURE_IDS.playerAda, { status: 'ready' as const, result: { kind: 'target' as const, distanceM: 31.5, radiusM: 3, probability: 0.552 } }]]),
+    byPlayer: new Map([
+      [
+        FIXTURE_IDS.playerAda,
+        { status: 'ready' as const, result: { kind: 'target' as const, distanceM: 31.5, radiusM: 3, probability: 0.552 } },
+      ],
+    ]),
     otherwise: { status: 'unavailable' as const, reason: 'no repetitions' },
   };
 

@@ -166,6 +166,10 @@ export function squadWeekCsv(rows: readonly SquadRow[], technique: Technique, ba
 
 /** A file name for the export, e.g. "squad-week-u16-2025-03-03-lofted.csv". */
 export function csvFileName(squadName: string, weekStart: string, technique: Technique): string {
-  const slug = squadName.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'squad';
+  const slug =
+    squadName
+      .toLowerCase()
+      .replace(/[^a-z0-9]+/g, '-')
+      .replace(/^-|-$/g, '') || 'squad';
   return `squad-week-${slug}-${weekStart}-${technique}.csv`;
 }

@@ -17,7 +17,20 @@ import { type SquadRow, changeMark, csvFileName, squadWeekCsv } from './squad-we
 import { TextDownload } from './text-download';
 
 /** Column ids in display order. */
-export const SQUAD_COLUMNS = ['shirt', 'player', 'reps', 'hitRate', 'change', 'best', 'techReps', 'techHitRate', 'techCarry', 'reach', 'next', 'load'] as const;
+export const SQUAD_COLUMNS = [
+  'shirt',
+  'player',
+  'reps',
+  'hitRate',
+  'change',
+  'best',
+  'techReps',
+  'techHitRate',
+  'techCarry',
+  'reach',
+  'next',
+  'load',
+] as const;
 
 /**
  * The Squad week table: one line per player with the week's repetitions and hit rate, the change
@@ -28,7 +41,17 @@ export const SQUAD_COLUMNS = ['shirt', 'player', 'reps', 'hitRate', 'change', 'b
  */
 @Component({
   selector: 'll-squad-week-table',
-  imports: [MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSortModule, MatTableModule, MatTooltipModule, ReactiveFormsModule, RouterLink],
+  imports: [
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatSortModule,
+    MatTableModule,
+    MatTooltipModule,
+    ReactiveFormsModule,
+    RouterLink,
+  ],
   templateUrl: './squad-week-table.html',
   styleUrl: './squad-week-table.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -91,8 +114,7 @@ export class SquadWeekTable {
           return '';
       }
     };
-    this.dataSource.filterPredicate = (row, filter) =>
-      `${row.shirtNumber ?? ''} ${row.displayName}`.toLowerCase().includes(filter);
+    this.dataSource.filterPredicate = (row, filter) => `${row.shirtNumber ?? ''} ${row.displayName}`.toLowerCase().includes(filter);
     effect(() => {
       this.dataSource.data = [...this.rows()];
     });

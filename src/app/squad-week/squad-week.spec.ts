@@ -168,7 +168,9 @@ describe('SquadWeek', () => {
     await harness.fixture.whenStable();
     expectWeek('2025-02-17').flush(fixtureWeek('2025-02-17'));
     await harness.fixture.whenStable();
-    backend.expectOne((r) => r.url === `/api/squads/${SQUAD}/profiles` && r.params.get('technique') === 'driven').flush({ squadId: SQUAD, technique: 'driven', players: [] });
+    backend
+      .expectOne((r) => r.url === `/api/squads/${SQUAD}/profiles` && r.params.get('technique') === 'driven')
+      .flush({ squadId: SQUAD, technique: 'driven', players: [] });
     await harness.fixture.whenStable();
     expect(count('ll-zone-rate-chart rect.ll-zone__bar')).toBe(1);
     expect(text()).toContain('Driven hit rate');
@@ -176,7 +178,9 @@ describe('SquadWeek', () => {
     await harness.fixture.whenStable();
     expectWeek('2025-03-03').flush(fixtureWeek());
     await harness.fixture.whenStable();
-    backend.expectOne((r) => r.url === `/api/squads/${SQUAD}/profiles` && r.params.get('technique') === 'lofted').flush({ squadId: SQUAD, technique: 'lofted', players: [] });
+    backend
+      .expectOne((r) => r.url === `/api/squads/${SQUAD}/profiles` && r.params.get('technique') === 'lofted')
+      .flush({ squadId: SQUAD, technique: 'lofted', players: [] });
     expect(text()).toContain('3 Mar – 9 Mar 2025');
   });
 });

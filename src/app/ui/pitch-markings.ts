@@ -108,11 +108,7 @@ function penaltyArc(): string {
 function boxLines(): string[] {
   const pa = PENALTY_AREA_WIDTH_M / 2;
   const ga = GOAL_AREA_WIDTH_M / 2;
-  return [
-    `M${n(-pa)} 0V${n(PENALTY_AREA_DEPTH_M)}H${n(pa)}V0`,
-    `M${n(-ga)} 0V${n(GOAL_AREA_DEPTH_M)}H${n(ga)}V0`,
-    penaltyArc(),
-  ];
+  return [`M${n(-pa)} 0V${n(PENALTY_AREA_DEPTH_M)}H${n(pa)}V0`, `M${n(-ga)} 0V${n(GOAL_AREA_DEPTH_M)}H${n(ga)}V0`, penaltyArc()];
 }
 
 /** The goal in a top view: the line between the posts' centres and the net outline behind it. */

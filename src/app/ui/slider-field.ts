@@ -35,7 +35,19 @@ const TYPING_PAUSE_MS = 350;
     </mat-slider>
     <mat-form-field class="slider-field__number" subscriptSizing="dynamic">
       <mat-label>{{ label() }}</mat-label>
-      <input matInput type="number" inputmode="decimal" [id]="inputId" [formControl]="typed" [errorStateMatcher]="whileTyping" [step]="step()" [min]="min()" [max]="max()" (blur)="commitTyped(); touched()" (keydown.enter)="commitTyped()" />
+      <input
+        matInput
+        type="number"
+        inputmode="decimal"
+        [id]="inputId"
+        [formControl]="typed"
+        [errorStateMatcher]="whileTyping"
+        [step]="step()"
+        [min]="min()"
+        [max]="max()"
+        (blur)="commitTyped(); touched()"
+        (keydown.enter)="commitTyped()"
+      />
       <span matTextSuffix>{{ unit() }}</span>
       @if (typed.invalid) {
         <mat-error>{{ min() }} to {{ max() }} {{ unit() }}</mat-error>

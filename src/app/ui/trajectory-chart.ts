@@ -212,7 +212,11 @@ export class TrajectoryChart {
       .join('g')
       .attr('class', 'll-trajectory__grid')
       .attr('transform', `translate(${MARGIN.left},0)`)
-      .call(axisLeft(y).ticks(Math.max(3, Math.round(height / 50))).tickSize(-(width - MARGIN.left - MARGIN.right)))
+      .call(
+        axisLeft(y)
+          .ticks(Math.max(3, Math.round(height / 50)))
+          .tickSize(-(width - MARGIN.left - MARGIN.right)),
+      )
       .call((g) => g.select('.domain').remove());
     axes
       .selectAll<SVGGElement, null>('g.ll-trajectory__x')
@@ -240,7 +244,13 @@ export class TrajectoryChart {
       .attr('y1', y(0))
       .attr('y2', y(0));
 
-    this.drawLandmarks(svg.selectAll<SVGGElement, null>('g.ll-trajectory__landmarks').data([null]).join('g').attr('class', 'll-trajectory__landmarks'), x, y, side, marks);
+    this.drawLandmarks(
+      svg.selectAll<SVGGElement, null>('g.ll-trajectory__landmarks').data([null]).join('g').attr('class', 'll-trajectory__landmarks'),
+      x,
+      y,
+      side,
+      marks,
+    );
 
     const path = line<{ x: number; y: number }>()
       .x((p) => x(p.x))
@@ -250,7 +260,10 @@ export class TrajectoryChart {
       .selectAll<SVGPathElement, TrajectoryTrace>('path.ll-trajectory__trace')
       .data(traces, (t) => t.id)
       .join('path')
-      .attr('class', (t) => `ll-trajectory__trace ll-trajectory__trace--tone-${t.tone}${t.emphasised ? ' ll-trajectory__trace--emphasised' : ''}`)
+      .attr(
+        'class',
+        (t) => `ll-trajectory__trace ll-trajectory__trace--tone-${t.tone}${t.emphasised ? ' ll-trajectory__trace--emphasised' : ''}`,
+      )
       .attr('d', (t) => path(t.points as { x: number; y: number }[]) ?? '');
     layer
       .selectAll<SVGCircleElement, TrajectoryTrace>('circle.ll-trajectory__landing')

@@ -110,21 +110,33 @@ export class CalibrationChart {
     const pct = (v: unknown): string => `${Math.round(Number(v) * 100)} %`;
     g.append('g')
       .attr('class', 'll-chart__grid')
-      .call(axisLeft(y).ticks(5).tickSize(-innerW).tickFormat(() => ''));
+      .call(
+        axisLeft(y)
+          .ticks(5)
+          .tickSize(-innerW)
+          .tickFormat(() => ''),
+      );
     g.append('g').attr('class', 'll-chart__axis').call(axisLeft(y).ticks(5).tickFormat(pct));
-    g.append('g')
-      .attr('class', 'll-chart__axis')
-      .attr('transform', `translate(0,${innerH})`)
-      .call(axisBottom(x).ticks(5).tickFormat(pct));
+    g.append('g').attr('class', 'll-chart__axis').attr('transform', `translate(0,${innerH})`).call(axisBottom(x).ticks(5).tickFormat(pct));
     g.append('line').attr('class', 'll-calibration__diagonal').attr('x1', x(0)).attr('y1', y(0)).attr('x2', x(1)).attr('y2', y(1));
-    g.append('text').attr('class', 'll-chart__label').attr('x', innerW / 2).attr('y', innerH + 32).attr('text-anchor', 'middle').text('Predicted hit rate');
+    g.append('text')
+      .attr('class', 'll-chart__label')
+      .attr('x', innerW / 2)
+      .attr('y', innerH + 32)
+      .attr('text-anchor', 'middle')
+      .text('Predicted hit rate');
     g.append('text')
       .attr('class', 'll-chart__label')
       .attr('transform', `translate(${-38},${innerH / 2}) rotate(-90)`)
       .attr('text-anchor', 'middle')
       .text('Observed hit rate');
     if (marks.length === 0) {
-      g.append('text').attr('class', 'll-chart__empty').attr('x', innerW / 2).attr('y', innerH / 2).attr('text-anchor', 'middle').text('No predictions yet');
+      g.append('text')
+        .attr('class', 'll-chart__empty')
+        .attr('x', innerW / 2)
+        .attr('y', innerH / 2)
+        .attr('text-anchor', 'middle')
+        .text('No predictions yet');
       return;
     }
     g.selectAll('circle.ll-calibration__point')

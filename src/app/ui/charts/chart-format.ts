@@ -19,9 +19,7 @@ export function formatRange(low: number | null | undefined, high: number | null 
   if (low === null || low === undefined || high === null || high === undefined) {
     return '–';
   }
-  return kind === 'metres'
-    ? `${low.toFixed(1)}–${high.toFixed(1)} m`
-    : `${Math.round(low * 100)}–${Math.round(high * 100)} %`;
+  return kind === 'metres' ? `${low.toFixed(1)}–${high.toFixed(1)} m` : `${Math.round(low * 100)}–${Math.round(high * 100)} %`;
 }
 
 const WEEK_LABEL = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', timeZone: 'UTC' });

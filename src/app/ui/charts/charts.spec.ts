@@ -32,7 +32,9 @@ function count(fixture: ComponentFixture<unknown>, selector: string): number {
 
 describe('charts', () => {
   afterEach(() => {
-    for (const el of Array.from(document.body.querySelectorAll('ll-progress-chart, ll-outcome-mix-chart, ll-reach-diagram, ll-zone-rate-chart, ll-calibration-chart'))) {
+    for (const el of Array.from(
+      document.body.querySelectorAll('ll-progress-chart, ll-outcome-mix-chart, ll-reach-diagram, ll-zone-rate-chart, ll-calibration-chart'),
+    )) {
       el.remove();
     }
   });
@@ -60,7 +62,17 @@ describe('charts', () => {
   });
 
   it('ProgressChart redraws to its new width', async () => {
-    const f = await render(ProgressChart, { points: [{ weekStart: '2025-03-03', value: 0.5, low: 0.3, high: 0.7, reps: 10 }], valueLabel: 'Hit rate', bandLabel: '95 %', kind: 'share', summary: 'x' }, 360);
+    const f = await render(
+      ProgressChart,
+      {
+        points: [{ weekStart: '2025-03-03', value: 0.5, low: 0.3, high: 0.7, reps: 10 }],
+        valueLabel: 'Hit rate',
+        bandLabel: '95 %',
+        kind: 'share',
+        summary: 'x',
+      },
+      360,
+    );
     (f.nativeElement as HTMLElement).style.width = '720px';
     await new Promise((resolve) => setTimeout(resolve, 50));
     await f.whenStable();
@@ -98,7 +110,11 @@ describe('charts', () => {
   it('ReachDiagram is drawn to scale: one metre is as long across as along', async () => {
     const base = fitProfile([], { ...DEFAULT_PRIORS.lofted, technique: 'lofted' });
     const envelope = reachEnvelope({ ...base, meanSpeedMs: 21 }, {}, { samples: 50, seed: 1 });
-    const f = await render(ReachDiagram, { picture: envelope, targets: [{ distanceM: 20, radiusM: 4, kind: 'drill', reps: 1, probability: null }], summary: 'Reach' });
+    const f = await render(ReachDiagram, {
+      picture: envelope,
+      targets: [{ distanceM: 20, radiusM: 4, kind: 'drill', reps: 1, probability: null }],
+      summary: 'Reach',
+    });
     const ring = (f.nativeElement as HTMLElement).querySelectorAll<SVGCircleElement>('svg circle.ll-reach__ring');
     const target = (f.nativeElement as HTMLElement).querySelector<SVGCircleElement>('svg circle.ll-reach__target')!;
     const spotY = Number(ring[0]!.getAttribute('cy'));

@@ -116,7 +116,12 @@ export class OutcomeMixChart {
     const innerH = height - MARGIN.top - MARGIN.bottom;
     const g = svg.append('g').attr('transform', `translate(${MARGIN.left},${MARGIN.top})`);
     if (weeks.length === 0) {
-      g.append('text').attr('class', 'll-chart__empty').attr('x', innerW / 2).attr('y', innerH / 2 + 4).attr('text-anchor', 'middle').text('No weeks with data yet');
+      g.append('text')
+        .attr('class', 'll-chart__empty')
+        .attr('x', innerW / 2)
+        .attr('y', innerH / 2 + 4)
+        .attr('text-anchor', 'middle')
+        .text('No weeks with data yet');
       return;
     }
     const y = scaleBand<string>()
@@ -137,11 +142,20 @@ export class OutcomeMixChart {
     }
     g.append('g')
       .attr('class', 'll-chart__axis')
-      .call(axisLeft(y).tickSize(0).tickPadding(6).tickFormat((d) => weekLabel(d)));
+      .call(
+        axisLeft(y)
+          .tickSize(0)
+          .tickPadding(6)
+          .tickFormat((d) => weekLabel(d)),
+      );
     g.append('g')
       .attr('class', 'll-chart__axis')
       .attr('transform', `translate(0,${innerH})`)
-      .call(axisBottom(x).ticks(Math.min(5, Math.floor(innerW / 60))).tickFormat((v) => `${Math.round(Number(v) * 100)} %`));
+      .call(
+        axisBottom(x)
+          .ticks(Math.min(5, Math.floor(innerW / 60)))
+          .tickFormat((v) => `${Math.round(Number(v) * 100)} %`),
+      );
     g.selectAll('rect.ll-outcome__segment')
       .data(segments)
       .join('rect')

@@ -109,7 +109,12 @@ export class ProgressChart {
     const innerH = HEIGHT_PX - MARGIN.top - MARGIN.bottom;
     const g = svg.append('g').attr('transform', `translate(${MARGIN.left},${MARGIN.top})`);
     if (points.length === 0) {
-      g.append('text').attr('class', 'll-chart__empty').attr('x', innerW / 2).attr('y', innerH / 2).attr('text-anchor', 'middle').text('No weeks with data yet');
+      g.append('text')
+        .attr('class', 'll-chart__empty')
+        .attr('x', innerW / 2)
+        .attr('y', innerH / 2)
+        .attr('text-anchor', 'middle')
+        .text('No weeks with data yet');
       return;
     }
     const dates = points.map((p) => weekDate(p.weekStart));
@@ -134,10 +139,19 @@ export class ProgressChart {
 
     g.append('g')
       .attr('class', 'll-chart__grid')
-      .call(axisLeft(y).ticks(5).tickSize(-innerW).tickFormat(() => ''));
+      .call(
+        axisLeft(y)
+          .ticks(5)
+          .tickSize(-innerW)
+          .tickFormat(() => ''),
+      );
     g.append('g')
       .attr('class', 'll-chart__axis')
-      .call(axisLeft(y).ticks(5).tickFormat((v) => (kind === 'share' ? `${Math.round(Number(v) * 100)} %` : `${Number(v)} m`)));
+      .call(
+        axisLeft(y)
+          .ticks(5)
+          .tickFormat((v) => (kind === 'share' ? `${Math.round(Number(v) * 100)} %` : `${Number(v)} m`)),
+      );
     g.append('g')
       .attr('class', 'll-chart__axis')
       .attr('transform', `translate(0,${innerH})`)
@@ -152,11 +166,15 @@ export class ProgressChart {
       .x((p) => x(weekDate(p.weekStart)))
       .y0((p) => y(p.low ?? p.value))
       .y1((p) => y(p.high ?? p.value));
-    g.append('path').attr('class', 'll-progress__band').attr('d', band([...points]));
+    g.append('path')
+      .attr('class', 'll-progress__band')
+      .attr('d', band([...points]));
     const path = line<ProgressPoint>()
       .x((p) => x(weekDate(p.weekStart)))
       .y((p) => y(p.value));
-    g.append('path').attr('class', 'll-progress__line').attr('d', path([...points]));
+    g.append('path')
+      .attr('class', 'll-progress__line')
+      .attr('d', path([...points]));
     g.selectAll('circle.ll-progress__point')
       .data(points)
       .join('circle')
@@ -165,6 +183,8 @@ export class ProgressChart {
       .attr('cy', (p) => y(p.value))
       .attr('r', 4)
       .append('title')
-      .text((p) => `Week of ${weekLabel(p.weekStart)}: ${formatValue(p.value, kind)} (${formatRange(p.low, p.high, kind)}), ${p.reps} reps`);
+      .text(
+        (p) => `Week of ${weekLabel(p.weekStart)}: ${formatValue(p.value, kind)} (${formatRange(p.low, p.high, kind)}), ${p.reps} reps`,
+      );
   }
 }

@@ -115,7 +115,8 @@ export class ReachDiagram {
 
   protected readonly rows = computed(() => {
     const p = this.picture();
-    const lateral = (v: number): string => (Math.abs(v) < 0.05 ? 'on the aim line' : `${Math.abs(v).toFixed(1)} m ${v > 0 ? 'left' : 'right'}`);
+    const lateral = (v: number): string =>
+      Math.abs(v) < 0.05 ? 'on the aim line' : `${Math.abs(v).toFixed(1)} m ${v > 0 ? 'left' : 'right'}`;
     const rows = [
       { label: 'Carry, 10th percentile', value: formatValue(p.carryM.p10, 'metres') },
       { label: 'Carry, median', value: formatValue(p.carryM.p50, 'metres') },
@@ -184,7 +185,13 @@ export class ReachDiagram {
       .attr('y', MARGIN.top)
       .attr('width', innerW)
       .attr('height', innerH);
-    svg.append('rect').attr('class', 'll-reach__ground').attr('x', MARGIN.left).attr('y', MARGIN.top).attr('width', innerW).attr('height', innerH);
+    svg
+      .append('rect')
+      .attr('class', 'll-reach__ground')
+      .attr('x', MARGIN.left)
+      .attr('y', MARGIN.top)
+      .attr('width', innerW)
+      .attr('height', innerH);
     const plot = svg.append('g').attr('clip-path', `url(#${clipId})`);
 
     const rings = range(step, forwardM + step / 2, step);
@@ -215,10 +222,18 @@ export class ReachDiagram {
       const fy = e.centerYM + e.semiMajorM * Math.cos(t) * Math.sin(a) + e.semiMinorM * Math.sin(t) * Math.cos(a);
       return `${sx(fy).toFixed(1)},${sy(fx).toFixed(1)}`;
     });
-    plot.append('path').attr('class', 'll-reach__ellipse').attr('d', `M${outline.join('L')}Z`);
+    plot
+      .append('path')
+      .attr('class', 'll-reach__ellipse')
+      .attr('d', `M${outline.join('L')}Z`);
 
     if (reliableReachM !== null) {
-      plot.append('circle').attr('class', 'll-reach__reliable').attr('cx', cx).attr('cy', baseY).attr('r', reliableReachM * scale);
+      plot
+        .append('circle')
+        .attr('class', 'll-reach__reliable')
+        .attr('cx', cx)
+        .attr('cy', baseY)
+        .attr('r', reliableReachM * scale);
     }
     plot
       .selectAll('circle.ll-reach__target')
@@ -236,7 +251,12 @@ export class ReachDiagram {
     const labelAngle = (28 * Math.PI) / 180;
     svg
       .selectAll('text.ll-reach__ring-label')
-      .data(rings.filter((d) => cx + d * scale * Math.sin(labelAngle) < MARGIN.left + innerW - 24 && baseY - d * scale * Math.cos(labelAngle) > MARGIN.top + 8))
+      .data(
+        rings.filter(
+          (d) =>
+            cx + d * scale * Math.sin(labelAngle) < MARGIN.left + innerW - 24 && baseY - d * scale * Math.cos(labelAngle) > MARGIN.top + 8,
+        ),
+      )
       .join('text')
       .attr('class', 'll-chart__label ll-reach__ring-label')
       .attr('x', (d) => cx + d * scale * Math.sin(labelAngle))
@@ -252,8 +272,25 @@ export class ReachDiagram {
         .text(`reliable ${reliableReachM.toFixed(1)} m`);
     }
     svg.append('circle').attr('class', 'll-reach__spot').attr('cx', cx).attr('cy', baseY).attr('r', 4);
-    svg.append('text').attr('class', 'll-chart__label').attr('x', MARGIN.left).attr('y', height - 8).text('← left');
-    svg.append('text').attr('class', 'll-chart__label').attr('x', MARGIN.left + innerW).attr('y', height - 8).attr('text-anchor', 'end').text('right →');
-    svg.append('text').attr('class', 'll-chart__label').attr('x', cx).attr('y', height - 8).attr('text-anchor', 'middle').text('kick spot');
+    svg
+      .append('text')
+      .attr('class', 'll-chart__label')
+      .attr('x', MARGIN.left)
+      .attr('y', height - 8)
+      .text('← left');
+    svg
+      .append('text')
+      .attr('class', 'll-chart__label')
+      .attr('x', MARGIN.left + innerW)
+      .attr('y', height - 8)
+      .attr('text-anchor', 'end')
+      .text('right →');
+    svg
+      .append('text')
+      .attr('class', 'll-chart__label')
+      .attr('x', cx)
+      .attr('y', height - 8)
+      .attr('text-anchor', 'middle')
+      .text('kick spot');
   }
 }

@@ -111,32 +111,39 @@ export class ZoneRateChart {
     const innerH = HEIGHT_PX - MARGIN.top - MARGIN.bottom;
     const g = svg.append('g').attr('transform', `translate(${MARGIN.left},${MARGIN.top})`);
     if (zones.length === 0) {
-      g.append('text').attr('class', 'll-chart__empty').attr('x', innerW / 2).attr('y', innerH / 2).attr('text-anchor', 'middle').text('No repetitions of this technique this week');
+      g.append('text')
+        .attr('class', 'll-chart__empty')
+        .attr('x', innerW / 2)
+        .attr('y', innerH / 2)
+        .attr('text-anchor', 'middle')
+        .text('No repetitions of this technique this week');
       return;
     }
     // Every band from the nearest to the farthest, so a distance nobody trained at shows as a gap.
     const slots = bandSlots(zones);
-    const x = scaleBand<string>()
-      .domain(slots.map(bandLabel))
-      .range([0, innerW])
-      .padding(0.2);
+    const x = scaleBand<string>().domain(slots.map(bandLabel)).range([0, innerW]).padding(0.2);
     const y = scaleLinear().domain([0, 1]).range([innerH, 0]);
     g.append('g')
       .attr('class', 'll-chart__grid')
-      .call(axisLeft(y).ticks(4).tickSize(-innerW).tickFormat(() => ''));
+      .call(
+        axisLeft(y)
+          .ticks(4)
+          .tickSize(-innerW)
+          .tickFormat(() => ''),
+      );
     g.append('g')
       .attr('class', 'll-chart__axis')
-      .call(axisLeft(y).ticks(4).tickFormat((v) => `${Math.round(Number(v) * 100)} %`));
+      .call(
+        axisLeft(y)
+          .ticks(4)
+          .tickFormat((v) => `${Math.round(Number(v) * 100)} %`),
+      );
     const every = Math.max(1, Math.ceil(slots.length / Math.max(1, Math.floor(innerW / 56))));
     g.append('g')
       .attr('class', 'll-chart__axis')
       .attr('transform', `translate(0,${innerH})`)
       .call(axisBottom(x).tickValues(slots.map(bandLabel).filter((_, i) => i % every === 0)));
-    const bars = g
-      .selectAll('g.ll-zone')
-      .data(zones)
-      .join('g')
-      .attr('class', 'll-zone');
+    const bars = g.selectAll('g.ll-zone').data(zones).join('g').attr('class', 'll-zone');
     bars
       .append('rect')
       .attr('class', 'll-zone__bar')
