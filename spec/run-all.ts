@@ -4,9 +4,12 @@
  *  1. Node-side Jasmine specs under `spec/` (shared/, api/ with supertest, seed/).
  *  2. Karma + Jasmine for `src/**\/*.spec.ts` in headless Chromium.
  *  3. End-to-end specs in `spec/e2e/` (playwright-core driving Chromium against a real server).
+ *  0. Before them, the static checks: Prettier's format check and strict `tsc` over server, shared,
+ *     specs, client and worker (tsx and esbuild strip types without checking them). Each counts as one
+ *     test.
  *
  * Installs Debian's Chromium when it is missing and we are root; otherwise says what to install.
- * `--only=node|karma|e2e` runs one part.
+ * `--only=checks|node|karma|e2e` runs one part.
  */
 import { spawn, spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
@@ -96,6 +99,25 @@ async function runKarma(): Promise<Counts> {
   return counts;
 }
 
+/** Static checks that must hold on every commit; each counts as one passed or failed test. */
+async function runChecks(): Promise<Counts> {
+  const counts: Counts = { passed: 0, failed: 0, skipped: 0 };
+  const checks: [string, string[]][] = [
+    ['Format (prettier --check)', [resolve('node_modules/prettier/bin/prettier.cjs'), '--check', '--log-level=warn', '.']],
+    ...['api', 'app', 'spec', 'worker'].map((project): [string, string[]] => [
+      `Types (tsc -p tsconfig.${project}.json)`,
+      [resolve('node_modules/typescript/bin/tsc'), '-p', `tsconfig.${project}.json`, '--noEmit'],
+    ]),
+  ];
+  for (const [label, args] of checks) {
+    console.log(`\n── ${label} ──`);
+    const { code } = await run(process.execPath, args);
+    if (code === 0) counts.passed += 1;
+    else counts.failed += 1;
+  }
+  return counts;
+}
+
 async function main(): Promise<void> {
   const total: Counts = { passed: 0, failed: 0, skipped: 0 };
   const add = (c: Counts): void => {
@@ -104,7 +126,8 @@ async function main(): Promise<void> {
     total.skipped += c.skipped;
   };
   try {
-    if (!only || only !== 'node') ensureChromium();
+    if (!only || only === 'checks') add(await runChecks());
+    if (!only || (only !== 'node' && only !== 'checks')) ensureChromium();
     if (!only || only === 'node') add(await runJasmine('spec/support/jasmine.json', 'Node-side specs (spec/)'));
     if (!only || only === 'karma') add(await runKarma());
     if (!only || only === 'e2e') {
