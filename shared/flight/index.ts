@@ -18,6 +18,9 @@ export {
   goffCarreSpinCd,
   GOFF_CARRE_RE_CENTRE,
   GOFF_CARRE_RE_WIDTH,
+  LIFT_ONSET_S,
+  LIFT_ONSET_SLOPE,
+  onsetLiftCl,
   powerLiftCl,
   saturatingLiftCl,
 } from './aero';

@@ -8,7 +8,7 @@
  * here helps every envelope.
  */
 
-import { goffCarreCd, powerLiftCl, saturatingLiftCl } from './aero';
+import { goffCarreCd, onsetLiftCl, powerLiftCl, saturatingLiftCl } from './aero';
 import { resolveAir } from './atmosphere';
 import { BALL_SIZES, DEFAULT_SPIN_DECAY_TAU_S, STANDARD_GRAVITY_MS2 } from './constants';
 import type { FlightConditions, KickInput } from './types';
@@ -21,12 +21,14 @@ const TWO_PI = 2 * Math.PI;
 export const DRAG_GOFF_CARRE = 0;
 /** Constant drag coefficient. */
 export const DRAG_CONSTANT = 1;
+/** Lift: the default, linear through zero then the measured power fit (onsetLiftCl). */
+export const LIFT_ONSET = 0;
 /** Lift: power fit. */
-export const LIFT_POWER = 0;
+export const LIFT_POWER = 1;
 /** Lift: saturating form. */
-export const LIFT_SATURATING = 1;
+export const LIFT_SATURATING = 2;
 /** Lift: constant coefficient. */
-export const LIFT_CONSTANT = 2;
+export const LIFT_CONSTANT = 3;
 
 /** Precomputed constants of one kick's equations of motion. Plain numbers only, for speed. */
 export interface FlightModel {
@@ -82,12 +84,13 @@ export function resolveConditions(c: FlightConditions): Omit<FlightModel, 'axisX
     dragKind = DRAG_CONSTANT;
     dragConstant = requireInRange('aero.drag.constant', aero.drag.constant, LIMITS.dragConstant[0], LIMITS.dragConstant[1]);
   }
-  let liftKind = LIFT_POWER;
+  let liftKind = LIFT_ONSET;
   let liftConstant = 0;
-  if (aero.lift === 'saturating') liftKind = LIFT_SATURATING;
-  else if (aero.lift !== undefined && aero.lift !== 'power') {
+  if (aero.lift === 'power') liftKind = LIFT_POWER;
+  else if (aero.lift === 'saturating') liftKind = LIFT_SATURATING;
+  else if (aero.lift !== undefined && aero.lift !== 'onset') {
     if (typeof aero.lift !== 'object' || aero.lift === null)
-      throw new RangeError(`aero.lift must be 'power', 'saturating' or { constant } (got ${String(aero.lift)})`);
+      throw new RangeError(`aero.lift must be 'onset', 'power', 'saturating' or { constant } (got ${String(aero.lift)})`);
     liftKind = LIFT_CONSTANT;
     liftConstant = requireInRange('aero.lift.constant', aero.lift.constant, LIMITS.liftConstant[0], LIMITS.liftConstant[1]);
   }
@@ -207,7 +210,8 @@ export function derivative(m: FlightModel, t: number, s: ArrayLike<number>, out:
     az -= drag * uz;
     if (spin > 0) {
       let cl: number;
-      if (m.liftKind === LIFT_POWER) cl = powerLiftCl(spinParameter);
+      if (m.liftKind === LIFT_ONSET) cl = onsetLiftCl(spinParameter);
+      else if (m.liftKind === LIFT_POWER) cl = powerLiftCl(spinParameter);
       else if (m.liftKind === LIFT_SATURATING) cl = saturatingLiftCl(spinParameter);
       else cl = m.liftConstant;
       // k C_L |u|² (ω̂ × û) = k C_L |u| (ω̂ × u)

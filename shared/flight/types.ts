@@ -44,8 +44,11 @@ export interface WindSpec {
 /** Drag coefficient model: Goff & Carré 2010 fits with the crisis in Reynolds number, or a constant. */
 export type DragModel = 'goff-carre' | { constant: number };
 
-/** Lift coefficient model: power fit, saturating form, or a constant (applied only with spin). */
-export type LiftModel = 'power' | 'saturating' | { constant: number };
+/**
+ * Lift coefficient model: `onset` (default: linear through zero, the measured power fit above S ≈ 0.1),
+ * the bare power fit, the saturating form, or a constant (applied only with spin).
+ */
+export type LiftModel = 'onset' | 'power' | 'saturating' | { constant: number };
 
 /** Aerodynamic settings; published coefficients disagree, so these are settings, not constants. */
 export interface AeroSpec {
