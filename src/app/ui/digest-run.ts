@@ -3,8 +3,8 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { finalize } from 'rxjs';
 import { describeApiError } from '../core/api-error';
-import { dateLabel } from '../guardian/date-labels';
-import { DigestApi, type DigestRunResult } from '../guardian/digest-api';
+import { dateLabel } from '../core/date-labels';
+import { DigestApi, type DigestRunResult } from '../core/guardians/digest-api';
 
 /**
  * "Send digests now": runs the weekly Family digest and Squad week summary job at once, for an

@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
-import { LoftlineMark } from '../ui/loftline-mark';
+import { LoftlineMark } from './loftline-mark';
 
 /**
  * The frame of the pages people reach from an e-mail without being signed in (invitation,

@@ -1,7 +1,7 @@
 import { TestBed } from '@angular/core/testing';
 import { ANALYSIS_CACHE_LIMIT, AnalysisCache } from './analysis-cache';
-import { LOFTLINE_DB, type LoftlineDb } from './loftline-db';
-import { freshDb } from './spec-support';
+import { LOFTLINE_DB, type LoftlineDb } from '../loftline-db';
+import { freshDb } from '../spec-support';
 
 describe('AnalysisCache', () => {
   let db: LoftlineDb;

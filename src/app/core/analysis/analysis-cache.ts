@@ -1,5 +1,5 @@
 import { Injectable, inject } from '@angular/core';
-import { LOFTLINE_DB } from './loftline-db';
+import { LOFTLINE_DB } from '../loftline-db';
 
 /** Most entries kept; the oldest go first (envelopes and answers are small, but phones are not). */
 export const ANALYSIS_CACHE_LIMIT = 500;

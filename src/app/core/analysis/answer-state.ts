@@ -1,7 +1,7 @@
 import { Observable, OperatorFunction, catchError, map, of, startWith } from 'rxjs';
-import { describeApiError } from '../core/api-error';
-import type { LoadState } from '../core/load-state';
-import { LOADING } from '../core/load-state';
+import { describeApiError } from '../api-error';
+import type { LoadState } from '../load-state';
+import { LOADING } from '../load-state';
 import type { Answer } from './cached-answer';
 
 /**

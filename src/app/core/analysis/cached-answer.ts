@@ -1,6 +1,6 @@
 import { HttpErrorResponse } from '@angular/common/http';
 import { InjectionToken, inject } from '@angular/core';
-import { AnalysisCache } from '../core/analysis-cache';
+import { AnalysisCache } from './analysis-cache';
 import { Observable, catchError, from, map, switchMap, tap, throwError } from 'rxjs';
 
 /** What kind of answer a cache entry holds (so the cache can be cleared by kind). */

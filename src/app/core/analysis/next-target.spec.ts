@@ -1,4 +1,4 @@
-import { curveHitProbability, type ReachCurve } from '../../../shared/flight';
+import { curveHitProbability, type ReachCurve } from '../../../../shared/flight';
 import { NEXT_TARGET_BAND, bestTarget, describeNextTarget, drillLink, hitCurve, nextTarget } from './next-target';
 
 /** A reach curve (1 m steps to `lastM`) whose probability at every radius is `p(d)`. */

@@ -1,5 +1,5 @@
-import { curveHitProbability, type ReachCurve } from '../../../shared/flight';
-import type { Technique } from '../../../shared/schemas/sync';
+import { curveHitProbability, type ReachCurve } from '../../../../shared/flight';
+import type { Technique } from '../../../../shared/schemas/sync';
 
 /** Hit probability band of a "next target": hard enough to stretch, easy enough to succeed. */
 export const NEXT_TARGET_BAND = { min: 0.5, max: 0.6, aim: 0.55 } as const;

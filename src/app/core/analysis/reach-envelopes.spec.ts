@@ -1,11 +1,11 @@
 import { provideZonelessChangeDetection } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { firstValueFrom } from 'rxjs';
-import { reachEnvelope } from '../../../shared/flight';
-import { BROWSER_STORAGE } from '../core/browser-storage';
-import { signedInStorage } from '../core/spec-support';
-import { FLIGHT_WORKER_FACTORY, FlightEngine } from '../flight/flight-engine';
-import { FIXTURE_IDS, fixtureProfile, fixtureUser, profileEntry } from './analysis-spec-fixtures';
+import { reachEnvelope } from '../../../../shared/flight';
+import { BROWSER_STORAGE } from '../browser-storage';
+import { signedInStorage } from '../spec-support';
+import { FLIGHT_WORKER_FACTORY, FlightEngine } from '../../flight/flight-engine';
+import { FIXTURE_IDS, fixtureProfile, fixtureUser, profileEntry } from './spec-fixtures';
 import { ANSWER_STORE, MemoryAnswerStore } from './cached-answer';
 import { ENVELOPE_SAMPLES, ENVELOPE_SEED, ReachEnvelopes, standardConditions } from './reach-envelopes';
 

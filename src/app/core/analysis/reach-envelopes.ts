@@ -7,11 +7,11 @@ import {
   type KickProfile,
   type ReachCurve,
   type ReachEnvelope,
-} from '../../../shared/flight';
-import type { ProfileEntry } from '../../../shared/schemas/analysis';
-import type { Technique } from '../../../shared/schemas/sync';
-import { AuthSession } from '../core/auth-session';
-import { FlightEngine } from '../flight/flight-engine';
+} from '../../../../shared/flight';
+import type { ProfileEntry } from '../../../../shared/schemas/analysis';
+import type { Technique } from '../../../../shared/schemas/sync';
+import { AuthSession } from '../auth/auth-session';
+import { FlightEngine } from '../../flight/flight-engine';
 import { ANSWER_STORE } from './cached-answer';
 import { type NextTargetResult, bestTarget, nextTarget } from './next-target';
 

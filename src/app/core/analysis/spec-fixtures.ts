@@ -1,8 +1,8 @@
-import { DEFAULT_PRIORS, type KickProfile, fitProfile } from '../../../shared/flight';
-import type { PlayerKick, ProfileEntry, ProgressWeek, SquadWeek, SquadWeekPlayer } from '../../../shared/schemas/analysis';
-import type { SessionUser } from '../../../shared/schemas/auth';
-import type { PlayerSummary, SquadSummary } from '../../../shared/schemas/squads';
-import type { Outcome, Technique } from '../../../shared/schemas/sync';
+import { DEFAULT_PRIORS, type KickProfile, fitProfile } from '../../../../shared/flight';
+import type { PlayerKick, ProfileEntry, ProgressWeek, SquadWeek, SquadWeekPlayer } from '../../../../shared/schemas/analysis';
+import type { SessionUser } from '../../../../shared/schemas/auth';
+import type { PlayerSummary, SquadSummary } from '../../../../shared/schemas/squads';
+import type { Outcome, Technique } from '../../../../shared/schemas/sync';
 
 /*
  * Fixtures for the Player file and Squad week specs: small, hand-made answers in the shapes of

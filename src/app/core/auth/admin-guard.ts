@@ -1,6 +1,6 @@
 import { inject } from '@angular/core';
 import { CanMatchFn, Router } from '@angular/router';
-import { AuthSession } from '../core/auth-session';
+import { AuthSession } from './auth-session';
 
 /**
  * Lets club administrators into Club admin and sends everyone else home. Every admin call is

@@ -5,7 +5,7 @@ import { TestBed } from '@angular/core/testing';
 import { Router, provideRouter } from '@angular/router';
 import { requireSignedIn, requireSignedOut, safeReturnUrl } from './auth-guard';
 import { SESSION_STORAGE_KEY } from './auth-session';
-import { BROWSER_STORAGE, MemoryStorage } from './browser-storage';
+import { BROWSER_STORAGE, MemoryStorage } from '../browser-storage';
 
 @Component({ template: '' })
 class Blank {}

@@ -3,10 +3,10 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { provideZonelessChangeDetection } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { Router, provideRouter } from '@angular/router';
-import type { AuthTokens, SessionUser } from '../../../shared/schemas/auth';
+import type { AuthTokens, SessionUser } from '../../../../shared/schemas/auth';
 import { authInterceptor } from './auth-interceptor';
 import { AuthSession, SESSION_STORAGE_KEY } from './auth-session';
-import { BROWSER_STORAGE, MemoryStorage } from './browser-storage';
+import { BROWSER_STORAGE, MemoryStorage } from '../browser-storage';
 
 const coach: SessionUser = {
   id: 'user-coach',

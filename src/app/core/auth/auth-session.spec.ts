@@ -2,9 +2,9 @@ import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { provideZonelessChangeDetection } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
-import type { AuthTokens, MeResponse, SessionUser } from '../../../shared/schemas/auth';
+import type { AuthTokens, MeResponse, SessionUser } from '../../../../shared/schemas/auth';
 import { AuthSession, SESSION_STORAGE_KEY, SessionExpiredError } from './auth-session';
-import { BROWSER_STORAGE, MemoryStorage } from './browser-storage';
+import { BROWSER_STORAGE, MemoryStorage } from '../browser-storage';
 
 const player: SessionUser = {
   id: 'user-player',

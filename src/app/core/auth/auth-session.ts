@@ -1,9 +1,9 @@
 import { HttpClient, HttpErrorResponse, HttpHeaders } from '@angular/common/http';
 import { DestroyRef, Injectable, computed, inject, signal } from '@angular/core';
 import { Observable, catchError, finalize, map, shareReplay, tap, throwError } from 'rxjs';
-import { ROLES, type Role } from '../../../shared/roles';
-import type { AuthTokens, LoginRequest, MeResponse, SessionUser } from '../../../shared/schemas/auth';
-import { BROWSER_STORAGE } from './browser-storage';
+import { ROLES, type Role } from '../../../../shared/roles';
+import type { AuthTokens, LoginRequest, MeResponse, SessionUser } from '../../../../shared/schemas/auth';
+import { BROWSER_STORAGE } from '../browser-storage';
 
 /** The localStorage key of the persisted session (versioned so a format change can start clean). */
 export const SESSION_STORAGE_KEY = 'loftline.session.v1';

@@ -1,6 +1,6 @@
 import { inject } from '@angular/core';
 import { CanMatchFn, Router } from '@angular/router';
-import { isStaffRole } from '../../../shared/roles';
+import { isStaffRole } from '../../../../shared/roles';
 import { AuthSession } from './auth-session';
 
 /**

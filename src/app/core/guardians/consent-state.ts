@@ -1,4 +1,4 @@
-import { dateTimeLabel } from './date-labels';
+import { dateTimeLabel } from '../date-labels';
 import type { GuardianLinkView } from './guardian-api';
 
 /**

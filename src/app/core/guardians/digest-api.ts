@@ -1,7 +1,7 @@
 import { HttpClient, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
-import type { DigestRunResult } from '../../../shared/schemas/mail';
+import type { DigestRunResult } from '../../../../shared/schemas/mail';
 
 /** The shared shapes (`shared/schemas/mail.ts`), re-exported so screens import them from the service that fetches them. */
 export type { DigestRunResult };

@@ -2,7 +2,7 @@ import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
 import type * as z from 'zod';
-import type { ChildSummary, GuardianLinkView, createLinkSchema } from '../../../shared/schemas/mail';
+import type { ChildSummary, GuardianLinkView, createLinkSchema } from '../../../../shared/schemas/mail';
 
 /** The consent wording guardians agree to (`GET /api/guardians/consent-text`); versioned so a record says which text was shown. */
 export interface ConsentText {

@@ -1,6 +1,6 @@
 import { Injectable } from '@angular/core';
 import { Observable, Subject } from 'rxjs';
-import type { SyncEntity } from '../../../shared/schemas/sync';
+import type { SyncEntity } from '../../../../shared/schemas/sync';
 
 /**
  * Announces that a change has been committed to IndexedDB and the outbox. The stores call

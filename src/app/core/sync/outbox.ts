@@ -1,5 +1,5 @@
-import type { SyncEntity, SyncRow } from '../../../shared/schemas/sync';
-import { type LocalDrill, type LocalKick, type LocalSession, type LoftlineDb, type OutboxEntry, newId, tableFor } from './loftline-db';
+import type { SyncEntity, SyncRow } from '../../../../shared/schemas/sync';
+import { type LocalDrill, type LocalKick, type LocalSession, type LoftlineDb, type OutboxEntry, newId, tableFor } from '../loftline-db';
 
 /** Any synced row as stored on the device. */
 export type LocalRow = LocalSession | LocalDrill | LocalKick;

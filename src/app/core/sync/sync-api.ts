@@ -1,8 +1,8 @@
 import { HttpClient, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { Observable } from 'rxjs';
-import type { PullResponse, PushResponse } from '../../../shared/schemas/sync';
-import type { OutboxEntry } from './loftline-db';
+import type { PullResponse, PushResponse } from '../../../../shared/schemas/sync';
+import type { OutboxEntry } from '../loftline-db';
 
 /**
  * The two sync endpoints (`shared/schemas/sync.ts` holds the contract). Only the queue calls

@@ -1,5 +1,5 @@
-import type { MutationResult, SyncChange, SyncEntity, SyncRow } from '../../../shared/schemas/sync';
-import { type ConflictNotice, type LoftlineDb, type OutboxEntry, newId, tableFor } from './loftline-db';
+import type { MutationResult, SyncChange, SyncEntity, SyncRow } from '../../../../shared/schemas/sync';
+import { type ConflictNotice, type LoftlineDb, type OutboxEntry, newId, tableFor } from '../loftline-db';
 import type { LocalRow } from './outbox';
 
 /**

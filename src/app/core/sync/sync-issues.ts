@@ -3,7 +3,7 @@ import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { liveQuery } from 'dexie';
 import { from, of, switchMap } from 'rxjs';
 import { LocalWrites } from './local-writes';
-import { type ConflictNotice, LOFTLINE_DB, type OutboxEntry, tableFor } from './loftline-db';
+import { type ConflictNotice, LOFTLINE_DB, type OutboxEntry, tableFor } from '../loftline-db';
 import { type LocalRow, recordChange } from './outbox';
 import { discardEntry, retryEntry } from './sync-apply';
 import { SyncQueue } from './sync-queue';

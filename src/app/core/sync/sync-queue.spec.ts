@@ -3,15 +3,15 @@ import { HttpTestingController, TestRequest, provideHttpClientTesting } from '@a
 import { Component, provideZonelessChangeDetection } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
-import { MAX_PUSH_MUTATIONS, type MutationResult, type PushResponse, type SyncRow } from '../../../shared/schemas/sync';
-import { authInterceptor } from './auth-interceptor';
-import { AuthSession } from './auth-session';
-import { BROWSER_STORAGE } from './browser-storage';
-import { Connectivity } from './connectivity';
-import { KickStore, type NewKick } from './kick-store';
-import { LOFTLINE_DB, type LoftlineDb } from './loftline-db';
-import { SessionStore } from './session-store';
-import { SPEC_COACH, SPEC_IDS, freshDb, signedInStorage, until } from './spec-support';
+import { MAX_PUSH_MUTATIONS, type MutationResult, type PushResponse, type SyncRow } from '../../../../shared/schemas/sync';
+import { authInterceptor } from '../auth/auth-interceptor';
+import { AuthSession } from '../auth/auth-session';
+import { BROWSER_STORAGE } from '../browser-storage';
+import { Connectivity } from '../connectivity';
+import { KickStore, type NewKick } from '../kick-store';
+import { LOFTLINE_DB, type LoftlineDb } from '../loftline-db';
+import { SessionStore } from '../session-store';
+import { SPEC_COACH, SPEC_IDS, freshDb, signedInStorage, until } from '../spec-support';
 import { SyncIssues } from './sync-issues';
 import { PUSH_BATCH_SIZE, SYNC_TIMING, SyncQueue, backoffDelayMs, type SyncTiming } from './sync-queue';
 

@@ -20,14 +20,14 @@ import {
   timer,
   firstValueFrom,
 } from 'rxjs';
-import { isStaffRole } from '../../../shared/roles';
-import type { MutationResult } from '../../../shared/schemas/sync';
-import { describeApiError } from './api-error';
-import { AuthSession } from './auth-session';
-import { Connectivity } from './connectivity';
-import { DEVICE_ID } from './device-id';
+import { isStaffRole } from '../../../../shared/roles';
+import type { MutationResult } from '../../../../shared/schemas/sync';
+import { describeApiError } from '../api-error';
+import { AuthSession } from '../auth/auth-session';
+import { Connectivity } from '../connectivity';
+import { DEVICE_ID } from '../device-id';
 import { LocalWrites } from './local-writes';
-import { LOFTLINE_DB, type LoftlineDb } from './loftline-db';
+import { LOFTLINE_DB, type LoftlineDb } from '../loftline-db';
 import { landPulledChanges, releaseBatch, releaseStaleInFlight, settlePush, takeBatch } from './sync-apply';
 import { SyncApi } from './sync-api';
 

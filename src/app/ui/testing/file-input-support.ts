@@ -1,7 +1,7 @@
 import type { HttpTestingController, TestRequest } from '@angular/common/http/testing';
 import type { ComponentFixture } from '@angular/core/testing';
 import type { MatTableHarness } from '@angular/material/table/testing';
-import { until } from '../core/spec-support';
+import { until } from '../../core/spec-support';
 
 /*
  * Shared set-up for the import screens' specs. Nothing in the app imports this file.
