@@ -1,5 +1,5 @@
 /**
- * The sync contract (DESIGN §5), one definition for the client and the server.
+ * The sync contract (docs/design.md §5), one definition for the client and the server.
  *
  *  - The client writes to IndexedDB and its outbox first; `POST /api/sync/push` sends outbox
  *    mutations in batches of at most `MAX_PUSH_MUTATIONS`, each with its own UUID.

@@ -31,7 +31,7 @@ export const TECHNIQUE_LABELS: Record<Technique, string> = {
   curled: 'Curled',
 };
 
-/** The seven-step backspin scale (DESIGN §3), + = backspin, − = topspin. */
+/** The seven-step backspin scale (docs/design.md §3), + = backspin, − = topspin. */
 export function backspinLabel(step: number): string {
   const labels: Record<number, string> = {
     3: 'heavy backspin',
@@ -45,7 +45,7 @@ export function backspinLabel(step: number): string {
   return labels[step] ?? `${step}`;
 }
 
-/** The five-step sidespin scale (DESIGN §3), + = curls to the left. */
+/** The five-step sidespin scale (docs/design.md §3), + = curls to the left. */
 export function sidespinLabel(step: number): string {
   const labels: Record<number, string> = {
     2: 'strong left curl',
