@@ -31,6 +31,8 @@ export interface SessionConditions {
   ballSize: number;
   /** The session's `conditions_source_json` (which values came from the weather service); absent = unknown. */
   conditionsSourceJson?: string | null;
+  /** The club's ball: Reynolds number at the centre of its drag crisis; null or absent = the model's default. */
+  dragCrisisRe?: number | null;
 }
 
 /**
@@ -82,6 +84,7 @@ export function conditionsOf(s: SessionConditions): FlightConditions {
   if (s.relativeHumidityPct !== null) air.relativeHumidityPct = s.relativeHumidityPct;
   if (s.pressureHpa !== null) air.pressureHpa = s.pressureHpa;
   const conditions: FlightConditions = { ball: ballOf(s.ballSize), air };
+  if (s.dragCrisisRe !== null && s.dragCrisisRe !== undefined) conditions.aero = { dragCrisisRe: s.dragCrisisRe };
   if (s.windSpeedMs && s.windSpeedMs > 0) {
     conditions.wind = {
       speedMs: s.windSpeedMs,
@@ -92,9 +95,11 @@ export function conditionsOf(s: SessionConditions): FlightConditions {
   return conditions;
 }
 
-/** Standard conditions for normalised carry: ISA sea level, 15 °C, still air, the same ball. */
-export function standardConditions(ballSize: number): FlightConditions {
-  return { ball: ballOf(ballSize), air: { altitudeM: 0, temperatureC: 15 } };
+/** Standard conditions for normalised carry: ISA sea level, 15 °C, still air, the same ball (with the club's drag crisis). */
+export function standardConditions(ballSize: number, dragCrisisRe?: number | null): FlightConditions {
+  const conditions: FlightConditions = { ball: ballOf(ballSize), air: { altitudeM: 0, temperatureC: 15 } };
+  if (dragCrisisRe !== null && dragCrisisRe !== undefined) conditions.aero = { dragCrisisRe };
+  return conditions;
 }
 
 /** A stored kick as the profile fit reads it. */
@@ -133,7 +138,7 @@ export function stillAirCarryM(k: StoredKick, s: SessionConditions): number | nu
     const maxSpeedMs = LAUNCH_SPEED_CAP_MS[s.ballSize === 3 || s.ballSize === 4 ? s.ballSize : 5];
     const speed = solveLaunchSpeed({ carryM: k.carryM, elevationDeg, backspinRps, sidespinRps, maxSpeedMs, ...conditionsOf(s) });
     if (speed === null) return null;
-    const flight = simulateKick({ speed, elevationDeg, backspinRps, sidespinRps, ...standardConditions(s.ballSize) });
+    const flight = simulateKick({ speed, elevationDeg, backspinRps, sidespinRps, ...standardConditions(s.ballSize, s.dragCrisisRe) });
     return flight.landed ? Math.round(flight.carryM * 100) / 100 : null;
   } catch (err) {
     if (err instanceof RangeError) return null;

@@ -113,7 +113,7 @@ export class ProfileCache {
                 k.measured_speed_ms AS measuredSpeedMs, k.launch_angle_deg AS launchAngleDeg, k.measured_spin_rps AS measuredSpinRps,
                 k.hang_time_s AS hangTimeS, s.temperature_c AS temperatureC, s.altitude_m AS altitudeM, s.relative_humidity_pct AS relativeHumidityPct,
                 s.pressure_hpa AS pressureHpa, s.wind_speed_ms AS windSpeedMs, s.wind_from_deg AS windFromDeg, s.ball_size AS ballSize,
-                s.conditions_source_json AS conditionsSourceJson
+                s.conditions_source_json AS conditionsSourceJson, (SELECT c.drag_crisis_re FROM clubs c WHERE c.id = s.club_id) AS dragCrisisRe
            FROM kicks k JOIN training_sessions s ON s.id = k.session_id
           WHERE k.player_id = ? AND k.technique = ? AND k.deleted_at IS NULL AND s.deleted_at IS NULL
           ORDER BY k.recorded_at DESC LIMIT 400`,
@@ -131,7 +131,10 @@ export class ProfileCache {
         undefined,
         { timing: this.timingOf(playerId), ballSize },
       );
-      curve = reachCurve(fitted, standardConditions(ballSize), { samples: PROFILE_ENVELOPE_SAMPLES, seed: PROFILE_ENVELOPE_SEED });
+      curve = reachCurve(fitted, standardConditions(ballSize, rows[0]!.dragCrisisRe), {
+        samples: PROFILE_ENVELOPE_SAMPLES,
+        seed: PROFILE_ENVELOPE_SEED,
+      });
       reach = reliableReachM(curve, reachRadiusM);
       // Reach beyond the longest distance drilled is the model's and the prior's, not the logs': say so.
       profile = { ...fitted, warnings: reachWarnings(fitted, reach) };

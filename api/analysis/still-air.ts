@@ -18,7 +18,7 @@ const SELECT = `SELECT k.id, k.change_seq AS changeSeq, k.technique, k.outcome, 
        k.measured_speed_ms AS measuredSpeedMs, k.launch_angle_deg AS launchAngleDeg, k.measured_spin_rps AS measuredSpinRps,
        s.temperature_c AS temperatureC, s.altitude_m AS altitudeM, s.relative_humidity_pct AS relativeHumidityPct,
        s.pressure_hpa AS pressureHpa, s.wind_speed_ms AS windSpeedMs, s.wind_from_deg AS windFromDeg, s.ball_size AS ballSize,
-       s.conditions_source_json AS conditionsSourceJson
+       s.conditions_source_json AS conditionsSourceJson, (SELECT c.drag_crisis_re FROM clubs c WHERE c.id = s.club_id) AS dragCrisisRe
   FROM kicks k JOIN training_sessions s ON s.id = k.session_id`;
 
 /** Per connection: the lowest change sequence a refresher must walk back to (older rows were cleared). */
@@ -32,6 +32,17 @@ export function clearSessionStillAirCarry(db: Db, sessionId: string): void {
   cachedStatement(db.$client, 'UPDATE kicks SET still_air_carry_m = NULL WHERE session_id = ? AND still_air_carry_m IS NOT NULL').run(
     sessionId,
   );
+  if (first.s !== null) rewind.set(db.$client, Math.min(rewind.get(db.$client) ?? Infinity, first.s - 1));
+}
+
+/** Marks all of a club's kicks for renormalisation (its ball model changed); call in the write transaction. */
+export function clearClubStillAirCarry(db: Db, clubId: string): void {
+  const first = cachedStatement(db.$client, 'SELECT MIN(change_seq) AS s FROM kicks WHERE club_id = ? AND carry_m IS NOT NULL').get(
+    clubId,
+  ) as {
+    s: number | null;
+  };
+  cachedStatement(db.$client, 'UPDATE kicks SET still_air_carry_m = NULL WHERE club_id = ? AND still_air_carry_m IS NOT NULL').run(clubId);
   if (first.s !== null) rewind.set(db.$client, Math.min(rewind.get(db.$client) ?? Infinity, first.s - 1));
 }
 

@@ -1,33 +1,43 @@
 /** The caller's club settings: read by staff devices, changed by the club's admin. */
 import { eq } from 'drizzle-orm';
-import type { ClubSettings } from '../../shared/schemas/club';
+import { DEFAULT_DRAG_CRISIS_RE, type ClubSettings } from '../../shared/schemas/club';
 import { audit } from '../audit';
 import type { Db } from '../db/client';
 import { clubs } from '../db/schema';
 import { NotFound } from '../errors';
 import type { Scope } from '../scope/scope';
+import { clearClubStillAirCarry } from '../analysis/still-air';
 
-/** The stopwatch calibration of the caller's club (scoped by club: nobody reads another club's). */
-export function clubSettings(db: Db, scope: Scope): ClubSettings {
+/** The settings of the caller's club (scoped by club: nobody reads another club's); the ball's crisis defaults to the model's. */
+export function clubSettings(db: Db, scope: Scope): Required<ClubSettings> {
   const row = db
-    .select({ timingBiasS: clubs.timingBiasS, timingSdS: clubs.timingSdS })
+    .select({ timingBiasS: clubs.timingBiasS, timingSdS: clubs.timingSdS, dragCrisisRe: clubs.dragCrisisRe })
     .from(clubs)
     .where(eq(clubs.id, scope.user.clubId))
     .get();
   if (!row) throw new NotFound('Your club no longer exists');
-  return row;
+  return { ...row, dragCrisisRe: row.dragCrisisRe ?? DEFAULT_DRAG_CRISIS_RE };
 }
 
 /** Stores new settings for the caller's club and audits the change (old and new values). */
-export function updateClubSettings(db: Db, scope: Scope, next: ClubSettings): ClubSettings {
+export function updateClubSettings(db: Db, scope: Scope, next: ClubSettings): Required<ClubSettings> {
   const before = clubSettings(db, scope);
+  const ballChanged = next.dragCrisisRe !== undefined && next.dragCrisisRe !== before.dragCrisisRe;
   db.transaction(() => {
     db.update(clubs)
-      .set({ timingBiasS: next.timingBiasS, timingSdS: next.timingSdS, updatedAt: new Date().toISOString() })
+      .set({
+        timingBiasS: next.timingBiasS,
+        timingSdS: next.timingSdS,
+        ...(next.dragCrisisRe === undefined ? {} : { dragCrisisRe: next.dragCrisisRe }),
+        updatedAt: new Date().toISOString(),
+      })
       .where(eq(clubs.id, scope.user.clubId))
       .run();
-    // Timed repetitions are solved with the calibration: profiles fitted with the old one are refitted.
+    // Timed repetitions are solved with the calibration, and every kick is flown with the club's ball:
+    // profiles fitted with the old values are refitted.
     db.$client.prepare('DELETE FROM player_profiles WHERE player_id IN (SELECT id FROM players WHERE club_id = ?)').run(scope.user.clubId);
+    // A different ball changes every still-air carry: the refresher normalises them again.
+    if (ballChanged) clearClubStillAirCarry(db, scope.user.clubId);
   });
   audit(db, {
     clubId: scope.user.clubId,

@@ -37,6 +37,11 @@ export const clubs = sqliteTable('clubs', {
    */
   timingBiasS: real('timing_bias_s').notNull().default(0.2),
   timingSdS: real('timing_sd_s').notNull().default(0.08),
+  /**
+   * Reynolds number at the centre of the drag crisis of the club's balls; null = the flight model's
+   * default (the Goff & Carré 2010 ball). Balls differ (Asai et al. 2007: critical Re 2.2–3.0 × 10⁵).
+   */
+  dragCrisisRe: real('drag_crisis_re'),
   createdAt: createdAt(),
   updatedAt: updatedAt(),
 });

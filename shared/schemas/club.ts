@@ -24,9 +24,31 @@ const seconds = (name: string, [min, max]: readonly [number, number]) =>
     .min(min, { error: `${name} must be at least ${min} s` })
     .max(max, { error: `${name} must be at most ${max} s` });
 
-/** Body of `PUT /api/club/settings` and answer of `GET /api/club/settings`. */
+/**
+ * Bounds of the ball's drag-crisis Reynolds number (centre of the drop). Asai et al. 2007 (Sports
+ * Engineering 10:101) report critical Reynolds numbers of 2.2–3.0 × 10⁵ for footballs, where the drop is
+ * nearly complete; the centre sits ~20 % lower, so 1.5–3.0 × 10⁵ covers the balls measured with room.
+ */
+export const DRAG_CRISIS_RE_RANGE: readonly [number, number] = [1.5e5, 3.0e5];
+
+/**
+ * Default drag-crisis Reynolds number: the centre of the Goff & Carré 2010 (Eur. J. Phys. 31:775)
+ * non-spinning fit, 12.19 m/s on a 0.69 m ball in ISA sea-level air (shared/flight's GOFF_CARRE_RE_CENTRE,
+ * repeated here so the schema needs no flight-model import; a spec keeps them equal).
+ */
+export const DEFAULT_DRAG_CRISIS_RE = 183_289;
+
+/**
+ * Body of `PUT /api/club/settings` and answer of `GET /api/club/settings`. `dragCrisisRe` is always
+ * answered; a body without it leaves it unchanged.
+ */
 export const clubSettingsSchema = z.strictObject({
   timingBiasS: seconds('timingBiasS', TIMING_BIAS_RANGE_S),
   timingSdS: seconds('timingSdS', TIMING_SD_RANGE_S),
+  dragCrisisRe: z
+    .number({ error: 'dragCrisisRe must be a Reynolds number' })
+    .min(DRAG_CRISIS_RE_RANGE[0], { error: `dragCrisisRe must be at least ${DRAG_CRISIS_RE_RANGE[0]}` })
+    .max(DRAG_CRISIS_RE_RANGE[1], { error: `dragCrisisRe must be at most ${DRAG_CRISIS_RE_RANGE[1]}` })
+    .optional(),
 });
 export type ClubSettings = z.infer<typeof clubSettingsSchema>;

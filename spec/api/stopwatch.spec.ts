@@ -6,6 +6,7 @@ import { kicks, players } from '../../api/db/schema';
 import { DEMO_ACCOUNTS, DEMO_SQUAD_IDS } from '../../seed/scenario';
 import { DEFAULT_ELEVATION_DEG, SPIN_STEP_RPS, simulateKick } from '../../shared/flight';
 import type { PlayerKicksResponse, SpinEstimatesResponse } from '../../shared/schemas/analysis';
+import { DEFAULT_DRAG_CRISIS_RE } from '../../shared/schemas/club';
 import type { PullResponse, PushResponse } from '../../shared/schemas/sync';
 import { createTestApp, signIn, type TestApp } from './fixture';
 
@@ -100,7 +101,7 @@ describe('hang-time stopwatch: kicks, club timing settings and spin estimates', 
     const initial = await request(t.app).get('/api/club/settings').set(auth(coach));
     expect(initial.status).toBe(200);
     // Product defaults (common practice): 0.2 s bias, 0.08 s spread (migration 0004).
-    expect(initial.body).toEqual({ timingBiasS: 0.2, timingSdS: 0.08 });
+    expect(initial.body).toEqual({ timingBiasS: 0.2, timingSdS: 0.08, dragCrisisRe: DEFAULT_DRAG_CRISIS_RE });
     expect((await request(t.app).put('/api/club/settings').set(auth(coach)).send({ timingBiasS: 0.1, timingSdS: 0.05 })).status).toBe(403);
     const bad = await request(t.app).put('/api/club/settings').set(auth(admin)).send({ timingBiasS: 0.1, timingSdS: 0.9 });
     expect(bad.status).toBe(400);
@@ -111,7 +112,11 @@ describe('hang-time stopwatch: kicks, club timing settings and spin estimates', 
     expect(JSON.stringify(missing.body)).toContain('timingBiasS');
     const ok = await request(t.app).put('/api/club/settings').set(auth(admin)).send({ timingBiasS: 0.15, timingSdS: 0.05 });
     expect(ok.status).toBe(200);
-    expect((await request(t.app).get('/api/club/settings').set(auth(coach))).body).toEqual({ timingBiasS: 0.15, timingSdS: 0.05 });
+    expect((await request(t.app).get('/api/club/settings').set(auth(coach))).body).toEqual({
+      timingBiasS: 0.15,
+      timingSdS: 0.05,
+      dragCrisisRe: DEFAULT_DRAG_CRISIS_RE,
+    });
     await request(t.app).put('/api/club/settings').set(auth(admin)).send({ timingBiasS: 0.2, timingSdS: 0.08 });
   });
 

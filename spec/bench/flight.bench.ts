@@ -37,7 +37,8 @@ function variedKicks(n: number, seed: number): KickInput[] {
       sidespinRps: u(-8, 8),
       ball: sizes[i % 3]!,
       air: { altitudeM: u(0, 2000), temperatureC: u(0, 30), relativeHumidityPct: u(0, 90) },
-      wind: { speedMs: u(0, 8), fromDeg: u(0, 360) },
+      // Half weather-service winds (10 m), half coach estimates (head height): the log profile is on the hot path.
+      wind: { speedMs: u(0, 8), fromDeg: u(0, 360), referenceHeightM: i % 2 ? 10 : 1.8 },
     });
   }
   return kicks;

@@ -1,4 +1,5 @@
 import { Routes } from '@angular/router';
+import { BallModel } from './ball-model';
 import { CapturedMail } from './captured-mail';
 import { ClubAdmin } from './club-admin';
 import { GroundList } from './ground-list';
@@ -23,6 +24,7 @@ export const ADMIN_ROUTES: Routes = [
       { path: 'outbox', title: 'Outbox · Club admin · Loftline', component: OutboxView },
       { path: 'mail', title: 'Captured mail · Club admin · Loftline', component: CapturedMail },
       { path: 'stopwatch', title: 'Stopwatch timing · Club admin · Loftline', component: StopwatchTiming },
+      { path: 'ball', title: 'Ball model · Club admin · Loftline', component: BallModel },
     ],
   },
 ];

@@ -23,6 +23,7 @@ import { BALL_SIZES, type FlightConditions, type Technique } from '../../../shar
 import type { SquadProfilesResponse } from '../../../shared/schemas/analysis';
 import type { SquadSummary } from '../../../shared/schemas/squads';
 import { describeApiError, type ApiProblem } from '../core/api-error';
+import { ClubSettingsStore } from '../core/club-settings-store';
 import { SquadApi } from '../core/squad-api';
 import { FlightEngine } from '../flight/flight-engine';
 import { latestWhenIdle } from '../flight/latest-when-idle';
@@ -117,6 +118,7 @@ export class PlannerStore {
   private readonly api = inject(PlannerApi);
   private readonly engine = inject(FlightEngine);
   private readonly cache = inject(PLANNER_CACHE);
+  private readonly clubSettings = inject(ClubSettingsStore);
 
   /** Whether the last plan has been read back (nothing is computed before, to avoid a wasted run). */
   private readonly restored = signal(false);
@@ -321,6 +323,9 @@ export class PlannerStore {
   private rankInput(job: RankJob): SetPieceRankInput {
     const ball = BALL_SIZES[job.ballSize];
     const conditions: FlightConditions = { ball: { massKg: ball.massKg, radiusM: ball.radiusM } };
+    // The club's ball (drag crisis), as the server's fits of these profiles used.
+    const dragCrisisRe = this.clubSettings.settings().dragCrisisRe;
+    if (dragCrisisRe !== undefined) conditions.aero = { dragCrisisRe };
     const { ballX, ballY } = toSetPieceFrame(job.spot.ball);
     return {
       ballX,

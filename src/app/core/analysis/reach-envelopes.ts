@@ -11,6 +11,7 @@ import {
 import type { ProfileEntry } from '../../../../shared/schemas/analysis';
 import type { Technique } from '../../../../shared/schemas/sync';
 import { AuthSession } from '../auth/auth-session';
+import { ClubSettingsStore } from '../club-settings-store';
 import { FlightEngine } from '../../flight/flight-engine';
 import { ANSWER_STORE } from './cached-answer';
 import { type NextTargetResult, bestTarget, nextTarget } from './next-target';
@@ -24,10 +25,15 @@ export const ENVELOPE_SAMPLES = CURVE_SAMPLES;
 /** See {@link ENVELOPE_SAMPLES}. */
 export const ENVELOPE_SEED = 20_260_101;
 
-/** Standard conditions of Loftline's comparisons: ISA sea level, 15 °C, still air, with the squad's ball. */
-export function standardConditions(ballSize: number): FlightConditions {
+/**
+ * Standard conditions of Loftline's comparisons: ISA sea level, 15 °C, still air, with the squad's ball
+ * (and the club's drag crisis when it has set one, as the server's fits use).
+ */
+export function standardConditions(ballSize: number, dragCrisisRe?: number): FlightConditions {
   const ball = BALL_SIZES[ballSize === 3 || ballSize === 4 ? ballSize : 5];
-  return { ball: { massKg: ball.massKg, radiusM: ball.radiusM }, air: { altitudeM: 0, temperatureC: 15 } };
+  const conditions: FlightConditions = { ball: { massKg: ball.massKg, radiusM: ball.radiusM }, air: { altitudeM: 0, temperatureC: 15 } };
+  if (dragCrisisRe !== undefined) conditions.aero = { dragCrisisRe };
+  return conditions;
 }
 
 /** What the Player file and Squad week show about one player's reach in one technique. */
@@ -96,6 +102,7 @@ export class ReachEnvelopes {
   private readonly engine = inject(FlightEngine);
   private readonly store = inject(ANSWER_STORE);
   private readonly session = inject(AuthSession);
+  private readonly clubSettings = inject(ClubSettingsStore);
 
   /**
    * The analysis of a profile entry, or null when it has no profile yet. With `withRange`, two
@@ -107,9 +114,10 @@ export class ReachEnvelopes {
       return of(null);
     }
     const radiusM = entry.reachRadiusM;
-    const conditions = standardConditions(ballSize);
+    const dragCrisisRe = this.clubSettings.settings().dragCrisisRe;
+    const conditions = standardConditions(ballSize, dragCrisisRe);
     const keyOf = (variant: string): string =>
-      `${this.session.user()?.id ?? 'signed-out'}|envelope-aimed:${entry.playerId}:${entry.technique}:${entry.computedAt ?? 'none'}:${ballSize}:${ENVELOPE_SAMPLES}:${ENVELOPE_SEED}:${radiusM}:${variant}`;
+      `${this.session.user()?.id ?? 'signed-out'}|envelope-aimed:${entry.playerId}:${entry.technique}:${entry.computedAt ?? 'none'}:${ballSize}:${dragCrisisRe ?? '-'}:${ENVELOPE_SAMPLES}:${ENVELOPE_SEED}:${radiusM}:${variant}`;
     const central = this.envelope(keyOf('central'), profile, conditions, radiusM);
     const range: Observable<[number | null, number | null] | null> = withRange
       ? forkJoin([

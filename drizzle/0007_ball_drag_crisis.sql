@@ -1,0 +1,1 @@
+ALTER TABLE `clubs` ADD `drag_crisis_re` real;
