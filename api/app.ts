@@ -29,6 +29,7 @@ import { authRouter } from './auth/auth.router';
 import { createAuthMiddleware } from './auth/passport';
 import type { AppConfig } from './config';
 import type { Db } from './db/client';
+import { cachedStatement } from './db/statements';
 import { errorMiddleware, NotFound } from './errors';
 import { refuseUnsafeJson } from './json-guard';
 import { meRouter } from './me/me.router';
@@ -86,7 +87,7 @@ export function createApp(deps: AppDeps): Express {
   );
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  app.set('trust proxy', config.trustProxy);
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -107,8 +108,18 @@ export function createApp(deps: AppDeps): Express {
     next();
   });
   api.use(express.json({ limit: JSON_BODY_LIMIT }), refuseUnsafeJson);
+  // Liveness: the process answers. Readiness: it can also read the database (a load balancer routes to it).
   api.get('/health', (_req, res) => {
     res.json({ ok: true });
+  });
+  api.get('/ready', (req, res) => {
+    try {
+      cachedStatement(db.$client, 'SELECT COUNT(*) AS n FROM change_counter').get();
+      res.json({ ready: true });
+    } catch (err) {
+      req.log.error({ err }, 'not ready: the database cannot be read');
+      res.status(503).json({ ready: false, error: { code: 'database_unavailable', message: 'The database cannot be read' } });
+    }
   });
   const auth = new AuthService(db, config);
   const accounts = new AccountsService(db, config, mailer);

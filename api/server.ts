@@ -2,7 +2,7 @@
  * Starts Loftline: opens and migrates the database, loads the demo scenario into an empty
  * one, starts the local fake mail and weather servers (when no real ones are configured) and listens.
  */
-import type { Server } from 'node:http';
+import { createServer, type RequestListener, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { isDatabaseEmpty, seedDemo } from '../seed/scenario';
 import { backfillStillAirCarry, StillAirRefresher } from './analysis/still-air';
@@ -37,8 +37,67 @@ export interface StartOptions {
   seedIfEmpty?: boolean;
 }
 
-/** Starts the whole server on `config.port`. */
+/** The port (or address and port) is taken by another process; the message is what the operator reads. */
+export class PortInUseError extends Error {
+  constructor(
+    readonly port: number,
+    host: string | null,
+  ) {
+    super(`port ${port} is already in use${host ? ` on ${host}` : ''}: stop the other process or set PORT to a free port`);
+  }
+}
+
+/**
+ * Claims the port before anything else happens: a second server started by mistake on a busy port says so
+ * and stops without having touched the database. Requests that arrive while start-up continues wait for
+ * the app (`attach`).
+ */
+async function listenFirst(config: AppConfig): Promise<{ server: Server; attach(app: RequestListener): void; fail(err: unknown): void }> {
+  let deliver!: (app: RequestListener) => void;
+  let refuse!: (err: unknown) => void;
+  const ready = new Promise<RequestListener>((done, reject) => {
+    deliver = done;
+    refuse = reject;
+  });
+  // Only the server's own handler waits: a failed start-up closes the server and the process exits.
+  ready.catch(() => undefined);
+  const server = createServer((req, res) => {
+    void ready.then(
+      (app) => app(req, res),
+      () => res.destroy(),
+    );
+  });
+  await new Promise<void>((done, reject) => {
+    server.once('error', (err: NodeJS.ErrnoException) =>
+      reject(err.code === 'EADDRINUSE' ? new PortInUseError(config.port, config.host) : err),
+    );
+    if (config.host) server.listen(config.port, config.host, () => done());
+    else server.listen(config.port, () => done());
+  });
+  return { server, attach: deliver, fail: refuse };
+}
+
+/**
+ * Starts the whole server on `config.port`: listens first (see `listenFirst`), then opens the database and
+ * starts the background work.
+ */
 export async function startServer(config: AppConfig, options: StartOptions = {}): Promise<RunningServer> {
+  const { server, attach, fail } = await listenFirst(config);
+  try {
+    return await startOn(server, attach, config, options);
+  } catch (err) {
+    fail(err);
+    await new Promise<void>((done) => server.close(() => done()));
+    throw err;
+  }
+}
+
+async function startOn(
+  server: Server,
+  attach: (app: RequestListener) => void,
+  config: AppConfig,
+  options: StartOptions,
+): Promise<RunningServer> {
   const logger = createLogger(config);
   const db = openDatabase(config.dbPath);
   if ((options.seedIfEmpty ?? true) && isDatabaseEmpty(db)) {
@@ -83,10 +142,7 @@ export async function startServer(config: AppConfig, options: StartOptions = {})
   const weatherUrl = config.weatherUrl ?? fakeWeather?.url ?? null;
   const weather = weatherUrl ? new OpenMeteoClient(weatherUrl, { apiKey: config.weatherApiKey, timeoutMs: config.weatherTimeoutMs }) : null;
   const app = createApp({ db, config, logger, profiles, mailer, digests, devMail: smtp !== null, weather });
-  const server: Server = await new Promise((resolveServer, reject) => {
-    const s = config.host ? app.listen(config.port, config.host, () => resolveServer(s)) : app.listen(config.port, () => resolveServer(s));
-    s.once('error', reject);
-  });
+  attach(app);
   // Keep idle connections longer than a load balancer's usual 60 s idle timeout, and longer than any event-loop
   // stall (a write waiting out SQLite's 5 s busy timeout): at Node's default of 5 s such a stall makes the server
   // close kept-alive sockets that already carry the next request, and the client sees a reset instead of an answer.

@@ -37,9 +37,13 @@ function receiveFile(req: Request, res: Response, next: NextFunction): void {
           ? `The file is larger than ${MAX_UPLOAD_BYTES / 1024 / 1024} MB`
           : `The upload was refused: ${err.message}`;
       return next(
-        new HttpError(400, err.code === 'LIMIT_FILE_SIZE' ? 'file_too_large' : 'upload_invalid', message, [
-          { field: err.field ?? 'file', message },
-        ]),
+        // 413 Content Too Large (RFC 9110 §15.5.14) for a file over the limit, as for any oversized body.
+        new HttpError(
+          err.code === 'LIMIT_FILE_SIZE' ? 413 : 400,
+          err.code === 'LIMIT_FILE_SIZE' ? 'file_too_large' : 'upload_invalid',
+          message,
+          [{ field: err.field ?? 'file', message }],
+        ),
       );
     }
     next(err);

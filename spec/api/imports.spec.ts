@@ -140,7 +140,7 @@ describe('imports', () => {
       expect(res.body.error.message.length).withContext(label).toBeGreaterThan(10);
     }
     const huge = await roster(Buffer.alloc(5 * 1024 * 1024 + 10, 'a'), false);
-    expect(huge.status).toBe(400);
+    expect(huge.status).toBe(413);
     expect(huge.body.error.code).toBe('file_too_large');
     expect((await request(t.app).post('/api/imports/roster').set('Authorization', `Bearer ${admin}`)).body.error.fields[0].field).toBe(
       'file',
