@@ -48,7 +48,7 @@ export interface AppDeps {
   profiles?: ProfileCache;
   /** Outgoing mail; without one, mail is queued in the outbox but not sent. */
   mailer?: Mailer;
-  /** Whether the local fake SMTP server is the transport (enables `/api/dev/mail`). */
+  /** Whether the local fake SMTP server is the transport (enables `/api/dev/mail`, never in production). */
   devMail?: boolean;
   /** The digest job (the server passes the one its scheduler uses). */
   digests?: DigestJob;
@@ -140,7 +140,8 @@ export function createApp(deps: AppDeps): Express {
   api.use('/imports', importsRouter(db));
   api.use('/exports', exportsRouter(db));
   api.use('/digests', digestsRouter(digests));
-  if (deps.devMail) api.use('/dev/mail', devMailRouter(db));
+  // Captured mail holds sign-in links: the viewer exists only outside production, whatever the caller asks.
+  if (deps.devMail && config.env !== 'production') api.use('/dev/mail', devMailRouter(db));
   api.use(() => {
     throw new NotFound('No such API route');
   });

@@ -1,6 +1,7 @@
 /**
- * Starts Loftline: opens and migrates the database, loads the demo scenario into an empty
- * one, starts the local fake mail and weather servers (when no real ones are configured) and listens.
+ * Starts Loftline: claims its port, opens and migrates the database, loads the demo scenario into an
+ * empty one (never in production), starts the local fake mail and weather servers (outside production,
+ * when no real ones are configured) and the background jobs, then serves.
  */
 import { createServer, type RequestListener, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
@@ -33,7 +34,7 @@ export interface RunningServer {
 
 /** Options for `startServer`. */
 export interface StartOptions {
-  /** Whether to load the demo scenario when the database is empty (default true). */
+  /** Whether to load the demo scenario when the database is empty (default true; never in production). */
   seedIfEmpty?: boolean;
 }
 
@@ -100,9 +101,17 @@ async function startOn(
 ): Promise<RunningServer> {
   const logger = createLogger(config);
   const db = openDatabase(config.dbPath);
-  if ((options.seedIfEmpty ?? true) && isDatabaseEmpty(db)) {
-    const summary = seedDemo(db);
-    logger.info({ summary }, 'loaded the demo scenario into the empty database');
+  if (isDatabaseEmpty(db)) {
+    // The demo's accounts share a published password: a production server never loads them.
+    if (config.env === 'production') {
+      logger.warn(
+        'the database has no club yet: create the first club and its administrator with ' +
+          'npm run club:create -- --name "<club>" --admin <e-mail> (it prints a one-time link to set a password)',
+      );
+    } else if (options.seedIfEmpty ?? true) {
+      const summary = seedDemo(db);
+      logger.info({ summary }, 'loaded the demo scenario into the empty database');
+    }
   }
   const normalised = backfillStillAirCarry(db);
   if (normalised) logger.info({ kicks: normalised }, 'normalised logged carries to still air');
@@ -111,7 +120,14 @@ async function startOn(
   const profiles = new ProfileCache(db, config.dbPath);
   profiles.start();
   let smtp: FakeSmtp | null = null;
-  if (!config.smtpUrl) {
+  if (!config.smtpUrl && config.env === 'production') {
+    // Captured mail is readable in the app: a production server never captures; mail waits for SMTP_URL.
+    const warning =
+      'NO SMTP_URL IN PRODUCTION: no mail is sent. Invitations, password resets and digests wait in the outbox ' +
+      '(mail_outbox) and go out once SMTP_URL names a mail server and the server restarts.';
+    logger.error(warning);
+    console.error(`\n*** ${warning} ***\n`);
+  } else if (!config.smtpUrl) {
     try {
       smtp = await startFakeSmtp(db, config.smtpPort);
       logger.info(
