@@ -21,6 +21,7 @@ import { guardiansRouter } from './guardians/guardians.router';
 import { devMailRouter } from './mail/dev-mail.router';
 import { erasureRouter } from './exports/erasure.router';
 import { exportsRouter } from './exports/exports.router';
+import { ImportRunner } from './imports/import-runner';
 import { importsRouter } from './imports/imports.router';
 import { Mailer } from './mail/mailer';
 import { AuthService } from './auth/auth.service';
@@ -50,6 +51,8 @@ export interface AppDeps {
   mailer?: Mailer;
   /** Whether the local fake SMTP server is the transport (enables `/api/dev/mail`, never in production). */
   devMail?: boolean;
+  /** Runs imports on a worker thread; created here when not given (the server passes one it closes). */
+  imports?: ImportRunner;
   /** The digest job (the server passes the one its scheduler uses). */
   digests?: DigestJob;
   /**
@@ -137,7 +140,7 @@ export function createApp(deps: AppDeps): Express {
   api.use('/guardians', guardiansRouter(new GuardiansService(db)));
   api.use('/admin/players', erasureRouter(db));
   api.use('/admin', adminRouter(db, accounts));
-  api.use('/imports', importsRouter(db));
+  api.use('/imports', importsRouter(deps.imports ?? new ImportRunner(db, config.dbPath)));
   api.use('/exports', exportsRouter(db));
   api.use('/digests', digestsRouter(digests));
   // Captured mail holds sign-in links: the viewer exists only outside production, whatever the caller asks.

@@ -15,6 +15,7 @@ import { createLogger } from './logger';
 import { scheduleDigests } from './digests/scheduler';
 import { DigestJob } from './digests/digests.service';
 import { startFakeSmtp, type FakeSmtp } from './mail/fake-smtp';
+import { ImportRunner } from './imports/import-runner';
 import { Mailer } from './mail/mailer';
 import { startFakeWeather, type FakeWeather } from './weather/fake-weather';
 import { OpenMeteoClient } from './weather/open-meteo-client';
@@ -157,7 +158,8 @@ async function startOn(
   }
   const weatherUrl = config.weatherUrl ?? fakeWeather?.url ?? null;
   const weather = weatherUrl ? new OpenMeteoClient(weatherUrl, { apiKey: config.weatherApiKey, timeoutMs: config.weatherTimeoutMs }) : null;
-  const app = createApp({ db, config, logger, profiles, mailer, digests, devMail: smtp !== null, weather });
+  const imports = new ImportRunner(db, config.dbPath);
+  const app = createApp({ db, config, logger, profiles, mailer, digests, devMail: smtp !== null, weather, imports });
   attach(app);
   // Keep idle connections longer than a load balancer's usual 60 s idle timeout, and longer than any event-loop
   // stall (a write waiting out SQLite's 5 s busy timeout): at Node's default of 5 s such a stall makes the server
@@ -178,6 +180,7 @@ async function startOn(
       clearInterval(retry);
       mailer.close();
       await new Promise<void>((done) => server.close(() => done()));
+      await imports.close();
       await smtp?.close();
       await fakeWeather?.close();
       db.$client.close();

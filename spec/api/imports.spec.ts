@@ -231,8 +231,9 @@ describe('imports', () => {
         units: { speed: 'm/s', spin: 'rev/s', distance: 'm' },
       });
       const before = snapshot();
+      // A schema trigger, not a TEMP one: the import commits on the import worker's own connection.
       t.db.$client.exec(
-        `CREATE TEMP TRIGGER fail_third AFTER INSERT ON kicks WHEN NEW.recorded_at LIKE '2026-11-22T10:02%' BEGIN SELECT RAISE(ABORT, 'injected failure'); END;`,
+        `CREATE TRIGGER fail_third AFTER INSERT ON kicks WHEN NEW.recorded_at LIKE '2026-11-22T10:02%' BEGIN SELECT RAISE(ABORT, 'injected failure'); END;`,
       );
       try {
         const res = await post(head, body, m, false);
