@@ -9,6 +9,7 @@
  */
 import { sql } from 'drizzle-orm';
 import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import { FEET, OUTCOMES, TECHNIQUES } from '../../shared/vocabulary';
 
 const createdAt = () =>
   text('created_at')
@@ -173,9 +174,7 @@ export const players = sqliteTable(
     userId: text('user_id').references(() => users.id),
     displayName: text('display_name').notNull(),
     shirtNumber: integer('shirt_number'),
-    dominantFoot: text('dominant_foot', { enum: ['left', 'right'] })
-      .notNull()
-      .default('right'),
+    dominantFoot: text('dominant_foot', { enum: FEET }).notNull().default('right'),
     birthDate: text('birth_date'),
     /** An adult player's own opt-in to Family digests about them (docs/design.md §10: none for adults otherwise). */
     digestSelfOptIn: integer('digest_self_opt_in', { mode: 'boolean' }).notNull().default(false),
@@ -262,7 +261,7 @@ export const drills = sqliteTable(
     sessionId: text('session_id')
       .notNull()
       .references(() => trainingSessions.id),
-    technique: text('technique', { enum: ['driven', 'lofted', 'chipped', 'curled'] }).notNull(),
+    technique: text('technique', { enum: TECHNIQUES }).notNull(),
     targetDistanceM: real('target_distance_m').notNull(),
     targetRadiusM: real('target_radius_m').notNull(),
     lateralOffsetM: real('lateral_offset_m').notNull().default(0),
@@ -293,15 +292,15 @@ export const kicks = sqliteTable(
     playerId: text('player_id')
       .notNull()
       .references(() => players.id),
-    technique: text('technique', { enum: ['driven', 'lofted', 'chipped', 'curled'] }).notNull(),
-    foot: text('foot', { enum: ['left', 'right'] }).notNull(),
+    technique: text('technique', { enum: TECHNIQUES }).notNull(),
+    foot: text('foot', { enum: FEET }).notNull(),
     /** −3..3, + = backspin (docs/design.md §3 seven-step scale). */
     backspinStep: integer('backspin_step').notNull().default(0),
     /** −2..2, + = curls left (docs/design.md §3 five-step scale). */
     sidespinStep: integer('sidespin_step').notNull().default(0),
     targetDistanceM: real('target_distance_m').notNull(),
     targetRadiusM: real('target_radius_m').notNull(),
-    outcome: text('outcome', { enum: ['on_target', 'short', 'long', 'left', 'right', 'blocked', 'over'] }).notNull(),
+    outcome: text('outcome', { enum: OUTCOMES }).notNull(),
     carryM: real('carry_m'),
     /** `carry_m` normalised through the flight model to still air at ISA sea level, 15 °C (server-computed). */
     stillAirCarryM: real('still_air_carry_m'),
@@ -343,7 +342,7 @@ export const playerProfiles = sqliteTable(
     playerId: text('player_id')
       .notNull()
       .references(() => players.id),
-    technique: text('technique', { enum: ['driven', 'lofted', 'chipped', 'curled'] }).notNull(),
+    technique: text('technique', { enum: TECHNIQUES }).notNull(),
     /** Highest kick change_seq the cached profile saw. */
     kicksSeq: integer('kicks_seq').notNull(),
     repetitions: integer('repetitions').notNull(),
