@@ -2,9 +2,9 @@
  * Reach curve: the predicted hit probability of a player's kicks *aimed at* each target distance, for a
  * set of target radii, under given conditions. Because launch speed follows the target (aimed-speed.ts),
  * every distance needs its own Monte Carlo; common random numbers make that cheap and smooth — each
- * sampled kick keeps its speed and aim errors across distances, and the mean launch's landing against
- * launch speed is tabulated once (14 nodes) and interpolated in ln speed by monotone cubics (the spec
- * checks the interpolation against direct flights). Plain JSON, so the server can cache it.
+ * sampled kick keeps its speed, aim, elevation and spin draws across distances, and landings come from a
+ * table over ln speed with a quadratic in each launch deviation (see AimedSamples; the spec checks it
+ * against direct flights). Plain JSON, so the server can cache it.
  */
 
 import { intentionConditions, softMinLog } from './aimed-speed';
