@@ -369,6 +369,38 @@ describe('demo scenario (seed/scenario.ts)', () => {
     }
   });
 
+  it('orders the squads by their hidden truth: the first team hits more often than the U16s, who hit more often than the U14s', () => {
+    // Same targets (22 m, 3 m radius), standard conditions, mid-period, each squad with its own ball.
+    const truths = demoTruths();
+    const rate = (squad: (typeof SQUADS)[number]): number => {
+      let sum = 0;
+      let n = 0;
+      for (const pl of PLAYERS.filter((p) => p.squad === squad.key)) {
+        for (const technique of ['driven', 'curled', 'lofted'] as const) {
+          const truth = truths.get(pl.key)!.techniques[technique];
+          sum += trueHitProbability(
+            truth,
+            squad.ballSize,
+            [{ progress: 0.5, weakFoot: false }],
+            22,
+            3,
+            100,
+            `order:${pl.key}:${technique}`,
+          );
+          n++;
+        }
+      }
+      return sum / n;
+    };
+    const [u14, u16, first] = ['u14', 'u16', 'first'].map((key) => rate(SQUADS.find((s) => s.key === key)!));
+    expect(first)
+      .withContext(`first ${first!.toFixed(2)} vs U16 ${u16!.toFixed(2)}`)
+      .toBeGreaterThan(u16! + 0.03);
+    expect(u16)
+      .withContext(`U16 ${u16!.toFixed(2)} vs U14 ${u14!.toFixed(2)}`)
+      .toBeGreaterThan(u14! + 0.03);
+  });
+
   it('has individual differences: in the same first-team sessions the strong improver gains on the player who regresses', () => {
     const period = demoPeriod(NOW);
     const rate = (playerId: string, from: Date, to: Date): number =>
