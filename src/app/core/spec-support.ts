@@ -1,5 +1,5 @@
 import type { SessionUser } from '../../../shared/schemas/auth';
-import { SESSION_STORAGE_KEY } from './auth-session';
+import { SESSION_STORAGE_KEY } from './auth/auth-session';
 import { MemoryStorage } from './browser-storage';
 import { LoftlineDb, newId } from './loftline-db';
 

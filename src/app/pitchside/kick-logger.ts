@@ -14,7 +14,7 @@ import { KickStore } from '../core/kick-store';
 import type { LocalDrill, LocalSession } from '../core/loftline-db';
 import { RosterStore } from '../core/roster-store';
 import { SessionStore, type NewDrill } from '../core/session-store';
-import { SyncIssues } from '../core/sync-issues';
+import { SyncIssues } from '../core/sync/sync-issues';
 import { DrillForm } from './drill-form';
 import { EntryList, type EntryCorrection } from './entry-list';
 import { HangTimer } from './hang-timer';

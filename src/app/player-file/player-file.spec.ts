@@ -22,8 +22,8 @@ import {
   kick,
   profileEntry,
   progressWeek,
-} from './analysis-spec-fixtures';
-import { ANSWER_STORE, MemoryAnswerStore } from './cached-answer';
+} from '../core/analysis/spec-fixtures';
+import { ANSWER_STORE, MemoryAnswerStore } from '../core/analysis/cached-answer';
 import { PlayerFile } from './player-file';
 
 const ADA = FIXTURE_IDS.playerAda;

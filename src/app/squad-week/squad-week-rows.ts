@@ -1,6 +1,6 @@
 import type { CarryBasis, SquadWeek, SquadWeekPlayer } from '../../../shared/schemas/analysis';
 import type { Technique } from '../../../shared/schemas/sync';
-import type { NextTargetResult } from '../player-file/next-target';
+import type { NextTargetResult } from '../core/analysis/next-target';
 import { TECHNIQUE_LABELS } from '../ui/charts/kick-labels';
 
 /** Where a player's next target for the chosen technique stands. */
