@@ -7,6 +7,8 @@ import {
   DEFAULT_ELEVATION_DEG,
   SIDESPIN_STEP_RPS,
   SPIN_STEP_RPS,
+  COACH_WIND_HEIGHT_M,
+  WEATHER_WIND_HEIGHT_M,
   simulateKick,
   solveLaunchSpeed,
   type BackspinStep,
@@ -26,6 +28,26 @@ export interface SessionConditions {
   windSpeedMs: number | null;
   windFromDeg: number | null;
   ballSize: number;
+  /** The session's `conditions_source_json` (which values came from the weather service); absent = unknown. */
+  conditionsSourceJson?: string | null;
+}
+
+/**
+ * Height the session's wind speed applies at: 10 m when it came from the weather service (its anemometer
+ * height), else head height, where a coach feels it (common practice). Unknown or unreadable sources
+ * count as the coach's estimate, the usual way wind is entered.
+ */
+export function windReferenceHeightM(conditionsSourceJson: string | null | undefined): number {
+  if (!conditionsSourceJson) return COACH_WIND_HEIGHT_M;
+  try {
+    const parsed: unknown = JSON.parse(conditionsSourceJson);
+    if (parsed !== null && typeof parsed === 'object' && (parsed as Record<string, unknown>)['windSpeedMs'] === 'weather') {
+      return WEATHER_WIND_HEIGHT_M;
+    }
+  } catch {
+    // A malformed source record is treated like none.
+  }
+  return COACH_WIND_HEIGHT_M;
 }
 
 /** The kick fields the flight model needs. */
@@ -59,7 +81,13 @@ export function conditionsOf(s: SessionConditions): FlightConditions {
   if (s.relativeHumidityPct !== null) air.relativeHumidityPct = s.relativeHumidityPct;
   if (s.pressureHpa !== null) air.pressureHpa = s.pressureHpa;
   const conditions: FlightConditions = { ball: ballOf(s.ballSize), air };
-  if (s.windSpeedMs && s.windSpeedMs > 0) conditions.wind = { speedMs: s.windSpeedMs, fromDeg: s.windFromDeg ?? 0 };
+  if (s.windSpeedMs && s.windSpeedMs > 0) {
+    conditions.wind = {
+      speedMs: s.windSpeedMs,
+      fromDeg: s.windFromDeg ?? 0,
+      referenceHeightM: windReferenceHeightM(s.conditionsSourceJson),
+    };
+  }
   return conditions;
 }
 

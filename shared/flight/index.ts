@@ -94,3 +94,10 @@ export type {
   WindSpec,
 } from './types';
 export { LIMITS } from './validate';
+export {
+  COACH_WIND_HEIGHT_M,
+  GRASS_ROUGHNESS_LENGTH_M,
+  WEATHER_WIND_HEIGHT_M,
+  WIND_PROFILE_MIN_HEIGHT_M,
+  windHeightFactor,
+} from './wind-profile';

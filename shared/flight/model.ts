@@ -8,11 +8,12 @@
  * here helps every envelope.
  */
 
-import { goffCarreCd, onsetLiftCl, powerLiftCl, saturatingLiftCl } from './aero';
+import { goffCarreCd, GOFF_CARRE_RE_CENTRE, onsetLiftCl, powerLiftCl, saturatingLiftCl } from './aero';
 import { resolveAir } from './atmosphere';
 import { BALL_SIZES, DEFAULT_SPIN_DECAY_TAU_S, STANDARD_GRAVITY_MS2 } from './constants';
 import type { FlightConditions, KickInput } from './types';
 import { LIMITS, requireFinite, requireInHalfOpen, requireInRange } from './validate';
+import { logHeightRatio } from './wind-profile';
 
 const DEG = Math.PI / 180;
 const TWO_PI = 2 * Math.PI;
@@ -36,10 +37,19 @@ export interface FlightModel {
   /** ρA/(2m), 1/m. */
   aeroK: number;
   radiusM: number;
-  /** d/ν: Reynolds number per m/s of air speed. */
+  /**
+   * d/ν, times GOFF_CARRE_RE_CENTRE / (this ball's crisis Reynolds number): the Reynolds number per m/s
+   * of air speed on the scale of the Goff & Carré fit, so the fit's crisis lands at this ball's.
+   */
   reynoldsPerMs: number;
+  /** Wind at the reference height (or everywhere, when `windLogScale` is 0), m/s. */
   windXMs: number;
   windYMs: number;
+  /**
+   * 1 / ln(z_ref/z₀) of the logarithmic wind profile (floored form, wind-profile.ts); 0 = the same wind at
+   * every height.
+   */
+  windLogScale: number;
   /** Unit spin axis (constant direction; only the magnitude decays). */
   axisX: number;
   axisY: number;
@@ -68,12 +78,17 @@ export function resolveConditions(c: FlightConditions): Omit<FlightModel, 'axisX
   const air = resolveAir(c.air);
   let windXMs = 0;
   let windYMs = 0;
+  let windLogScale = 0;
   if (c.wind) {
     const speed = requireInRange('wind.speedMs', c.wind.speedMs, LIMITS.windSpeedMs[0], LIMITS.windSpeedMs[1], 'm/s');
     const from = requireFinite('wind.fromDeg', c.wind.fromDeg) * DEG;
     // Wind blows *from* `fromDeg` (0 = from the target), so it moves towards the opposite direction.
     windXMs = -speed * Math.cos(from);
     windYMs = -speed * Math.sin(from);
+    if (c.wind.referenceHeightM !== undefined) {
+      const h = requireInRange('wind.referenceHeightM', c.wind.referenceHeightM, LIMITS.windHeightM[0], LIMITS.windHeightM[1], 'm');
+      windLogScale = 1 / logHeightRatio(h);
+    }
   }
   const aero = c.aero ?? {};
   let dragKind = DRAG_GOFF_CARRE;
@@ -94,6 +109,10 @@ export function resolveConditions(c: FlightConditions): Omit<FlightModel, 'axisX
     liftKind = LIFT_CONSTANT;
     liftConstant = requireInRange('aero.lift.constant', aero.lift.constant, LIMITS.liftConstant[0], LIMITS.liftConstant[1]);
   }
+  const crisisRe =
+    aero.dragCrisisRe === undefined
+      ? GOFF_CARRE_RE_CENTRE
+      : requireInRange('aero.dragCrisisRe', aero.dragCrisisRe, LIMITS.dragCrisisRe[0], LIMITS.dragCrisisRe[1]);
   const tau = aero.spinDecayTauS === undefined ? DEFAULT_SPIN_DECAY_TAU_S : aero.spinDecayTauS;
   const spinDecayPerS =
     tau === null ? 0 : 1 / requireInRange('aero.spinDecayTauS', tau, LIMITS.spinDecayTauS[0], LIMITS.spinDecayTauS[1], 's');
@@ -101,9 +120,10 @@ export function resolveConditions(c: FlightConditions): Omit<FlightModel, 'axisX
     gravityMs2: STANDARD_GRAVITY_MS2,
     aeroK: (air.densityKgM3 * Math.PI * radiusM * radiusM) / (2 * massKg),
     radiusM,
-    reynoldsPerMs: (2 * radiusM) / air.kinematicViscosityM2S,
+    reynoldsPerMs: ((2 * radiusM) / air.kinematicViscosityM2S) * (GOFF_CARRE_RE_CENTRE / crisisRe),
     windXMs,
     windYMs,
+    windLogScale,
     spinDecayPerS,
     dragKind,
     dragConstant,
@@ -161,6 +181,7 @@ export function buildModel(conditions: ReturnType<typeof resolveConditions>, lau
     reynoldsPerMs: conditions.reynoldsPerMs,
     windXMs: conditions.windXMs,
     windYMs: conditions.windYMs,
+    windLogScale: conditions.windLogScale,
     spinDecayPerS: conditions.spinDecayPerS,
     dragKind: conditions.dragKind,
     dragConstant: conditions.dragConstant,
@@ -182,7 +203,7 @@ export function modelFromKick(input: KickInput): FlightModel {
 
 /**
  * Right-hand side of the equations of motion: writes d(state)/dt into `out`. No allocation, one square
- * root, and at most three transcendental calls (spin decay, crisis sigmoid, spin drag power).
+ * root, and at most four transcendental calls (spin decay, crisis sigmoid, spin drag power, wind profile).
  */
 export function derivative(m: FlightModel, t: number, s: ArrayLike<number>, out: { [i: number]: number }): void {
   const vx = s[3]!;
@@ -191,8 +212,16 @@ export function derivative(m: FlightModel, t: number, s: ArrayLike<number>, out:
   out[0] = vx;
   out[1] = vy;
   out[2] = vz;
-  const ux = vx - m.windXMs;
-  const uy = vy - m.windYMs;
+  let windX = m.windXMs;
+  let windY = m.windYMs;
+  if (m.windLogScale > 0) {
+    // Logarithmic profile at the height of the ball's centre (z is its underside's height above the grass).
+    const f = logHeightRatio(s[2]! + m.radiusM) * m.windLogScale;
+    windX *= f;
+    windY *= f;
+  }
+  const ux = vx - windX;
+  const uy = vy - windY;
   const uz = vz;
   const u2 = ux * ux + uy * uy + uz * uz;
   let ax = 0;
