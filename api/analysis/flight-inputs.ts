@@ -5,6 +5,7 @@
 import {
   BALL_SIZES,
   DEFAULT_ELEVATION_DEG,
+  LAUNCH_SPEED_CAP_MS,
   SIDESPIN_STEP_RPS,
   SPIN_STEP_RPS,
   COACH_WIND_HEIGHT_M,
@@ -118,7 +119,7 @@ export function loggedKickOf(k: StoredKick, s: SessionConditions): LoggedKick {
 /**
  * The carry this kick would have had in standard conditions: the launch speed that explains
  * the logged carry under the session's conditions, flown again in still ISA air. Null when
- * there is no carry or the model cannot explain it.
+ * there is no carry or no speed under the physiological cap explains it.
  */
 export function stillAirCarryM(k: StoredKick, s: SessionConditions): number | null {
   if (k.carryM === null || k.carryM <= 0) return null;
@@ -127,7 +128,10 @@ export function stillAirCarryM(k: StoredKick, s: SessionConditions): number | nu
   const backspinRps = SPIN_STEP_RPS[k.backspinStep as BackspinStep] ?? 0;
   const sidespinRps = SIDESPIN_STEP_RPS[k.sidespinStep as SidespinStep] ?? 0;
   try {
-    const speed = solveLaunchSpeed({ carryM: k.carryM, elevationDeg, backspinRps, sidespinRps, ...conditionsOf(s) });
+    // No speed under the physiological cap explains the carry: a wrong log or a wrong assumed angle, not a
+    // carry to normalise (else a 45 m lofted carry into a 6 m/s headwind became 70 m of still air).
+    const maxSpeedMs = LAUNCH_SPEED_CAP_MS[s.ballSize === 3 || s.ballSize === 4 ? s.ballSize : 5];
+    const speed = solveLaunchSpeed({ carryM: k.carryM, elevationDeg, backspinRps, sidespinRps, maxSpeedMs, ...conditionsOf(s) });
     if (speed === null) return null;
     const flight = simulateKick({ speed, elevationDeg, backspinRps, sidespinRps, ...standardConditions(s.ballSize) });
     return flight.landed ? Math.round(flight.carryM * 100) / 100 : null;

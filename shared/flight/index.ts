@@ -50,6 +50,18 @@ export type { SolverSettings } from './integrate';
 export { INVERSE_MAX_SPEED_MS, INVERSE_MIN_SPEED_MS, solveLaunchSpeed } from './inverse';
 export type { LaunchSpeedQuery } from './inverse';
 export { fitProfile } from './profile';
+export {
+  backspinLogSdRps,
+  CEILINGS_BY_BALL_MS,
+  ELEVATION_SD_PRIOR_DEG,
+  LAUNCH_SPEED_CAP_MS,
+  PRIORS_BY_BALL,
+  sidespinLogSdRps,
+} from './profile-priors';
+export type { SquadBallSize } from './profile-priors';
+export { fitWarnings, PROFILE_WARNING_TEXT, reachWarnings } from './profile-warnings';
+export { PROFILE_WARNINGS } from './profile-types';
+export type { ElevationSpreadSource, ProfileWarning } from './profile-types';
 export { CEILING_PRIOR_LOG_SD, DEFAULT_CEILINGS_MS, DEFAULT_PRIORS } from './profile-types';
 export type { FitOptions } from './profile-types';
 export type { KickProfile, LoggedKick, ProfileObservationCounts, ProfilePrior } from './profile-types';
