@@ -155,7 +155,10 @@ export class SquadWeek {
     const reps = marks.reduce((n, m) => n + m.reps, 0);
     const predicted = marks.reduce((n, m) => n + m.predicted * m.reps, 0) / reps;
     const observed = marks.reduce((n, m) => n + m.observed * m.reps, 0) / reps;
-    return `${marks.length} players: predicted ${Math.round(predicted * 100)} % hits on average, observed ${Math.round(observed * 100)} %.`;
+    return (
+      `${marks.length} players, ${reps} repetitions: predicted ${Math.round(predicted * 100)} % hits ` +
+      `(${(predicted * reps).toFixed(1)}), observed ${Math.round(observed * 100)} % (${Math.round(observed * reps)}).`
+    );
   });
 
   protected readonly cacheNote = computed(() => {
