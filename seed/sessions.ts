@@ -264,10 +264,12 @@ export function generateSession(input: SessionInput): GeneratedSession {
       windSpeedMs: conditions.windSpeedMs,
       windFromDeg: conditions.windFromDeg,
       ballSize: squad.ballSize,
+      conditionsSourceJson: session.conditionsSourceJson,
     });
     order.forEach((pl, i) => {
       const recordedMs = drillStartMs + (i + 0.5) * spacingMs + prng.uniform(-2000, 2000);
-      const weakFoot = prng.chance(0.08);
+      // Curled drills are practised on the stronger foot: the weaker foot's inside curl would bend the other way.
+      const weakFoot = prng.chance(0.08) && technique !== 'curled';
       const kickId = prng.uuid();
       const foot = weakFoot ? (pl.dominantFoot === 'left' ? 'right' : 'left') : pl.dominantFoot;
       const rep = flyRepetition(flight, input.intentions, {

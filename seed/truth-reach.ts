@@ -4,7 +4,7 @@
  * independent answer. For tests only.
  */
 import { softMinLog } from '../shared/flight/aimed-speed';
-import { BALL_SIZES, type FlightConditions, type KickProfile } from '../shared/flight/index';
+import { BALL_SIZES, LAUNCH_SPEED_CAP_MS, type FlightConditions, type KickProfile } from '../shared/flight/index';
 import { flyRepetition, Intentions } from './kick-physics';
 import { Prng } from './prng';
 import { kickingAt, type Technique, type TrueTechnique } from './truth';
@@ -127,10 +127,15 @@ export function truthAsProfile(
     meanAzimuthSeDeg: 0,
     elevationDeg: k.elevationDeg,
     sdElevationDeg: k.sdElevationDeg,
+    elevationSdSource: 'logged',
     backspinRps: k.backspinRps,
     sidespinRps: k.sidespinRps,
     sdBackspinRps: k.sdBackspinRps,
     sdSidespinRps: k.sdSidespinRps,
+    launchNoiseScale: 1,
+    speedCapMs: LAUNCH_SPEED_CAP_MS[ballSize],
+    longestTargetM: typicalTargetM,
+    warnings: [],
     observations: { speedPoints: 0, speedIntervals: 0, speedBounds: 0, aimPoints: 0, aimIntervals: 0, aimBounds: 0 },
     prior: { meanSpeedMs, sdSpeedMs: meanSpeedMs * k.offsetLogSd, meanAzimuthDeg: 0, sdAzimuthDeg: k.sdAimDeg, weightReps: 0.1 },
   };

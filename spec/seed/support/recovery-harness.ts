@@ -56,6 +56,7 @@ export function seedDemoUnderTest(): DemoUnderTest {
             k.measured_speed_ms AS measuredSpeedMs, k.launch_angle_deg AS launchAngleDeg, k.measured_spin_rps AS measuredSpinRps,
             k.hang_time_s AS hangTimeS, s.temperature_c AS temperatureC, s.altitude_m AS altitudeM, s.relative_humidity_pct AS relativeHumidityPct,
             s.pressure_hpa AS pressureHpa, s.wind_speed_ms AS windSpeedMs, s.wind_from_deg AS windFromDeg, s.ball_size AS ballSize,
+            s.conditions_source_json AS conditionsSourceJson,
             k.recorded_at AS recordedAt, k.foot AS foot, p.dominant_foot AS dominantFoot, s.id AS sessionId
        FROM kicks k JOIN training_sessions s ON s.id = k.session_id JOIN players p ON p.id = k.player_id
       WHERE k.player_id = ? AND k.technique = ? AND k.deleted_at IS NULL AND s.deleted_at IS NULL
