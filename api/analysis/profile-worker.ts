@@ -5,7 +5,6 @@
  * once the row is written (or found fresh) or the calibration computed (the API thread keeps it).
  */
 import { parentPort, workerData } from 'node:worker_threads';
-import type { Technique } from '../../shared/schemas/sync';
 import { openDatabase } from '../db/client';
 import { ProfileCache, type CalibrationResult, type RefreshJob } from './profile-cache';
 
