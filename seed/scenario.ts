@@ -22,9 +22,10 @@ import {
 } from '../api/db/schema';
 import type { Role } from '../shared/roles';
 import { birthDateForAge, DAY_MS, demoPeriod } from './calendar';
-import { drawPlayerSkill } from './outcomes';
+import { Intentions } from './kick-physics';
 import { Prng, stableId } from './prng';
 import { GUARDIANS, PLAYERS, SESSION_RECORDERS, SQUADS, STAFF, DEMO_EMAIL_DOMAIN, type SquadKey } from './roster';
+import { demoPlayerTruth, FREE_KICK_TAKERS, type PlayerTruth } from './truth';
 import { generateSession, type DrillRow, type KickRow, type SessionPlayer, type SessionRow } from './sessions';
 
 export { demoPeriod } from './calendar';
@@ -53,6 +54,28 @@ export const DEMO_SQUAD_IDS: Record<SquadKey, string> = {
   u16: stableId('squad:u16'),
   first: stableId('squad:first'),
 };
+
+/** Shirt numbers (in roster order) and which members are left-footed, as drawn for one squad. */
+function squadRosterDraw(squad: SquadKey, members: number): { shirts: number[]; leftFooted: Set<number> } {
+  const prng = Prng.fromLabel(`squad-roster:${squad}`);
+  const shirts = prng.shuffle([1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12, 14, 15, 16, 17, 18, 19, 20, 21, 22, 23, 24, 26]).slice(0, members);
+  const leftFooted = new Set(prng.shuffle(Array.from({ length: members }, (_, i) => i)).slice(0, 4));
+  return { shirts, leftFooted };
+}
+
+/**
+ * The hidden truth of every demo player, keyed by roster key — for the recovery specs only: it is
+ * never stored and never served (the generator flies each repetition from it).
+ */
+export function demoTruths(): Map<string, PlayerTruth> {
+  const out = new Map<string, PlayerTruth>();
+  for (const squad of SQUADS) {
+    const members = PLAYERS.filter((pl) => pl.squad === squad.key);
+    const { leftFooted } = squadRosterDraw(squad.key, members.length);
+    members.forEach((pl, i) => out.set(pl.key, demoPlayerTruth(pl.key, leftFooted.has(i) ? 'left' : 'right')));
+  }
+  return out;
+}
 
 /** Stable id of a seeded user, from the account's e-mail. */
 export function demoUserId(email: string): string {
@@ -187,12 +210,8 @@ export function seedDemo(db: Db, options: SeedOptions = {}): SeedSummary {
     const sessionPlayers = new Map<SquadKey, SessionPlayer[]>();
     const playerRows: (typeof players.$inferInsert)[] = [];
     for (const squad of SQUADS) {
-      const prng = Prng.fromLabel(`squad-roster:${squad.key}`);
       const members = PLAYERS.filter((pl) => pl.squad === squad.key);
-      const shirts = prng
-        .shuffle([1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12, 14, 15, 16, 17, 18, 19, 20, 21, 22, 23, 24, 26])
-        .slice(0, members.length);
-      const leftFooted = new Set(prng.shuffle(members.map((_, i) => i)).slice(0, 4));
+      const { shirts, leftFooted } = squadRosterDraw(squad.key, members.length);
       const list: SessionPlayer[] = [];
       members.forEach((pl, i) => {
         const own = Prng.fromLabel(`player:${pl.key}`);
@@ -211,7 +230,13 @@ export function seedDemo(db: Db, options: SeedOptions = {}): SeedSummary {
           ...stamps,
           deletedAt: null,
         });
-        list.push({ id, dominantFoot, skill: drawPlayerSkill(own, squad.key, pl.progress), extraWork: pl.extraWork === true });
+        list.push({
+          id,
+          dominantFoot,
+          truth: demoPlayerTruth(pl.key, dominantFoot),
+          extraWork: pl.extraWork === true,
+          freeKickTaker: FREE_KICK_TAKERS.includes(pl.key),
+        });
       });
       sessionPlayers.set(squad.key, list);
     }
@@ -245,6 +270,7 @@ export function seedDemo(db: Db, options: SeedOptions = {}): SeedSummary {
     const drillRows: DrillRow[] = [];
     const kickRows: KickRow[] = [];
     const nextSeq = (): number => nextChangeSeq(db);
+    const intentions = new Intentions();
     const slots = period.weekStarts.flatMap((weekStart, weekIndex) =>
       SQUADS.flatMap((squad) =>
         squad.sessionSlots.map((slot, slotIndex) => ({
@@ -275,6 +301,7 @@ export function seedDemo(db: Db, options: SeedOptions = {}): SeedSummary {
         periodStartMs,
         periodLengthMs,
         nextSeq,
+        intentions,
       });
       sessionRows.push(generated.session);
       drillRows.push(...generated.drills);

@@ -4,20 +4,23 @@
  * labelled random stream, so the same squad, week and slot always give the same session.
  */
 import type { drills, kicks, trainingSessions } from '../api/db/schema';
+import { conditionsOf } from '../api/analysis/flight-inputs';
 import { dayOfYearUtc, londonWallClockToUtc } from './calendar';
 import {
   classifyLanding,
-  drawLanding,
+  flyRepetition,
+  freeKickOutcome,
   measureLaunch,
   roundToHalf,
-  setPieceOutcome,
-  TARGET_RANGE_M,
+  seenLanding,
+  spinStepsByEye,
+  WALL_HEIGHT_M,
+  type Intentions,
   type Outcome,
-  type PlayerSkill,
-  type Technique,
-} from './outcomes';
+} from './kick-physics';
 import { Prng } from './prng';
 import type { SquadSpec } from './roster';
+import type { PlayerTruth, Technique } from './truth';
 
 /** A training-session row as inserted. */
 export type SessionRow = typeof trainingSessions.$inferInsert;
@@ -30,8 +33,10 @@ export type KickRow = typeof kicks.$inferInsert;
 export interface SessionPlayer {
   id: string;
   dominantFoot: 'left' | 'right';
-  skill: PlayerSkill;
+  truth: PlayerTruth;
   extraWork: boolean;
+  /** One of the first team's free-kick takers: a few extra repetitions in curled free-kick drills. */
+  freeKickTaker: boolean;
 }
 
 /** Everything one session depends on. */
@@ -51,6 +56,8 @@ export interface SessionInput {
   periodLengthMs: number;
   /** Hands out the next change_seq (must be called inside the seeding transaction). */
   nextSeq: () => number;
+  /** The players' intention tables, shared across sessions (built on first use). */
+  intentions: Intentions;
 }
 
 /** The rows one session produces. */
@@ -59,6 +66,13 @@ export interface GeneratedSession {
   drills: DrillRow[];
   kicks: KickRow[];
 }
+
+/** Sensible drill target distances (metres) per squad and technique (common coaching practice). */
+export const TARGET_RANGE_M: Record<SquadSpec['key'], Record<Technique, [number, number]>> = {
+  u14: { driven: [18, 28], lofted: [25, 38], chipped: [12, 18], curled: [16, 24] },
+  u16: { driven: [20, 32], lofted: [28, 44], chipped: [12, 20], curled: [18, 26] },
+  first: { driven: [22, 35], lofted: [30, 50], chipped: [14, 22], curled: [18, 28] },
+};
 
 const WIND_DIRECTIONS_DEG = [0, 45, 90, 135, 180, 225, 270, 315];
 const WIND_DIRECTION_WEIGHTS = [3, 2, 2, 1, 2, 1, 2, 2];
@@ -119,12 +133,6 @@ function drillSpin(prng: Prng, technique: Technique): { backspinStep: number; si
     case 'curled':
       return { backspinStep: 0, sidespinStep: prng.pick([-2, -1, 1, 2]) };
   }
-}
-
-/** A kick's spin step: mostly the drill's, sometimes one step either way. */
-function vary(prng: Prng, step: number, min: number, max: number): number {
-  if (!prng.chance(0.15)) return step;
-  return clamp(step + (prng.chance(0.5) ? 1 : -1), min, max);
 }
 
 /** Session conditions: seasonal temperature, wind, humidity (all as a coach would enter them). */
@@ -236,41 +244,61 @@ export function generateSession(input: SessionInput): GeneratedSession {
       else if (prng.chance(drillCount === 3 ? 0.8 : 0.92)) reps.set(pl, drillCount === 2 ? prng.int(5, 11) : prng.int(5, 8));
     }
     const order: SessionPlayer[] = [];
+    // Free-kick takers stay on for a few more curled free kicks (drawn aside, so the session's stream is unchanged).
+    if (setPiece && technique === 'curled') {
+      const extra = Prng.fromLabel(`free-kick-extra:${drillId}`);
+      for (const [pl, n] of reps) if (pl.freeKickTaker) reps.set(pl, n + extra.int(3, 5));
+    }
     const maxReps = Math.max(0, ...reps.values());
     for (let r = 0; r < maxReps; r++) for (const [pl, n] of reps) if (r < n) order.push(pl);
     const spacingMs = (drillSlotMs * 0.9) / Math.max(1, order.length);
 
+    // The repetitions themselves come from the drill's own stream, so the session's structure above
+    // (drills, targets, who kicks how often) never depends on how the balls flew.
+    const flight = Prng.fromLabel(`flight:${drillId}`);
+    const conditionsForFit = conditionsOf({
+      temperatureC: conditions.temperatureC,
+      altitudeM: input.groundAltitudeM,
+      relativeHumidityPct: conditions.relativeHumidityPct,
+      pressureHpa: null,
+      windSpeedMs: conditions.windSpeedMs,
+      windFromDeg: conditions.windFromDeg,
+      ballSize: squad.ballSize,
+      conditionsSourceJson: session.conditionsSourceJson,
+    });
     order.forEach((pl, i) => {
       const recordedMs = drillStartMs + (i + 0.5) * spacingMs + prng.uniform(-2000, 2000);
-      const weakFoot = prng.chance(0.08);
+      // Curled drills are practised on the stronger foot: the weaker foot's inside curl would bend the other way.
+      const weakFoot = prng.chance(0.08) && technique !== 'curled';
+      const kickId = prng.uuid();
       const foot = weakFoot ? (pl.dominantFoot === 'left' ? 'right' : 'left') : pl.dominantFoot;
-      const backspinStep = vary(prng, spin.backspinStep, -3, 3);
-      const sidespinStep = vary(prng, spin.sidespinStep, -2, 2);
-      const landing = drawLanding(prng, pl.skill[technique], {
-        technique,
-        targetDistanceM,
+      const rep = flyRepetition(flight, input.intentions, {
+        key: `${pl.id}:${technique}`,
+        truth: pl.truth.techniques[technique],
         progress: progressAt(recordedMs),
         weakFoot,
-        windSpeedMs: conditions.windSpeedMs,
-        windFromDeg: conditions.windFromDeg,
+        targetDistanceM,
+        ballSize: squad.ballSize,
+        conditions: conditionsForFit,
+        freeKick: setPiece,
       });
+      const steps = spinStepsByEye(flight, rep.launch);
       // The coach's call is made on the landing spot as paced out (0.5 m resolution).
-      const seen = { carryM: roundToHalf(landing.carryM), lateralM: roundToHalf(landing.lateralM) };
+      const seen = seenLanding(rep);
       let outcome: Outcome = classifyLanding(seen, targetDistanceM, targetRadiusM);
-      if (setPiece) outcome = setPieceOutcome(prng, technique, outcome) ?? outcome;
-      const logLanding = outcome !== 'blocked' && outcome !== 'over' && prng.chance(0.35);
-      const measured =
-        squad.key === 'first' && prng.chance(0.1) ? measureLaunch(prng, technique, landing.carryM, backspinStep, sidespinStep) : null;
+      if (setPiece) outcome = freeKickOutcome(rep, technique, WALL_HEIGHT_M[squad.key]) ?? outcome;
+      const logLanding = outcome !== 'blocked' && outcome !== 'over' && flight.chance(0.35);
+      const measured = squad.key === 'first' && flight.chance(0.1) ? measureLaunch(flight, rep.launch) : null;
       kickRows.push({
-        id: prng.uuid(),
+        id: kickId,
         clubId: input.clubId,
         sessionId,
         drillId,
         playerId: pl.id,
         technique,
         foot,
-        backspinStep,
-        sidespinStep,
+        backspinStep: steps.backspinStep,
+        sidespinStep: steps.sidespinStep,
         targetDistanceM,
         targetRadiusM,
         outcome,

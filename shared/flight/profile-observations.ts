@@ -9,6 +9,7 @@
  */
 
 import { DEFAULT_ELEVATION_DEG, SIDESPIN_STEP_RPS, SPIN_STEP_RPS, TECHNIQUES } from './constants';
+import { intentionConditions } from './aimed-speed';
 import { DEFAULT_SOLVER_SETTINGS, integrateFlight } from './integrate';
 import { INVERSE_MAX_SPEED_MS, INVERSE_MIN_SPEED_MS, solveLaunchSpeed } from './inverse';
 import { buildModel, resolveConditions, validateLaunch } from './model';
@@ -200,10 +201,14 @@ export class SpeedBounds {
   }
 }
 
-/** The kick's own flight at `speedMs` straight along the aim (azimuth 0). */
-export function referenceFlight(kick: PreparedKick, speedMs: number): { carryM: number; landingX: number; landingY: number } {
+/** The kick's own flight at `speedMs` straight along the aim (azimuth 0), in its own conditions or `conditions`. */
+export function referenceFlight(
+  kick: PreparedKick,
+  speedMs: number,
+  conditions: FlightConditions = kick.conditions,
+): { carryM: number; landingX: number; landingY: number } {
   const model = buildModel(
-    resolveConditions(kick.conditions),
+    resolveConditions(conditions),
     validateLaunch({
       speed: speedMs,
       elevationDeg: kick.elevationDeg,
@@ -262,9 +267,13 @@ export function aimObservation(kick: PreparedKick, speedMs: number): Censored | 
   const ref = referenceFlight(kick, speedMs);
   const rho = Math.hypot(ref.landingX, ref.landingY);
   if (!(rho > 0.5)) return null;
+  // Players aim off for the curl they mean (judged in still air, as sampling assumes), not for the wind:
+  // the wind's drift of this ball is taken out, so a windy session does not read as a wide aim spread.
+  const intended = referenceFlight(kick, speedMs, intentionConditions(kick.conditions));
+  const driftDeg = (Math.atan2(ref.landingY, ref.landingX) - Math.atan2(intended.landingY, intended.landingX)) / DEG;
   const toAzimuth = (lat: number): number => {
     if (lat === Number.POSITIVE_INFINITY || lat === Number.NEGATIVE_INFINITY) return lat;
-    return Math.asin(Math.max(-1, Math.min(1, lat / rho))) / DEG;
+    return Math.asin(Math.max(-1, Math.min(1, lat / rho))) / DEG - driftDeg;
   };
   return { lo: toAzimuth(lateral.lo), hi: toAzimuth(lateral.hi) };
 }
