@@ -66,6 +66,8 @@ export { CEILING_PRIOR_LOG_SD, DEFAULT_CEILINGS_MS, DEFAULT_PRIORS } from './pro
 export type { FitOptions } from './profile-types';
 export type { KickProfile, LoggedKick, ProfileObservationCounts, ProfilePrior } from './profile-types';
 export { DEFAULT_WALL_HEIGHT_M, GOAL_CROSSING, setPieceCheck, setPieceCloud, setPieceGeometry } from './set-piece';
+export { choiceRangeOf, TECHNIQUE_CHOICES } from './set-piece-aim';
+export type { IntendedKick, KickChoiceRange } from './set-piece-aim';
 export type { GoalCrossingKind, GoalMouthCloud, SetPieceCloudResult, SetPieceInput, SetPieceResult, SetPieceShares } from './set-piece';
 export { simulateKick } from './simulate';
 export {

@@ -16,7 +16,8 @@ import type { LoggedKick } from './profile-types';
 import type { BackspinStep, FlightConditions, KickOutcome, SidespinStep, Technique } from './types';
 import { requireInHalfOpen, requireInRange, requireInteger, requireOneOf } from './validate';
 
-const OUTCOMES: readonly KickOutcome[] = ['on_target', 'short', 'long', 'left', 'right', 'blocked', 'over'];
+import { OUTCOMES } from '../vocabulary';
+
 const DEG = Math.PI / 180;
 /** Half-width of the square with the area of a unit circle, √π / 2 ≈ 0.886 (first principles). */
 export const EQUAL_AREA_HALF_WIDTH = Math.sqrt(Math.PI) / 2;

@@ -19,7 +19,7 @@ export type KickExportQuery = ({ readonly squadId: string } | { readonly playerI
 };
 
 /**
- * Exports (issue 7): kicks as CSV for a squad or a player over a date range (staff), and all the
+ * Exports: kicks as CSV for a squad or a player over a date range (staff), and all the
  * data held about one player as JSON for a data-access request (admin). Fetched as blobs through
  * `HttpClient` because the API wants the bearer token, which a plain download link cannot send;
  * a refusal arrives as a blob too and is turned back into the usual error body here, so screens

@@ -30,7 +30,7 @@ export function signedInStorage(user: SessionUser): MemoryStorage {
 }
 
 /** Polls until `check` holds (IndexedDB and the queue work asynchronously). */
-export async function until(what: string, check: () => boolean | Promise<boolean>, timeoutMs = 3000): Promise<void> {
+export async function until(what: string, check: () => boolean | Promise<boolean>, timeoutMs = 10000): Promise<void> {
   const deadline = Date.now() + timeoutMs;
   while (!(await check())) {
     if (Date.now() > deadline) {

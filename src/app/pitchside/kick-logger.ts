@@ -22,7 +22,7 @@ import { DEFAULT_REP_LIMIT_PER_SESSION, isOverLoadLimit, loadCautionText } from 
 import { describeLocalError } from './local-error';
 import { metresValidator, optionalMetres } from './metres-field';
 import { OutcomePad } from './outcome-pad';
-import { OUTCOME_LABELS, TECHNIQUE_LABELS, backspinLabel, sidespinLabel } from './pitchside-labels';
+import { OUTCOME_LABELS, TECHNIQUE_LABELS, backspinLabel, sidespinLabel } from '../../../shared/vocabulary';
 import { PlayerChips } from './player-chips';
 import { StepControl } from './step-control';
 import { StopwatchDrills } from './stopwatch-drills';

@@ -5,7 +5,7 @@ import type { CachedPlayer, ConflictNotice, OutboxEntry } from '../core/loftline
 import { StorageStatus } from '../core/storage-status';
 import { SyncIssues } from '../core/sync/sync-issues';
 import { SyncQueue } from '../core/sync/sync-queue';
-import { OUTCOME_LABELS } from './pitchside-labels';
+import { OUTCOME_LABELS } from '../../../shared/vocabulary';
 import type { Outcome } from '../../../shared/schemas/sync';
 
 /** Words for the fields a conflict can name. */

@@ -2,7 +2,7 @@ import { PROFILE_WARNING_TEXT } from '../../../shared/flight';
 import type { CarryBasis, SquadWeek, SquadWeekPlayer } from '../../../shared/schemas/analysis';
 import type { Technique } from '../../../shared/schemas/sync';
 import type { NextTargetResult } from '../core/analysis/next-target';
-import { TECHNIQUE_LABELS } from '../ui/charts/kick-labels';
+import { TECHNIQUE_LABELS } from '../../../shared/vocabulary';
 
 /** Where a player's next target for the chosen technique stands. */
 export type NextTargetState =

@@ -12,7 +12,7 @@ import { RouterLink } from '@angular/router';
 import type { CarryBasis } from '../../../shared/schemas/analysis';
 import type { Technique } from '../../../shared/schemas/sync';
 import { describeNextTarget, drillLink } from '../core/analysis/next-target';
-import { TECHNIQUE_LABELS } from '../ui/charts/kick-labels';
+import { TECHNIQUE_LABELS } from '../../../shared/vocabulary';
 import { type SquadRow, changeMark, csvFileName, squadWeekCsv } from './squad-week-rows';
 import { TextDownload } from './text-download';
 

@@ -138,7 +138,7 @@ describe('SquadWeek', () => {
   it('suggests next targets with one tap into Pitchside', async () => {
     await open();
     await answerSquadAndWeek();
-    await until('next targets', () => count('a[href^="/pitchside"]') === 2, 15000);
+    await until('next targets', () => count('a[href^="/pitchside"]') === 2, 25000);
     const link = new URL((harness.fixture.nativeElement as HTMLElement).querySelector<HTMLAnchorElement>('a[href^="/pitchside"]')!.href);
     expect(link.searchParams.get('drillTechnique')).toBe('lofted');
     expect(link.searchParams.get('drillRadiusM')).toBe('3');
@@ -159,7 +159,7 @@ describe('SquadWeek', () => {
     await harness.fixture.whenStable();
     expect(text()).toContain('Lofted still-air carry');
     expect(text()).toContain('normalised through the flight model to still air');
-    await until('next targets', () => count('a[href^="/pitchside"]') === 2, 15000);
+    await until('next targets', () => count('a[href^="/pitchside"]') === 2, 25000);
   });
 
   it('refuses a week in the future and opens the one asked for in the address', async () => {

@@ -17,7 +17,7 @@ import type { Answer } from '../core/analysis/cached-answer';
 import { oldestCachedAt, readyValue, toAnswerState, updatedLabel } from '../core/analysis/answer-state';
 import { CarryBasisChoice } from '../ui/carry-basis-choice';
 import { CalibrationChart, type CalibrationMark } from '../ui/charts/calibration-chart';
-import { TECHNIQUE_LABELS, TECHNIQUE_ORDER, isTechnique } from '../ui/charts/kick-labels';
+import { TECHNIQUES, TECHNIQUE_LABELS, isTechnique } from '../../../shared/vocabulary';
 import { ZoneRateChart } from '../ui/charts/zone-rate-chart';
 import { LoadFailure } from '../ui/load-failure';
 import { LoadCaution } from './load-caution';
@@ -77,7 +77,7 @@ export class SquadWeek {
   readonly technique = input<string | undefined>(undefined);
 
   protected readonly carry = inject(CarryBasisChoice);
-  protected readonly techniques = TECHNIQUE_ORDER;
+  protected readonly techniques = TECHNIQUES;
   protected readonly techniqueLabels = TECHNIQUE_LABELS;
   /** The current ISO week: the latest that can be reviewed. */
   protected readonly latestWeek = mondayOf(inject(REVIEW_CLOCK)());
