@@ -19,6 +19,7 @@ import type { Technique } from '../../shared/schemas/sync';
 import type { Db } from '../db/client';
 import { playerProfiles } from '../db/schema';
 import { cachedStatement } from '../db/statements';
+import { heldOutCalibration, type HeldOutCalibration } from './calibration';
 import { loggedKickOf, standardConditions, type SessionConditions, type StoredKick } from './flight-inputs';
 
 /** Monte Carlo samples of the cached standard-conditions reach curve (the client draws with the same). */
@@ -50,6 +51,31 @@ function squadBallSize(size: number): 3 | 4 | 5 {
 export const REFRESH_IDLE_MS = 150;
 /** Rest of the worker between fits while requests are coming in, ms. */
 const WORKER_REST_MS = 250;
+/** Held-out calibrations kept in memory (oldest dropped first); each is refitted when the player's kicks change. */
+const MAX_CALIBRATIONS = 5000;
+/** Queue keys of held-out calibrations start with this (profile keys are `player|technique`). */
+const CALIBRATION_KEY = 'cal|';
+
+/** A job of the refresher: a profile fit, or a week's held-out calibration. */
+export type RefreshJob =
+  | { kind: 'profile'; playerId: string; technique: Technique }
+  | { kind: 'calibration'; playerId: string; technique: Technique; weekStart: string };
+
+/** A computed held-out calibration, valid while the player's kicks of the technique stay at `kicksSeq`. */
+export interface CalibrationResult {
+  key: string;
+  kicksSeq: number;
+  value: HeldOutCalibration;
+}
+
+function jobOf(key: string): RefreshJob {
+  if (key.startsWith(CALIBRATION_KEY)) {
+    const [, playerId, technique, weekStart] = key.split('|') as [string, string, Technique, string];
+    return { kind: 'calibration', playerId, technique, weekStart };
+  }
+  const [playerId, technique] = key.split('|') as [string, Technique];
+  return { kind: 'profile', playerId, technique };
+}
 
 /** Computes, caches and serves launch profiles. */
 export class ProfileCache {
@@ -60,6 +86,7 @@ export class ProfileCache {
   private lastRequestAt = Number.NEGATIVE_INFINITY;
   private worker: Worker | null = null;
   private inFlight = false;
+  private readonly calibrations = new Map<string, { kicksSeq: number; value: HeldOutCalibration }>();
 
   /** `workerDbPath`: fit in a worker thread on its own connection to this file (the server's way). */
   constructor(
@@ -101,6 +128,39 @@ export class ProfileCache {
       .prepare('SELECT c.timing_bias_s AS biasS, c.timing_sd_s AS sdS FROM players p JOIN clubs c ON c.id = p.club_id WHERE p.id = ?')
       .get(playerId) as { biasS: number; sdS: number } | undefined;
     return row ?? { biasS: 0.2, sdS: 0.08 };
+  }
+
+  /**
+   * The held-out calibration of a player's technique for a week, or 'pending' while the refresher
+   * computes it (queued here). Cached until the player's kicks of that technique change.
+   */
+  calibration(playerId: string, technique: Technique, weekStart: string): HeldOutCalibration | 'pending' {
+    const key = `${CALIBRATION_KEY}${playerId}|${technique}|${weekStart}`;
+    const hit = this.calibrations.get(key);
+    if (hit && hit.kicksSeq === this.kicksSeq(playerId, technique)) return hit.value;
+    this.enqueueKey(key);
+    return 'pending';
+  }
+
+  /** Computes a held-out calibration now (the refresher's job; also the worker's). */
+  computeCalibration(playerId: string, technique: Technique, weekStart: string): CalibrationResult {
+    const kicksSeq = this.kicksSeq(playerId, technique);
+    const value = heldOutCalibration(this.db, playerId, technique, weekStart, this.timingOf(playerId));
+    return { key: `${CALIBRATION_KEY}${playerId}|${technique}|${weekStart}`, kicksSeq, value };
+  }
+
+  /** Keeps a computed calibration. */
+  storeCalibration(result: CalibrationResult): void {
+    this.calibrations.delete(result.key);
+    this.calibrations.set(result.key, { kicksSeq: result.kicksSeq, value: result.value });
+    if (this.calibrations.size > MAX_CALIBRATIONS) this.calibrations.delete(this.calibrations.keys().next().value!);
+  }
+
+  /** Runs one refresher job in this thread. */
+  runJob(job: RefreshJob): CalibrationResult | null {
+    if (job.kind === 'calibration') return this.computeCalibration(job.playerId, job.technique, job.weekStart);
+    if (this.isStale(job.playerId, job.technique)) this.compute(job.playerId, job.technique);
+    return null;
   }
 
   /** Fits and stores one profile now. */
@@ -191,7 +251,11 @@ export class ProfileCache {
 
   /** Queues a recomputation for the background refresher. */
   enqueue(playerId: string, technique: Technique): void {
-    this.queue.add(`${playerId}|${technique}`);
+    this.enqueueKey(`${playerId}|${technique}`);
+  }
+
+  private enqueueKey(key: string): void {
+    this.queue.add(key);
     if (this.running) this.schedule();
   }
 
@@ -223,8 +287,9 @@ export class ProfileCache {
   private startWorker(dbPath: string): void {
     const worker = new Worker(new URL('./profile-worker-boot.mjs', import.meta.url), { workerData: { dbPath } });
     worker.unref();
-    worker.on('message', () => {
+    worker.on('message', (reply: { ok: boolean; calibration?: CalibrationResult | null }) => {
       this.inFlight = false;
+      if (reply.calibration) this.storeCalibration(reply.calibration);
       // Under API load the worker rests between fits, leaving the other core to the requests.
       if (performance.now() - this.lastRequestAt < REFRESH_IDLE_MS) {
         this.wait ??= setTimeout(() => {
@@ -274,9 +339,8 @@ export class ProfileCache {
       const next = this.queue.values().next();
       if (next.done) return;
       this.queue.delete(next.value);
-      const [playerId, technique] = next.value.split('|') as [string, Technique];
       this.inFlight = true;
-      this.worker.postMessage({ playerId, technique });
+      this.worker.postMessage(jobOf(next.value));
       return;
     }
     if (this.timer || this.wait || !this.running || this.queue.size === 0) return;
@@ -294,9 +358,9 @@ export class ProfileCache {
       const next = this.queue.values().next();
       if (!next.done) {
         this.queue.delete(next.value);
-        const [playerId, technique] = next.value.split('|') as [string, Technique];
         try {
-          if (this.isStale(playerId, technique)) this.compute(playerId, technique);
+          const calibration = this.runJob(jobOf(next.value));
+          if (calibration) this.storeCalibration(calibration);
         } catch {
           // A profile that cannot be fitted stays stale; the next change queues it again.
         }

@@ -4,7 +4,6 @@
  * squad in the two weeks (training_sessions_squad_started_idx, then kicks_session_idx).
  */
 import { and, eq, isNull } from 'drizzle-orm';
-import { curveHitProbability } from '../../shared/flight/index';
 import type { CalibrationPoint, CarryBasis, SquadWeek, SquadWeekPlayer, ZoneHitRate } from '../../shared/schemas/analysis';
 import type { Technique } from '../../shared/schemas/sync';
 import type { ProfileCache } from '../analysis/profile-cache';
@@ -94,12 +93,6 @@ export function squadWeek(
        SELECT player_id, technique, AVG(carry) AS median FROM ranked
         WHERE i = (n + 1) / 2 OR (n % 2 = 0 AND i = n / 2 + 1) GROUP BY player_id, technique`,
   ).all(params) as { player_id: string; technique: Technique; median: number }[];
-  const targets = cachedStatement(
-    sqlite,
-
-    `SELECT k.player_id, k.technique, k.target_distance_m AS d, k.target_radius_m AS r, COUNT(*) AS n, SUM(k.outcome = 'on_target') AS hits
-         ${thisWeek} GROUP BY k.player_id, k.technique, k.target_distance_m, k.target_radius_m`,
-  ).all(params) as { player_id: string; technique: Technique; d: number; r: number; n: number; hits: number }[];
   const zones = cachedStatement(
     sqlite,
 
@@ -133,6 +126,12 @@ export function squadWeek(
         warnings: entry.profile?.warnings ?? [],
       };
     });
+    const calibration = calibrationOf(
+      profiles,
+      p.id,
+      weekStart,
+      byTechnique.map((t) => t.technique),
+    );
     const eligible = byTechnique.filter((r) => r.reps >= MIN_REPS_FOR_BEST).sort((a, b) => b.hitRate - a.hitRate || b.reps - a.reps);
     return {
       playerId: p.id,
@@ -146,11 +145,8 @@ export function squadWeek(
       bestTechnique: eligible[0]?.technique ?? null,
       byTechnique,
       reach,
-      calibration: calibrationOf(
-        profiles,
-        p.id,
-        targets.filter((t) => t.player_id === p.id),
-      ),
+      calibration: calibration.points,
+      calibrationPending: calibration.pending,
       loadFlags: loadRows
         .filter((r) => r.player_id === p.id)
         .map((r) => ({ sessionId: r.session_id, startedAt: r.started_at, reps: r.reps, limit })),
@@ -176,24 +172,32 @@ export function squadWeek(
 }
 
 /**
- * Predicted hit rate (mean over the week's repetitions of the reach curve's hit probability for
- * kicks aimed at each repetition's target, at standard conditions) against the observed share on target.
+ * Predicted against observed hits of each technique the player kicked this week: predicted by a profile
+ * fitted on the repetitions *before* the week, each repetition in its own session's conditions
+ * (api/analysis/calibration.ts). Computed by the refresher; techniques still being computed are counted
+ * in `pending`, and a technique with no earlier repetitions has nothing to predict from.
  */
 function calibrationOf(
   profiles: ProfileCache,
   playerId: string,
-  targets: { technique: Technique; d: number; r: number; n: number; hits: number }[],
-): CalibrationPoint[] {
-  const byTechnique = new Map<Technique, typeof targets>();
-  for (const t of targets) byTechnique.set(t.technique, [...(byTechnique.get(t.technique) ?? []), t]);
+  weekStart: string,
+  techniques: readonly Technique[],
+): { points: CalibrationPoint[]; pending: number } {
   const points: CalibrationPoint[] = [];
-  for (const [technique, list] of byTechnique) {
-    const curve = profiles.curve(playerId, technique);
-    if (!curve || curve.distancesM.length === 0) continue;
-    const reps = list.reduce((a, t) => a + t.n, 0);
-    const predicted = list.reduce((a, t) => a + t.n * curveHitProbability(curve, t.d, t.r), 0) / reps;
-    const observed = list.reduce((a, t) => a + t.hits, 0) / reps;
-    points.push({ technique, reps, predictedHitRate: predicted, observedHitRate: observed });
+  let pending = 0;
+  for (const technique of techniques) {
+    const c = profiles.calibration(playerId, technique, weekStart);
+    if (c === 'pending') pending++;
+    else if (c.predictedHits !== null && c.reps > 0) {
+      points.push({
+        technique,
+        reps: c.reps,
+        hits: c.hits,
+        predictedHits: c.predictedHits,
+        predictedHitRate: c.predictedHits / c.reps,
+        observedHitRate: c.hits / c.reps,
+      });
+    }
   }
-  return points;
+  return { points, pending };
 }

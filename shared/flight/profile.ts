@@ -1,8 +1,11 @@
 /**
- * Profile fit: from a player's repetitions of one technique, a normal launch-speed
- * distribution and a normal aim distribution, fitted to interval-censored observations by maximum
- * likelihood with shrinkage toward a prior (a maximum a posteriori fit in which the prior is worth
- * `weightReps` repetitions). Reports how many repetitions it used and the uncertainty of the mean.
+ * Profile fit (model version 3): from a player's repetitions of one technique, the aimed-speed model —
+ * launch speed relative to the speed each repetition's target needed, under a ceiling bounded by the
+ * physiological cap, with each repetition integrated over the launch angle and spin it may have had
+ * (profile-speed-fit.ts) — and a normal aim distribution, both fitted to interval-censored observations
+ * with shrinkage toward a prior by ball size (maximum a posteriori; the prior is worth `weightReps`
+ * repetitions). The profile carries the launch spreads sampling draws, a one-sided ceiling posterior,
+ * standard errors and warnings (profile-warnings.ts).
  */
 
 import { type AimLaunch, type AimedSpeedFit, intendedLog, intentionConditions, NeededSpeeds } from './aimed-speed';

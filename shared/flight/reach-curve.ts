@@ -2,12 +2,12 @@
  * Reach curve: the predicted hit probability of a player's kicks *aimed at* each target distance, for a
  * set of target radii, under given conditions. Because launch speed follows the target (aimed-speed.ts),
  * every distance needs its own Monte Carlo; common random numbers make that cheap and smooth — each
- * sampled kick keeps its speed and aim errors across distances, and the mean launch's landing against
- * launch speed is tabulated once (14 nodes) and interpolated in ln speed by monotone cubics (the spec
- * checks the interpolation against direct flights). Plain JSON, so the server can cache it.
+ * sampled kick keeps its speed, aim, elevation and spin draws across distances, and landings come from a
+ * table over ln speed with a quadratic in each launch deviation (see AimedSamples; the spec checks it
+ * against direct flights). Plain JSON, so the server can cache it.
  */
 
-import { intentionConditions, softMinLog } from './aimed-speed';
+import { CEILING_SOFTNESS, intentionConditions, softMinLog } from './aimed-speed';
 import { DEFAULT_SOLVER_SETTINGS, integrateFlight } from './integrate';
 import { pchip } from './interpolate';
 import { buildModel, resolveConditions } from './model';
@@ -58,6 +58,9 @@ const FINE_POINTS = 256;
 /** Launch dimensions drawn per sample, each tabulated by a quadratic in its deviation from the mean. */
 type Dim = 'elevationDeg' | 'backspinRps' | 'sidespinRps';
 const DIMS: readonly Dim[] = ['elevationDeg', 'backspinRps', 'sidespinRps'];
+/** Columns of the interleaved table: ln ρ, bearing, 4 per dimension, the intended ball's bearing. */
+const TABLE_STRIDE = 2 + 4 * 3 + 1;
+const INTENT_COLUMN = TABLE_STRIDE - 1;
 
 /**
  * Kicks drawn from a profile that can be "aimed" at any distance. An aimed kick is meant as the
@@ -82,12 +85,22 @@ export class AimedSamples {
   private readonly intentLnSpeed: number[] = [];
   private readonly lnMin = Math.log(NODE_MIN_MS);
   private readonly lnStep: number;
-  /** Fine tables over ln speed: aim-off bearing of the intended ball, and per quantity the quadratic coefficients. */
+  /**
+   * Fine tables over ln speed, interleaved per grid point (TABLE_STRIDE columns): ln ρ and bearing of the
+   * mean launch, then per dimension the linear and quadratic coefficients of ln ρ and of the bearing, then
+   * the bearing of the intended ball in intention conditions (its aim-off).
+   */
+  private readonly table: Float64Array;
   private readonly fineIntentAngle: Float64Array;
-  private readonly fineRho: Float64Array[];
-  private readonly fineAngle: Float64Array[];
   /** Per sample: deviations of elevation, backspin, sidespin from the mean. */
   private readonly deviations: Float64Array;
+  /** Per sample: ln ceiling, μ + σ z (the speed error), aim azimuth in radians. */
+  private readonly lnCeilings: Float64Array;
+  private readonly speedBase: Float64Array;
+  private readonly azimuthRad: Float64Array;
+  /** Landings of the last distance filled. */
+  private readonly xs: Float64Array;
+  private readonly ys: Float64Array;
   private readonly actual: ReturnType<typeof resolveConditions>;
 
   constructor(
@@ -162,9 +175,19 @@ export class AimedSamples {
       for (let i = 0; i < FINE_POINTS; i++) out[i] = interpolate(nodeLn, ys, a + i * this.lnStep);
       return out;
     };
-    this.fineIntentAngle = fine(intentAngle);
-    this.fineRho = rhoCoef.map(fine);
-    this.fineAngle = angleCoef.map(fine);
+    const columns = [rhoCoef[0]!, angleCoef[0]!];
+    DIMS.forEach((_, j) => columns.push(rhoCoef[1 + 2 * j]!, rhoCoef[2 + 2 * j]!, angleCoef[1 + 2 * j]!, angleCoef[2 + 2 * j]!));
+    columns.push(intentAngle);
+    const fineColumns = columns.map(fine);
+    this.table = new Float64Array(FINE_POINTS * TABLE_STRIDE);
+    for (let i = 0; i < FINE_POINTS; i++) fineColumns.forEach((c, q) => (this.table[i * TABLE_STRIDE + q] = c[i]!));
+    this.fineIntentAngle = fineColumns[INTENT_COLUMN]!;
+    const a0 = profile.aimedSpeed;
+    this.lnCeilings = Float64Array.from(this.noises, (n) => n.lnCeiling);
+    this.speedBase = Float64Array.from(this.noises, (n) => a0.offsetLogMean + this.speedLogSd * n.zSpeed);
+    this.azimuthRad = Float64Array.from(this.noises, (n) => n.launch.azimuthDeg * DEG);
+    this.xs = new Float64Array(samples);
+    this.ys = new Float64Array(samples);
   }
 
   /** Linear interpolation of a fine table at ln speed. */
@@ -200,38 +223,59 @@ export class AimedSamples {
 
   /** Every sample's landing (x along the line to the target, y to the left) when aimed at `distanceM`, from the table. */
   landingsAt(distanceM: number): { x: number; y: number }[] {
-    const out: { x: number; y: number }[] = [];
-    this.forEachLanding(distanceM, (x, y) => out.push({ x, y }));
-    return out;
+    this.fillLandings(distanceM);
+    return Array.from(this.xs, (x, i) => ({ x, y: this.ys[i]! }));
   }
 
-  /** Calls `visit` with every sample's tabulated landing when aimed at `distanceM` (no allocation per sample). */
-  private forEachLanding(distanceM: number, visit: (x: number, y: number) => void): void {
+  /**
+   * Writes every sample's tabulated landing when aimed at `distanceM` into `xs`, `ys`. The hot loop of the
+   * reach curve (2,000 samples × ~80 distances): typed arrays, the tables interleaved per grid point, and
+   * the smooth minimum with the ceiling skipped where it is exact to 1e-9.
+   */
+  private fillLandings(distanceM: number): void {
     const lnNeed = this.lnNeedAt(distanceM);
-    const dev = this.deviations;
-    const nd = DIMS.length;
-    const u0 = this.lnMin;
-    const step = this.lnStep;
-    for (let i = 0; i < this.noises.length; i++) {
-      const n = this.noises[i]!;
-      const lnSpeed = this.lnSpeedOf(i, lnNeed);
-      let u = (lnSpeed - u0) / step;
-      u = u <= 0 ? 0 : u >= FINE_POINTS - 1 ? FINE_POINTS - 1 - 1e-9 : u;
+    const { deviations: dev, table, lnCeilings, speedBase, azimuthRad, xs, ys } = this;
+    const stride = TABLE_STRIDE;
+    const lnMin = this.lnMin;
+    const inverseStep = 1 / this.lnStep;
+    const last = FINE_POINTS - 1 - 1e-9;
+    const lnCap = this.lnCap;
+    const w = CEILING_SOFTNESS;
+    for (let i = 0; i < xs.length; i++) {
+      // softMinLog(lnNeed, ln ceiling), written out: the correction vanishes 20 widths from the corner.
+      const lnC = lnCeilings[i]!;
+      const lo = lnNeed < lnC ? lnNeed : lnC;
+      const gap = (lnNeed < lnC ? lnC - lnNeed : lnNeed - lnC) / w;
+      const lnIntended = gap > 20 ? lo : lo - w * Math.log1p(Math.exp(-gap));
+      let lnSpeed = lnIntended + speedBase[i]!;
+      if (lnSpeed > lnCap) lnSpeed = lnCap;
+      const u = clampGrid((lnSpeed - lnMin) * inverseStep, last);
       const k = Math.floor(u);
       const t = u - k;
-      const lerp = (tab: Float64Array): number => tab[k]! + t * (tab[k + 1]! - tab[k]!);
-      let lnRho = lerp(this.fineRho[0]!);
-      let angle = lerp(this.fineAngle[0]!);
-      for (let j = 0; j < nd; j++) {
+      const a = k * stride;
+      const b = a + stride;
+      let lnRho = table[a]! + t * (table[b]! - table[a]!);
+      let angle = table[a + 1]! + t * (table[b + 1]! - table[a + 1]!);
+      for (let j = 0; j < 3; j++) {
         const d = dev[3 * i + j]!;
         if (d === 0) continue;
-        lnRho += d * (lerp(this.fineRho[1 + 2 * j]!) + d * lerp(this.fineRho[2 + 2 * j]!));
-        angle += d * (lerp(this.fineAngle[1 + 2 * j]!) + d * lerp(this.fineAngle[2 + 2 * j]!));
+        const o = 2 + 4 * j;
+        const r1 = table[a + o]! + t * (table[b + o]! - table[a + o]!);
+        const r2 = table[a + o + 1]! + t * (table[b + o + 1]! - table[a + o + 1]!);
+        const g1 = table[a + o + 2]! + t * (table[b + o + 2]! - table[a + o + 2]!);
+        const g2 = table[a + o + 3]! + t * (table[b + o + 3]! - table[a + o + 3]!);
+        lnRho += d * (r1 + d * r2);
+        angle += d * (g1 + d * g2);
       }
-      const aimOff = -lerp2(this.fineIntentAngle, softMinLog(lnNeed, n.lnCeiling), u0, step);
-      angle += aimOff + n.launch.azimuthDeg * DEG;
+      // The aim-off for the curl of the ball the player meant to strike.
+      const ui = clampGrid((lnIntended - lnMin) * inverseStep, last);
+      const ki = Math.floor(ui);
+      const aimOff =
+        table[ki * stride + INTENT_COLUMN]! + (ui - ki) * (table[(ki + 1) * stride + INTENT_COLUMN]! - table[ki * stride + INTENT_COLUMN]!);
+      angle += azimuthRad[i]! - aimOff;
       const rho = Math.exp(lnRho);
-      visit(rho * Math.cos(angle), rho * Math.sin(angle));
+      xs[i] = rho * Math.cos(angle);
+      ys[i] = rho * Math.sin(angle);
     }
   }
 
@@ -253,10 +297,15 @@ export class AimedSamples {
     for (let k = 1; k * CURVE_STEP_M <= maxDistance + 1e-9; k++) distancesM.push(Math.round(k * CURVE_STEP_M * 1000) / 1000);
     const r2 = CURVE_RADII_M.map((r) => r * r);
     const counts = new Float64Array(r2.length);
+    const outer = r2[r2.length - 1]!;
     const probability = distancesM.map((d) => {
       counts.fill(0);
-      this.forEachLanding(d, (x, y) => {
-        const miss2 = (x - d) * (x - d) + y * y;
+      this.fillLandings(d);
+      const { xs, ys } = this;
+      for (let i = 0; i < xs.length; i++) {
+        const dx = xs[i]! - d;
+        const miss2 = dx * dx + ys[i]! * ys[i]!;
+        if (miss2 > outer) continue;
         // Radii ascend: the first one that holds the landing holds it for every larger radius too.
         for (let j = 0; j < r2.length; j++) {
           if (miss2 <= r2[j]!) {
@@ -264,7 +313,7 @@ export class AimedSamples {
             break;
           }
         }
-      });
+      }
       let cumulative = 0;
       return Array.from(counts, (c) => {
         cumulative += c;
@@ -275,13 +324,9 @@ export class AimedSamples {
   }
 }
 
-/** Linear interpolation of a fine table at ln speed (module-level, for the hot loop). */
-function lerp2(table: Float64Array, lnSpeed: number, lnMin: number, step: number): number {
-  const u = (lnSpeed - lnMin) / step;
-  if (u <= 0) return table[0]!;
-  if (u >= FINE_POINTS - 1) return table[FINE_POINTS - 1]!;
-  const i = Math.floor(u);
-  return table[i]! + (u - i) * (table[i + 1]! - table[i]!);
+/** A fine-grid coordinate clamped to [0, last]. */
+function clampGrid(u: number, last: number): number {
+  return u <= 0 ? 0 : u >= last ? last : u;
 }
 
 /** The reach curve of `profile` under `conditions`. Same profile, conditions and seed → identical numbers. */

@@ -90,12 +90,20 @@ export interface SquadProfilesResponse {
   players: (ProfileEntry & { displayName: string; shirtNumber: number | null })[];
 }
 
-/** Predicted against observed hit rate of one player and technique over a week. */
+/**
+ * Predicted against observed hits of one player and technique over a week, out of sample: predicted by a
+ * profile fitted on the repetitions before the week, each repetition in its own session's conditions.
+ */
 export interface CalibrationPoint {
   technique: Technique;
   reps: number;
-  /** Mean predicted hit probability of the week's repetitions, from the cached envelope. */
+  /** Repetitions logged on target. */
+  hits: number;
+  /** Sum of the repetitions' predicted hit probabilities (expected hits). */
+  predictedHits: number;
+  /** predictedHits / reps. */
   predictedHitRate: number;
+  /** hits / reps. */
   observedHitRate: number;
 }
 
@@ -124,6 +132,8 @@ export interface SquadWeekPlayer {
     warnings: ProfileWarning[];
   }[];
   calibration: CalibrationPoint[];
+  /** Techniques whose held-out calibration the server is still computing (they join `calibration` when done). */
+  calibrationPending: number;
   /** Sessions this week in which the player passed the club's repetition limit. */
   loadFlags: { sessionId: string; startedAt: string; reps: number; limit: number }[];
 }

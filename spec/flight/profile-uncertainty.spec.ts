@@ -17,6 +17,7 @@ import {
   type LoggedKick,
 } from '../../shared/flight';
 import { launchShift, prepareKick, SpeedBounds } from '../../shared/flight/profile-observations';
+import { AimedSamples } from '../../shared/flight/reach-curve';
 import { drawLaunchNoise } from '../../shared/flight/sampling';
 import { SeededRandom } from '../../shared/flight/random';
 
@@ -168,6 +169,23 @@ describe('profile model 3: launch uncertainty', () => {
       return env.carryM.p90 - env.carryM.p10;
     };
     expect(band(p)).toBeGreaterThan(band({ ...p, sdElevationDeg: 0 }));
+  });
+});
+
+describe('profile model 3: tabulated landings with drawn launches', () => {
+  it('agree with direct flights of the same kicks', () => {
+    // Each kick's own elevation and spin enter the table as a quadratic per dimension; flown directly
+    // (first principles: the same model, no table) the kicks must land close by.
+    const p = fitProfile(onTarget(30, 'lofted', 35, (i) => ({ backspinStep: 2, outcome: i % 4 === 0 ? 'long' : 'on_target' })));
+    const samples = new AimedSamples(p, {}, 300, 4);
+    for (const d of [25, 40]) {
+      const table = samples.landingsAt(d);
+      const flown = samples.flownAt(d);
+      const errors = table.map((t, i) => Math.hypot(t.x - flown[i]!.x, t.y - flown[i]!.y)).sort((a, b) => a - b);
+      // Common practice: well inside a drill target's radius (3 m) for nine kicks in ten.
+      expect(errors[Math.floor(0.5 * errors.length)]!).toBeLessThan(0.3);
+      expect(errors[Math.floor(0.9 * errors.length)]!).toBeLessThan(1);
+    }
   });
 });
 

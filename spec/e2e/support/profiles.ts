@@ -23,12 +23,13 @@ export async function profilesFitted(baseUrl: string, email: string, password = 
   for (;;) {
     let pending = 0;
     for (const squad of squads) {
-      const week = await getJson<{ players: { reach: { pending: boolean }[] }[] }>(
+      const week = await getJson<{ players: { reach: { pending: boolean }[]; calibrationPending: number }[] }>(
         baseUrl,
         token,
         `/api/squads/${squad.id}/week?start=${weekStart}`,
       );
-      pending += week.players.reduce((n, p) => n + p.reach.filter((r) => r.pending).length, 0);
+      // Profiles, and the week's held-out calibrations the refresher computes after them.
+      pending += week.players.reduce((n, p) => n + p.reach.filter((r) => r.pending).length + p.calibrationPending, 0);
     }
     if (pending === 0) return;
     if (Date.now() > deadline) throw new Error(`${pending} profiles still being fitted after ${timeoutMs / 1000} s`);

@@ -148,7 +148,20 @@ export function weekPlayer(
     bestTechnique: reps > 0 ? 'lofted' : null,
     byTechnique: reps > 0 ? [{ technique: 'lofted', reps, hitRate: hitRate ?? 0, medianCarryM: 28 + reps / 10 }] : [],
     reach: [{ technique: 'lofted', reliableReachM: 25 + reps / 10, reachRadiusM: 3, repetitions: 40, pending: false, warnings: [] }],
-    calibration: reps > 0 ? [{ technique: 'lofted', reps, predictedHitRate: 0.5, observedHitRate: hitRate ?? 0 }] : [],
+    calibration:
+      reps > 0
+        ? [
+            {
+              technique: 'lofted',
+              reps,
+              hits: Math.round((hitRate ?? 0) * reps),
+              predictedHits: 0.5 * reps,
+              predictedHitRate: 0.5,
+              observedHitRate: hitRate ?? 0,
+            },
+          ]
+        : [],
+    calibrationPending: 0,
     loadFlags: [],
     ...extra,
   };
