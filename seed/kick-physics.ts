@@ -7,11 +7,11 @@
 import { softMinLog } from '../shared/flight/aimed-speed';
 import { BALL_SIZES, SIDESPIN_STEP_RPS, SPIN_STEP_RPS, simulateKick, type FlightConditions } from '../shared/flight/index';
 import { pchip } from '../shared/flight/interpolate';
+import { BACKSPIN_STEPS, SIDESPIN_STEPS, type Outcome, type Technique } from '../shared/vocabulary';
 import type { Prng } from './prng';
-import { kickingAt, type Technique, type TrueKicking, type TrueTechnique } from './truth';
+import { kickingAt, type TrueKicking, type TrueTechnique } from './truth';
 
-/** A repetition's logged outcome (DESIGN §3). */
-export type Outcome = 'on_target' | 'short' | 'long' | 'left' | 'right' | 'blocked' | 'over';
+export type { Outcome };
 
 /** Distance of the wall from the ball, m (IFAB Laws of the Game, Law 13). */
 const WALL_DISTANCE_M = 9.15;
@@ -199,10 +199,6 @@ export function freeKickOutcome(rep: FlownRepetition, technique: Technique, wall
   return null;
 }
 
-/** Backspin steps −3…+3 and sidespin steps −2…+2 with their rates (the product's defaults). */
-const BACK_STEPS = [-3, -2, -1, 0, 1, 2, 3] as const;
-const SIDE_STEPS = [-2, -1, 0, 1, 2] as const;
-
 /** Spread of a coach's by-eye spin judgement, rev/s: 1 rev/s plus 15 % of the rate (common practice: about a step). */
 function eyeSdRps(rps: number): number {
   return 1 + 0.15 * Math.abs(rps);
@@ -219,8 +215,8 @@ function stepByEye<S extends number>(prng: Prng, rps: number, steps: readonly S[
 /** The spin steps a coach logs for a launch, judged by eye. */
 export function spinStepsByEye(prng: Prng, launch: TrueLaunch): { backspinStep: number; sidespinStep: number } {
   return {
-    backspinStep: stepByEye(prng, launch.backspinRps, BACK_STEPS, SPIN_STEP_RPS),
-    sidespinStep: stepByEye(prng, launch.sidespinRps, SIDE_STEPS, SIDESPIN_STEP_RPS),
+    backspinStep: stepByEye(prng, launch.backspinRps, BACKSPIN_STEPS, SPIN_STEP_RPS),
+    sidespinStep: stepByEye(prng, launch.sidespinRps, SIDESPIN_STEPS, SIDESPIN_STEP_RPS),
   };
 }
 
@@ -240,6 +236,3 @@ export function measureLaunch(prng: Prng, launch: TrueLaunch): LaunchMeasurement
     spinRps: round1(Math.min(30, Math.max(0.1, Math.hypot(launch.backspinRps, launch.sidespinRps) + 0.8 * prng.normal()))),
   };
 }
-
-/** Which technique each row of kicks practised, for the session generator. */
-export type { Technique };

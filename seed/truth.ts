@@ -12,14 +12,11 @@
  * per-technique individuality; ceilings follow maximal instep kicks of 26–35 m/s for adults (Andersen &
  * Dörge 2011, Scand. J. Med. Sci. Sports 21:79) and lower for youth on smaller balls (common practice).
  */
+import { TECHNIQUES, type Technique } from '../shared/vocabulary';
 import { Prng } from './prng';
 import { PLAYERS, type ProgressProfile, type SquadKey } from './roster';
 
-/** Kicking techniques a drill can practise (the schema's enum). */
-export type Technique = 'driven' | 'lofted' | 'chipped' | 'curled';
-
-/** All techniques, in a fixed order (iteration order matters for determinism). */
-export const TECHNIQUES: readonly Technique[] = ['driven', 'lofted', 'chipped', 'curled'];
+export { TECHNIQUES, type Technique };
 
 /** One player's true kicking of one technique at one moment (dominant foot unless asked otherwise). */
 export interface TrueKicking {
