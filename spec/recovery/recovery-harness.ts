@@ -8,13 +8,13 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { loggedKickOf, type SessionConditions, type StoredKick } from '../../../api/analysis/flight-inputs';
-import { openDatabase, type Db } from '../../../api/db/client';
-import type { LoggedKick, Technique } from '../../../shared/flight/index';
-import { DEMO_PASSWORD, demoPeriod, demoPlayerId, demoTruths, seedDemo } from '../../../seed/scenario';
-import { PLAYERS, SQUADS, type SquadKey } from '../../../seed/roster';
-import type { PlayerTruth } from '../../../seed/truth';
-import type { RepetitionMoment } from '../../../seed/truth-reach';
+import { loggedKickOf, type SessionConditions, type StoredKick } from '../../api/analysis/flight-inputs';
+import { openDatabase, type Db } from '../../api/db/client';
+import type { LoggedKick, Technique } from '../../shared/flight/index';
+import { DEMO_PASSWORD, demoPeriod, demoPlayerId, demoTruths, seedDemo } from '../../seed/scenario';
+import { PLAYERS, SQUADS, type SquadKey } from '../../seed/roster';
+import type { PlayerTruth } from '../../seed/truth';
+import type { RepetitionMoment } from '../../seed/truth-reach';
 import bcrypt from 'bcryptjs';
 
 /** The load date of every recovery spec (a fixed date: the same demo every run). */
