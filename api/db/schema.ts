@@ -37,6 +37,12 @@ export const clubs = sqliteTable('clubs', {
    */
   timingBiasS: real('timing_bias_s').notNull().default(0.2),
   timingSdS: real('timing_sd_s').notNull().default(0.08),
+  /** The unit the club's screens, charts, exports and mail show distances in ('m' or 'yd'); storage stays metres. */
+  distanceUnit: text('distance_unit', { enum: ['m', 'yd'] })
+    .notNull()
+    .default('m'),
+  /** BCP 47 tag for the club's numbers, dates and times (decimal mark, clock, first day of the week). */
+  locale: text('locale').notNull().default('en-GB'),
   createdAt: createdAt(),
   updatedAt: updatedAt(),
 });

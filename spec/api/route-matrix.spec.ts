@@ -29,7 +29,7 @@ const MATRIX: Record<string, Who[] | 'public'> = {
   'GET /api/me': ALL,
   'GET /api/me/digest-opt-in': ['player'],
   'PUT /api/me/digest-opt-in': ['player'],
-  'GET /api/club/settings': STAFF,
+  'GET /api/club/settings': ALL,
   'PUT /api/club/settings': ['admin'],
   'GET /api/squads': ALL,
   'GET /api/squads/:id/week': STAFF,

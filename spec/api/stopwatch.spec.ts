@@ -100,7 +100,7 @@ describe('hang-time stopwatch: kicks, club timing settings and spin estimates', 
     const initial = await request(t.app).get('/api/club/settings').set(auth(coach));
     expect(initial.status).toBe(200);
     // Product defaults (common practice): 0.2 s bias, 0.08 s spread (migration 0004).
-    expect(initial.body).toEqual({ timingBiasS: 0.2, timingSdS: 0.08 });
+    expect(initial.body).toEqual({ timingBiasS: 0.2, timingSdS: 0.08, distanceUnit: 'm', locale: 'en-GB' });
     expect((await request(t.app).put('/api/club/settings').set(auth(coach)).send({ timingBiasS: 0.1, timingSdS: 0.05 })).status).toBe(403);
     const bad = await request(t.app).put('/api/club/settings').set(auth(admin)).send({ timingBiasS: 0.1, timingSdS: 0.9 });
     expect(bad.status).toBe(400);
@@ -111,7 +111,12 @@ describe('hang-time stopwatch: kicks, club timing settings and spin estimates', 
     expect(JSON.stringify(missing.body)).toContain('timingBiasS');
     const ok = await request(t.app).put('/api/club/settings').set(auth(admin)).send({ timingBiasS: 0.15, timingSdS: 0.05 });
     expect(ok.status).toBe(200);
-    expect((await request(t.app).get('/api/club/settings').set(auth(coach))).body).toEqual({ timingBiasS: 0.15, timingSdS: 0.05 });
+    expect((await request(t.app).get('/api/club/settings').set(auth(coach))).body).toEqual({
+      timingBiasS: 0.15,
+      timingSdS: 0.05,
+      distanceUnit: 'm',
+      locale: 'en-GB',
+    });
     await request(t.app).put('/api/club/settings').set(auth(admin)).send({ timingBiasS: 0.2, timingSdS: 0.08 });
   });
 

@@ -6,6 +6,7 @@ import { GuardianLinks } from './guardian-links';
 import { InviteForm } from './invite-form';
 import { OutboxView } from './outbox-view';
 import { StopwatchTiming } from './stopwatch-timing';
+import { UnitsLocale } from './units-locale';
 
 /**
  * Club admin's sections under `/admin`. The whole set is one lazy chunk (loaded from
@@ -23,6 +24,7 @@ export const ADMIN_ROUTES: Routes = [
       { path: 'outbox', title: 'Outbox · Club admin · Loftline', component: OutboxView },
       { path: 'mail', title: 'Captured mail · Club admin · Loftline', component: CapturedMail },
       { path: 'stopwatch', title: 'Stopwatch timing · Club admin · Loftline', component: StopwatchTiming },
+      { path: 'units', title: 'Units and locale · Club admin · Loftline', component: UnitsLocale },
     ],
   },
 ];

@@ -15,6 +15,7 @@ const SECTIONS: readonly AdminSection[] = [
   { path: 'outbox', label: 'Outbox' },
   { path: 'mail', label: 'Captured mail' },
   { path: 'stopwatch', label: 'Stopwatch timing' },
+  { path: 'units', label: 'Units and locale' },
 ];
 
 /**
@@ -29,7 +30,8 @@ const SECTIONS: readonly AdminSection[] = [
     <header class="admin__header">
       <h1 class="admin__title">Club admin</h1>
       <p class="admin__subtitle">
-        Guardian links and consent, invitations, training grounds, the club’s outgoing mail and the Pitchside stopwatch timing.
+        Guardian links and consent, invitations, training grounds, the club’s outgoing mail, the Pitchside stopwatch timing, and the club’s
+        units and locale.
       </p>
     </header>
     <nav mat-tab-nav-bar [tabPanel]="panel" aria-label="Club admin sections" mat-stretch-tabs="false">

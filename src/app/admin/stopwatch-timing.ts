@@ -77,7 +77,10 @@ export class StopwatchTiming implements OnInit {
 
   async ngOnInit(): Promise<void> {
     await this.store.refresh();
-    if (!this.form.dirty) this.form.setValue(this.store.settings());
+    if (!this.form.dirty) {
+      const { timingBiasS, timingSdS } = this.store.settings();
+      this.form.setValue({ timingBiasS, timingSdS });
+    }
   }
 
   protected async save(): Promise<void> {

@@ -13,6 +13,7 @@ import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/rou
 import { map } from 'rxjs';
 import { ROLE_LABELS } from '../../../shared/roles';
 import { AuthSession } from '../core/auth-session';
+import { ClubFormat } from '../core/club-format';
 import { NAV_ITEMS, navItemsFor } from '../core/nav-items';
 import { ProfileStore } from '../core/profile-store';
 import { SyncQueue } from '../core/sync-queue';
@@ -97,6 +98,8 @@ export class AppShell {
   constructor() {
     // The club name in the bar comes from GET /api/me; the stored one shows until it answers.
     inject(ProfileStore).ensureLoaded();
+    // The club's distance unit and locale (cached on the device for offline use) for every screen.
+    void inject(ClubFormat).refresh();
   }
 
   protected signOut(): void {
