@@ -17,7 +17,7 @@ import { settingsOfClub } from '../club/club.service';
 import { metresTo, type DistanceUnit } from '../../shared/units';
 
 const isoDate = (name: string) => z.iso.date({ error: `${name} must be a date (YYYY-MM-DD)` });
-const kicksQuery = z
+export const kicksQuery = z
   .object({ squadId: z.uuid().optional(), playerId: z.uuid().optional(), from: isoDate('from').optional(), to: isoDate('to').optional() })
   .refine((q) => Boolean(q.squadId) !== Boolean(q.playerId), { error: 'give exactly one of squadId or playerId', path: ['squadId'] });
 

@@ -18,6 +18,9 @@ const ALL: Who[] = [...ROLES];
  */
 const MATRIX: Record<string, Who[] | 'public'> = {
   'GET /api/health': 'public',
+  'GET /api/openapi.json': 'public',
+  'GET /api/reference': 'public',
+  'GET /api/reference.js': 'public',
   'POST /api/auth/login': 'public',
   'POST /api/auth/refresh': 'public',
   'POST /api/auth/logout': 'public',

@@ -1,4 +1,16 @@
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal, untracked, viewChild } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  DestroyRef,
+  computed,
+  effect,
+  inject,
+  input,
+  signal,
+  untracked,
+  viewChild,
+} from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
@@ -9,6 +21,7 @@ import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { DrillSuggestion } from '../core/drill-suggestion';
 import { Router } from '@angular/router';
 import { kickDataSchema, type Outcome } from '../../../shared/schemas/sync';
+import { AppUpdate } from '../core/app-update';
 import { ClubFormat } from '../core/club-format';
 import { ClubSettingsStore } from '../core/club-settings-store';
 import { KickStore } from '../core/kick-store';
@@ -140,7 +153,24 @@ export class KickLogger {
     return drill?.technique === 'curled' || (drill?.sidespinStep ?? 0) !== 0 || this.sidespinStep() !== 0;
   });
 
+  /** Whether a repetition is being entered here: a carry or stopwatch reading typed, or a save in flight. */
+  private readonly saving = signal(false);
+  private readonly carryText = toSignal(this.carry.valueChanges, { initialValue: '' });
+  private readonly hangText = toSignal(this.hangTime.valueChanges, { initialValue: '' });
+  private readonly midEntry = computed(() => this.saving() || this.carryText().trim() !== '' || this.hangText().trim() !== '');
+
   constructor() {
+    // A new version's reload offer waits while a repetition is half entered (AppUpdate).
+    const update = inject(AppUpdate);
+    let release: (() => void) | null = null;
+    effect(() => {
+      if (this.midEntry() && release === null) release = update.hold();
+      if (!this.midEntry() && release !== null) {
+        release();
+        release = null;
+      }
+    });
+    inject(DestroyRef).onDestroy(() => release?.());
     // A new drill resets the spin to its default.
     effect(() => {
       const drill = this.drill();
@@ -175,6 +205,7 @@ export class KickLogger {
       return;
     }
     const carryM = optionalMetres(this.carry.value, this.fmt().distanceUnit);
+    this.saving.set(true);
     const hangTimeS = timed ? optionalMetres(this.hangTime.value) : null;
     const backspinStep = this.backspinStep();
     const sidespinStep = this.sidespinStep();
@@ -203,6 +234,8 @@ export class KickLogger {
       this.statusText.set(`Saved · ${this.playerName(player.id)} · ${OUTCOME_LABELS[outcome]}${time}`);
     } catch (error) {
       this.failure.set(describeLocalError(error));
+    } finally {
+      this.saving.set(false);
     }
   }
 

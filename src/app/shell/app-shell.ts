@@ -19,6 +19,7 @@ import { ProfileStore } from '../core/profile-store';
 import { SyncQueue } from '../core/sync-queue';
 import { ThemePreference } from '../core/theme-preference';
 import { LoftlineMark } from '../ui/loftline-mark';
+import { UpdateBanner } from './update-banner';
 import { SignOutWarning, type SignOutWarningChoice, type SignOutWarningData } from './sign-out-warning';
 
 /** From this width on the navigation sits in a side nav; below it, in a bottom bar for thumbs. */
@@ -47,6 +48,7 @@ const BOTTOM_BAR_SLOTS = 4;
     RouterLinkActive,
     RouterOutlet,
     LoftlineMark,
+    UpdateBanner,
   ],
   templateUrl: './app-shell.html',
   styleUrl: './app-shell.scss',
