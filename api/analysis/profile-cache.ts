@@ -4,7 +4,6 @@
  * week, planner ranking) answer from the cache and let a background refresher catch up in
  * small slices so the event loop is never blocked for long.
  */
-import { and, eq } from 'drizzle-orm';
 import { Worker } from 'node:worker_threads';
 import { CURVE_SAMPLES, fitProfile, reachCurve, reliableReachM, type KickProfile, type ReachCurve } from '../../shared/flight/index';
 import type { ProfileEntry } from '../../shared/schemas/analysis';

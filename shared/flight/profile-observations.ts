@@ -16,7 +16,8 @@ import type { LoggedKick } from './profile-types';
 import type { BackspinStep, FlightConditions, KickOutcome, SidespinStep, Technique } from './types';
 import { requireInHalfOpen, requireInRange, requireInteger, requireOneOf } from './validate';
 
-const OUTCOMES: readonly KickOutcome[] = ['on_target', 'short', 'long', 'left', 'right', 'blocked', 'over'];
+import { OUTCOMES } from '../vocabulary';
+
 const DEG = Math.PI / 180;
 
 /** A censored observation: lo = hi is a point; infinite ends are one-sided bounds. */

@@ -4,17 +4,13 @@
  * its height at rest, so z = 0 is ground contact, the ball's underside is at z and its top at z + 2r.
  */
 
-/** Kicking technique of a repetition. */
-export type Technique = 'driven' | 'lofted' | 'chipped' | 'curled';
+import type { Outcome } from '../vocabulary';
+
+/** Technique, spin steps: the product's vocabulary (docs/design.md §3), defined once. */
+export type { BackspinStep, SidespinStep, Technique } from '../vocabulary';
 
 /** Outcome of a repetition as logged on Pitchside. */
-export type KickOutcome = 'on_target' | 'short' | 'long' | 'left' | 'right' | 'blocked' | 'over';
-
-/** Seven-step backspin scale: + = backspin, − = topspin. */
-export type BackspinStep = -3 | -2 | -1 | 0 | 1 | 2 | 3;
-
-/** Five-step sidespin scale: + = curls left. */
-export type SidespinStep = -2 | -1 | 0 | 1 | 2;
+export type KickOutcome = Outcome;
 
 /** Ball mass and radius. */
 export interface BallSpec {

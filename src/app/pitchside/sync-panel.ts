@@ -4,9 +4,9 @@ import { MatIconModule } from '@angular/material/icon';
 import type { CachedPlayer, ConflictNotice, OutboxEntry } from '../core/loftline-db';
 import { ClubFormat } from '../core/club-format';
 import { StorageStatus } from '../core/storage-status';
-import { SyncIssues } from '../core/sync-issues';
-import { SyncQueue } from '../core/sync-queue';
-import { OUTCOME_LABELS } from './pitchside-labels';
+import { SyncIssues } from '../core/sync/sync-issues';
+import { SyncQueue } from '../core/sync/sync-queue';
+import { OUTCOME_LABELS } from '../../../shared/vocabulary';
 import type { Outcome } from '../../../shared/schemas/sync';
 import type { QuantityFormat } from '../../../shared/quantity-format';
 

@@ -12,7 +12,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
 import { map } from 'rxjs';
 import { GOAL_WIDTH_M, TECHNIQUES, type Technique } from '../../../shared/flight';
-import { AnalysisCache } from '../core/analysis-cache';
+import { AnalysisCache } from '../core/analysis/analysis-cache';
 import { LoadFailure } from '../ui/load-failure';
 import { SliderField } from '../ui/slider-field';
 import { TrajectoryChart, type TrajectoryLandmarks, type TrajectoryTrace } from '../ui/trajectory-chart';

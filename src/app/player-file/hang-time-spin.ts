@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input, inject } from '@angular/core';
 import type { SpinEstimateSkip, SpinEstimatesResponse, TechniqueSpinEstimate } from '../../../shared/schemas/analysis';
-import { TECHNIQUE_LABELS } from '../ui/charts/kick-labels';
+import { TECHNIQUE_LABELS } from '../../../shared/vocabulary';
 import { ClubFormat } from '../core/club-format';
 
 const SKIP_WORDS: Record<SpinEstimateSkip, string> = {

@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, input, inject } from '@an
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { curveHitProbability } from '../../../shared/flight';
 import type { PlayerKick } from '../../../shared/schemas/analysis';
-import { TECHNIQUE_LABELS } from '../ui/charts/kick-labels';
+import { TECHNIQUE_LABELS } from '../../../shared/vocabulary';
 import { ReachDiagram, type ReachTarget } from '../ui/charts/reach-diagram';
 import { drillTargets } from './player-file-view';
 import { type TechniqueReach, reachHeadline, reachUncertainty } from './technique-reach';

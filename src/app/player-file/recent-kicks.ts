@@ -9,7 +9,7 @@ import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableDataSource, MatTableModule } from '@angular/material/table';
 import type { QuantityFormat } from '../../../shared/quantity-format';
 import type { CarryBasis, PlayerKick } from '../../../shared/schemas/analysis';
-import { OUTCOME_LABELS, TECHNIQUE_LABELS, backspinLabel, sidespinLabel } from '../ui/charts/kick-labels';
+import { OUTCOME_LABELS, TECHNIQUE_LABELS, backspinLabel, sidespinLabel } from '../../../shared/vocabulary';
 import { ClubFormat } from '../core/club-format';
 
 /** One row of the table: the kick plus the words the table shows and filters on. */

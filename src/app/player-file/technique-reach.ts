@@ -2,7 +2,7 @@ import type { ProfileEntry } from '../../../shared/schemas/analysis';
 import type { Technique } from '../../../shared/schemas/sync';
 import type { QuantityFormat } from '../../../shared/quantity-format';
 import { formatRange } from '../ui/charts/chart-format';
-import type { ReachAnalysis } from './reach-envelopes';
+import type { ReachAnalysis } from '../core/analysis/reach-envelopes';
 
 /** Where one technique's reach stands on the Player file. */
 export type TechniqueReach =

@@ -1,4 +1,4 @@
-import { FIXTURE_IDS, fixtureWeek } from '../player-file/analysis-spec-fixtures';
+import { FIXTURE_IDS, fixtureWeek } from '../core/analysis/spec-fixtures';
 import { busiestTechniqueOfWeek, changeMark, csvCell, csvFileName, squadRows, squadWeekCsv } from './squad-week-rows';
 
 describe('Squad week rows', () => {

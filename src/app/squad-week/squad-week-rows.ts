@@ -1,8 +1,8 @@
 import { DISTANCE_UNIT_WORDS, metresTo, type DistanceUnit } from '../../../shared/units';
 import type { CarryBasis, SquadWeek, SquadWeekPlayer } from '../../../shared/schemas/analysis';
 import type { Technique } from '../../../shared/schemas/sync';
-import type { NextTargetResult } from '../player-file/next-target';
-import { TECHNIQUE_LABELS } from '../ui/charts/kick-labels';
+import type { NextTargetResult } from '../core/analysis/next-target';
+import { TECHNIQUE_LABELS } from '../../../shared/vocabulary';
 
 /** Where a player's next target for the chosen technique stands. */
 export type NextTargetState =
