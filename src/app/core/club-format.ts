@@ -3,6 +3,7 @@ import { Injectable, computed, effect, inject } from '@angular/core';
 import { QuantityFormat, parseDecimal } from '../../../shared/quantity-format';
 import { distanceToM } from '../../../shared/units';
 import { ClubSettingsStore } from './club-settings-store';
+import { setDateLabelLocale } from './date-labels';
 
 /**
  * The club's way of writing numbers, distances, dates and times, for every screen: a signal holding the
@@ -25,7 +26,11 @@ export class ClubFormat {
 
   constructor() {
     // Screen readers and the browser's own widgets (number spinners, hyphenation) follow the page language.
-    effect(() => this.document.documentElement.setAttribute('lang', this.format().locale));
+    effect(() => {
+      const locale = this.format().locale;
+      this.document.documentElement.setAttribute('lang', locale);
+      setDateLabelLocale(locale);
+    });
   }
 
   /** Fetches the club's settings (a failure keeps the cached ones). */

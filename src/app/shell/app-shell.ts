@@ -1,5 +1,5 @@
 import { BreakpointObserver } from '@angular/cdk/layout';
-import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
@@ -102,6 +102,23 @@ export class AppShell {
     inject(ProfileStore).ensureLoaded();
     // The club's distance unit and locale (cached on the device for offline use) for every screen.
     void inject(ClubFormat).refresh();
+    // A printed sheet carries every chart's table: open the "Show as table" alternatives while printing.
+    const opened: HTMLDetailsElement[] = [];
+    const openTables = (): void => {
+      for (const d of Array.from(document.querySelectorAll<HTMLDetailsElement>('details.ll-chart__alt:not([open])'))) {
+        d.open = true;
+        opened.push(d);
+      }
+    };
+    const closeTables = (): void => {
+      for (const d of opened.splice(0)) d.open = false;
+    };
+    window.addEventListener('beforeprint', openTables);
+    window.addEventListener('afterprint', closeTables);
+    inject(DestroyRef).onDestroy(() => {
+      window.removeEventListener('beforeprint', openTables);
+      window.removeEventListener('afterprint', closeTables);
+    });
   }
 
   protected signOut(): void {
