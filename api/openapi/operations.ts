@@ -66,6 +66,14 @@ const ALL: readonly Role[] = ROLES;
 
 /** The documented operations (the reference page lists them in this order). */
 export const OPERATIONS: readonly Operation[] = [
+  {
+    method: 'GET',
+    path: '/api/ready',
+    tag: 'Service',
+    summary: 'Whether the server is ready to serve',
+    access: 'public',
+    answer: anyObjectSchema,
+  },
   { method: 'GET', path: '/api/health', tag: 'Service', summary: 'Whether the server is up', access: 'public', answer: healthSchema },
   {
     method: 'GET',

@@ -21,6 +21,7 @@ const MATRIX: Record<string, Who[] | 'public'> = {
   'GET /api/openapi.json': 'public',
   'GET /api/reference': 'public',
   'GET /api/reference.js': 'public',
+  'GET /api/ready': 'public',
   'POST /api/auth/login': 'public',
   'POST /api/auth/refresh': 'public',
   'POST /api/auth/logout': 'public',

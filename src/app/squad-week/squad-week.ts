@@ -158,7 +158,11 @@ export class SquadWeek {
     const reps = marks.reduce((n, m) => n + m.reps, 0);
     const predicted = marks.reduce((n, m) => n + m.predicted * m.reps, 0) / reps;
     const observed = marks.reduce((n, m) => n + m.observed * m.reps, 0) / reps;
-    return `${marks.length} players: predicted ${this.fmt().percent(predicted)} hits on average, observed ${this.fmt().percent(observed)}.`;
+    const f = this.fmt();
+    return (
+      `${marks.length} players, ${reps} repetitions: predicted ${f.percent(predicted)} hits ` +
+      `(${f.fixed(predicted * reps, 1)}), observed ${f.percent(observed)} (${Math.round(observed * reps)}).`
+    );
   });
 
   protected readonly cacheNote = computed(() => {

@@ -147,7 +147,7 @@ export function weekPlayer(
     hitRateChange: hitRate === null || previousHitRate === null ? null : hitRate - previousHitRate,
     bestTechnique: reps > 0 ? 'lofted' : null,
     byTechnique: reps > 0 ? [{ technique: 'lofted', reps, hitRate: hitRate ?? 0, medianCarryM: 28 + reps / 10 }] : [],
-    reach: [{ technique: 'lofted', reliableReachM: 25 + reps / 10, reachRadiusM: 3, repetitions: 40, pending: false }],
+    reach: [{ technique: 'lofted', reliableReachM: 25 + reps / 10, reachRadiusM: 3, repetitions: 40, pending: false, warnings: [] }],
     calibration: reps > 0 ? [{ technique: 'lofted', reps, predictedHitRate: 0.5, observedHitRate: hitRate ?? 0 }] : [],
     loadFlags: [],
     ...extra,

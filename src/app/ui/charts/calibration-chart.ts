@@ -89,8 +89,9 @@ export class CalibrationChart {
       id: m.id,
       label: m.label,
       reps: m.reps,
-      predicted: this.fmt().percent(m.predicted),
-      observed: this.fmt().percent(m.observed),
+      // Counts beside the rates: a 100 % from three kicks is not a 100 % from thirty.
+      predicted: `${this.fmt().percent(m.predicted)} (${this.fmt().fixed(m.predicted * m.reps, 1)} of ${m.reps})`,
+      observed: `${this.fmt().percent(m.observed)} (${Math.round(m.observed * m.reps)} of ${m.reps})`,
     })),
   );
 
