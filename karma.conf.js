@@ -70,6 +70,11 @@ export default function karmaConfig(config) {
     },
     browserNoActivityTimeout: 120000,
     captureTimeout: 120000,
+    // On a loaded machine the headless browser can miss socket pings for seconds while it parses the
+    // test bundle; wait for it to reconnect instead of failing the whole run (karma's default is 2 s).
+    browserDisconnectTimeout: 60000,
+    browserDisconnectTolerance: 2,
+    pingTimeout: 60000,
     singleRun: true,
     restartOnFileChange: false,
   });

@@ -27,7 +27,7 @@ import { Mailer } from './mail/mailer';
 import { AuthService } from './auth/auth.service';
 import { clubRouter } from './club/club.router';
 import { authRouter } from './auth/auth.router';
-import { createAuthMiddleware } from './auth/passport';
+import { createAuthMiddleware, requireRole } from './auth/passport';
 import type { AppConfig } from './config';
 import type { Db } from './db/client';
 import { cachedStatement } from './db/statements';
@@ -38,6 +38,7 @@ import { playersRouter } from './players/players.router';
 import { attachScope } from './scope/scope.middleware';
 import { squadsRouter } from './squads/squads.router';
 import { syncRouter } from './sync/sync.router';
+import { openApiRouter } from './openapi/openapi.router';
 import { OpenMeteoClient, type WeatherSource } from './weather/open-meteo-client';
 
 /** What the app needs from the outside world. */
@@ -126,11 +127,14 @@ export function createApp(deps: AppDeps): Express {
   });
   const auth = new AuthService(db, config);
   const accounts = new AccountsService(db, config, mailer);
+  // The API reference: public outside production, admins only in production (mounted after sign-in below).
+  if (config.env !== 'production') api.use(openApiRouter(config));
   api.use('/auth', authRouter(auth, accounts, config));
   api.use('/digests', unsubscribeRouter(db, config));
 
   const requireAuth = createAuthMiddleware(db, config);
   api.use(requireAuth, attachScope(db));
+  if (config.env === 'production') api.use(openApiRouter(config, requireRole('admin')));
   api.use('/me', meRouter(db));
   api.use('/club', clubRouter(db));
   api.use('/squads', squadsRouter(db, profiles));

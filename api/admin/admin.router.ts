@@ -11,7 +11,7 @@ import { mailOutbox, users } from '../db/schema';
 import { parseOrThrow } from '../errors';
 import { scopeOf } from '../scope/scope.middleware';
 
-const usersQuerySchema = z.object({ role: z.enum(ROLES, { error: `role must be one of ${ROLES.join(', ')}` }).optional() });
+export const usersQuerySchema = z.object({ role: z.enum(ROLES, { error: `role must be one of ${ROLES.join(', ')}` }).optional() });
 
 /** Builds the admin router (behind authentication and scope). */
 export function adminRouter(db: Db, accounts: AccountsService): Router {

@@ -43,6 +43,12 @@ export const clubs = sqliteTable('clubs', {
    * default (the Goff & Carré 2010 ball). Balls differ (Asai et al. 2007: critical Re 2.2–3.0 × 10⁵).
    */
   dragCrisisRe: real('drag_crisis_re'),
+  /** The unit the club's screens, charts, exports and mail show distances in ('m' or 'yd'); storage stays metres. */
+  distanceUnit: text('distance_unit', { enum: ['m', 'yd'] })
+    .notNull()
+    .default('m'),
+  /** BCP 47 tag for the club's numbers, dates and times (decimal mark, clock, first day of the week). */
+  locale: text('locale').notNull().default('en-GB'),
   createdAt: createdAt(),
   updatedAt: updatedAt(),
 });

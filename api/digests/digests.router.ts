@@ -13,7 +13,9 @@ import { firstNameOf } from '../guardians/guardians.service';
 import type { DigestJob } from './digests.service';
 import { verifyUnsubscribeToken } from './unsubscribe-token';
 
-const runSchema = z.strictObject({ weekStart: z.iso.date({ error: 'weekStart must be a date (YYYY-MM-DD)' }).optional() }).default({});
+export const runSchema = z
+  .strictObject({ weekStart: z.iso.date({ error: 'weekStart must be a date (YYYY-MM-DD)' }).optional() })
+  .default({});
 
 /** Public part: `POST /api/digests/unsubscribe?token=` (RFC 8058 one-click; idempotent). */
 export function unsubscribeRouter(db: Db, config: AppConfig): Router {

@@ -13,6 +13,8 @@ import { firstNameOf } from '../guardians/guardians.service';
 import type { Mailer } from '../mail/mailer';
 import { familyDigestMail, squadWeekMail } from '../mail/templates';
 import { addDays, isAdultOn, isoWeekStart } from '../../shared/dates';
+import { clubFormat } from '../club/club.service';
+import type { QuantityFormat } from '../../shared/quantity-format';
 import { barChartPng } from './chart-png';
 import { unsubscribeToken } from './unsubscribe-token';
 
@@ -65,6 +67,8 @@ export class DigestJob {
 
   private queueFamily(clubId: string, weekStart: string): { sent: number; skipped: number } {
     const club = this.db.select().from(clubs).where(eq(clubs.id, clubId)).get();
+    // The mail speaks the club's units and locale ("34,3 yd", "23. Nov. 2026").
+    const f = clubFormat(this.db, clubId);
     const weekEnd = addDays(weekStart, 7);
     const links = this.db
       .select({ link: guardianLinks, player: players, guardian: users })
@@ -96,7 +100,7 @@ export class DigestJob {
             : current.hitRate < prevRate - 0.03
               ? 'That is a little down on the previous weeks.'
               : 'That is about the same as the previous weeks.';
-      const highlight = this.highlight(player.id, weekStart, weekEnd);
+      const highlight = this.highlight(player.id, weekStart, weekEnd, f);
       const token = unsubscribeToken(this.config.jwtSecret, link.id);
       const oneClick = `${this.config.publicUrl}/api/digests/unsubscribe?token=${token}`;
       const visible = `${this.config.publicUrl}/unsubscribe?token=${token}`;
@@ -105,9 +109,9 @@ export class DigestJob {
         guardianName: guardian.displayName,
         firstName: firstNameOf(player.displayName),
         clubName: club?.name ?? 'your club',
-        weekLabel: weekStart,
+        weekLabel: f.day(weekStart, true),
         reps: current.reps,
-        hitRatePct: current.hitRate === null ? null : Math.round(current.hitRate * 100),
+        hitRate: current.hitRate === null ? null : f.percent(current.hitRate),
         trend,
         highlight,
         chartCid,
@@ -151,19 +155,19 @@ export class DigestJob {
     return out;
   }
 
-  private highlight(playerId: string, from: string, to: string): string | null {
+  private highlight(playerId: string, from: string, to: string, f: QuantityFormat): string | null {
     const longest = this.db.$client
       .prepare(
         `SELECT technique, MAX(carry_m) AS carry FROM kicks WHERE player_id = ? AND deleted_at IS NULL AND outcome = 'on_target' AND carry_m IS NOT NULL AND recorded_at >= ? AND recorded_at < ?`,
       )
       .get(playerId, from, to) as { technique: string | null; carry: number | null };
-    if (longest.carry !== null && longest.technique) return `Longest ${longest.technique} kick on target: ${longest.carry} m`;
+    if (longest.carry !== null && longest.technique) return `Longest ${longest.technique} kick on target: ${f.distance(longest.carry)}`;
     const best = this.db.$client
       .prepare(
         `SELECT technique, COUNT(*) AS n, AVG(outcome = 'on_target') AS rate FROM kicks WHERE player_id = ? AND deleted_at IS NULL AND recorded_at >= ? AND recorded_at < ? GROUP BY technique HAVING n >= 5 ORDER BY rate DESC LIMIT 1`,
       )
       .get(playerId, from, to) as { technique: string; n: number; rate: number } | undefined;
-    return best ? `Most accurate with ${best.technique} kicks (${Math.round(best.rate * 100)} % on target)` : null;
+    return best ? `Most accurate with ${best.technique} kicks (${f.percent(best.rate)} on target)` : null;
   }
 
   private queueSquadWeek(clubId: string, weekStart: string): number {
@@ -176,6 +180,7 @@ export class DigestJob {
       .filter((u) => !u.disabledAt);
     const club = this.db.select().from(clubs).where(eq(clubs.id, clubId)).get();
     const limit = club?.repLimitPerSession ?? 40;
+    const f = clubFormat(this.db, clubId);
     let sent = 0;
     for (const coach of coaches) {
       const squadIds = this.db
@@ -199,11 +204,11 @@ export class DigestJob {
               WHERE t.squad_id = ? AND t.started_at >= ? AND t.started_at < ? AND k.deleted_at IS NULL GROUP BY t.id, k.player_id HAVING COUNT(*) > ?)`,
           )
           .get(s.id, weekStart, weekEnd, limit) as { n: number };
-        return { squadName: s.name, reps: agg.reps, hitRatePct: agg.rate === null ? null : Math.round(agg.rate * 100), loadFlags: flags.n };
+        return { squadName: s.name, reps: agg.reps, hitRate: agg.rate === null ? null : f.percent(agg.rate), loadFlags: flags.n };
       });
       const mail = squadWeekMail({
         coachName: coach.displayName,
-        weekLabel: weekStart,
+        weekLabel: f.day(weekStart, true),
         lines,
         link: `${this.config.publicUrl}/squad-week?start=${weekStart}`,
       });

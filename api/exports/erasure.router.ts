@@ -15,7 +15,7 @@ import { guardianLinks, kicks, playerProfiles, players, refreshTokens, users } f
 import { Invalid, NotFound, parseOrThrow } from '../errors';
 import { scopeOf } from '../scope/scope.middleware';
 
-const eraseSchema = z.strictObject({
+export const eraseSchema = z.strictObject({
   mode: z.enum(['anonymise', 'remove'], { error: 'mode must be anonymise or remove' }),
   confirmName: z.string({ error: 'confirmName is required' }),
 });

@@ -13,13 +13,20 @@ import { Forbidden, NotFound, parseOrThrow } from '../errors';
 import { getPlayer } from '../players/players.service';
 import { scopeOf } from '../scope/scope.middleware';
 import { toCsv } from './csv-writer';
+import { settingsOfClub } from '../club/club.service';
+import { metresTo, type DistanceUnit } from '../../shared/units';
 
 const isoDate = (name: string) => z.iso.date({ error: `${name} must be a date (YYYY-MM-DD)` });
-const kicksQuery = z
+export const kicksQuery = z
   .object({ squadId: z.uuid().optional(), playerId: z.uuid().optional(), from: isoDate('from').optional(), to: isoDate('to').optional() })
   .refine((q) => Boolean(q.squadId) !== Boolean(q.playerId), { error: 'give exactly one of squadId or playerId', path: ['squadId'] });
 
-/** Column order of the kicks CSV; the measured-kick import reads it back with a matching mapping. */
+/**
+ * Column order of the kicks CSV; the measured-kick import reads it back with a matching mapping. Distance
+ * columns are named by the club's unit: `_m` in metres, or `_yd` in a yards club (values converted from the
+ * stored metres, to 0.1 mm). Numbers keep the point as decimal mark in every
+ * locale (the comma separates RFC 4180 fields), and times stay ISO 8601 UTC, so a file reads the same anywhere.
+ */
 export const KICK_EXPORT_COLUMNS = [
   'kick_id',
   'recorded_at',
@@ -43,6 +50,17 @@ export const KICK_EXPORT_COLUMNS = [
   'measured_spin_rps',
   'hang_time_s',
 ] as const;
+
+/** Indexes of the distance columns in {@link KICK_EXPORT_COLUMNS}. */
+const DISTANCE_COLUMNS = new Set(KICK_EXPORT_COLUMNS.flatMap((c, i) => (c.endsWith('_m') ? [i] : [])));
+
+/** The header and rows in the club's distance unit (metres pass through untouched). */
+function inClubUnit(rows: unknown[][], unit: DistanceUnit): { header: string[]; rows: unknown[][] } {
+  if (unit === 'm') return { header: [...KICK_EXPORT_COLUMNS], rows };
+  const header = KICK_EXPORT_COLUMNS.map((c, i) => (DISTANCE_COLUMNS.has(i) ? `${c.slice(0, -2)}_${unit}` : c));
+  const convert = (v: unknown): unknown => (typeof v === 'number' ? Math.round(metresTo(v, unit) * 10_000) / 10_000 : v);
+  return { header, rows: rows.map((r) => r.map((v, i) => (DISTANCE_COLUMNS.has(i) ? convert(v) : v))) };
+}
 
 /** Builds the exports router (behind authentication and scope). */
 export function exportsRouter(db: Db): Router {
@@ -75,7 +93,8 @@ export function exportsRouter(db: Db): Router {
     });
     res.setHeader('Content-Type', 'text/csv; charset=utf-8; header=present');
     res.setHeader('Content-Disposition', `attachment; filename="loftline-kicks-${q.from ?? 'all'}-${q.to ?? 'now'}.csv"`);
-    res.send(toCsv(KICK_EXPORT_COLUMNS, rows));
+    const shown = inClubUnit(rows, settingsOfClub(db, scope.user.clubId).distanceUnit);
+    res.send(toCsv(shown.header, shown.rows));
   });
 
   router.get('/players/:id.json', requireRole('admin'), (req, res) => {

@@ -71,16 +71,18 @@ export function familyDigestMail(v: {
   guardianName: string;
   firstName: string;
   clubName: string;
+  /** The week's Monday as the club writes dates. */
   weekLabel: string;
   reps: number;
-  hitRatePct: number | null;
+  /** The share on target as the club writes it ("62 %"), or null with no repetitions on target. */
+  hitRate: string | null;
   trend: string;
   highlight: string | null;
   chartCid: string | null;
   unsubscribeLink: string;
 }): RenderedMail {
   const subject = `${v.firstName}'s kicking week at ${v.clubName}`;
-  const rate = v.hitRatePct === null ? 'no repetitions on target were logged' : `${v.hitRatePct} % on target`;
+  const rate = v.hitRate === null ? 'no repetitions on target were logged' : `${v.hitRate} on target`;
   const text = `Hello ${v.guardianName},
 
 ${v.firstName}'s week of ${v.weekLabel}: ${v.reps} logged repetitions, ${rate}. ${v.trend}
@@ -104,13 +106,13 @@ ${chart}${v.highlight ? `<p>Highlight: ${escapeHtml(v.highlight)}</p>` : ''}<p s
 export function squadWeekMail(v: {
   coachName: string;
   weekLabel: string;
-  lines: { squadName: string; reps: number; hitRatePct: number | null; loadFlags: number }[];
+  lines: { squadName: string; reps: number; hitRate: string | null; loadFlags: number }[];
   link: string;
 }): RenderedMail {
   const subject = `Squad week ${v.weekLabel}`;
   const rows = v.lines.map(
     (l) =>
-      `${l.squadName}: ${l.reps} repetitions, ${l.hitRatePct === null ? '—' : `${l.hitRatePct} %`} on target${l.loadFlags ? `, ${l.loadFlags} kicking-load caution(s)` : ''}`,
+      `${l.squadName}: ${l.reps} repetitions, ${l.hitRate ?? '—'} on target${l.loadFlags ? `, ${l.loadFlags} kicking-load caution(s)` : ''}`,
   );
   const text = `Hello ${v.coachName},
 

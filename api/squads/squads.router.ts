@@ -11,7 +11,7 @@ import { scopeOf } from '../scope/scope.middleware';
 import { listSquads } from './squads.service';
 import { squadWeek } from './week.service';
 
-const weekQuerySchema = z.object({
+export const weekQuerySchema = z.object({
   start: z.iso.date({ error: 'start must be a date (YYYY-MM-DD)' }),
   carry: z.enum(['logged', 'still-air'], { error: 'carry must be logged or still-air' }).default('logged'),
 });

@@ -1,10 +1,12 @@
 /**
- * Club-wide settings that the server keeps and every device reads: for now the Pitchside stopwatch's
- * calibration. A hand-timed flight is late or early by the timekeeper's reactions; the club records how
+ * Club-wide settings that the server keeps and every device reads: the Pitchside stopwatch's calibration,
+ * and how the club reads distances and dates (its distance unit and BCP 47 locale; storage stays SI). A hand-timed flight is late or early by the timekeeper's reactions; the club records how
  * much (bias) and how consistently (spread), so the flight model can correct a reading and say how far to
  * trust it.
  */
 import * as z from 'zod';
+import { canonicalLocale, DEFAULT_LOCALE } from '../quantity-format';
+import { DISTANCE_UNITS, type DistanceUnit } from '../units';
 
 /** Bounds of the timing bias, s. A human reaction is ~0.2 s; more than 1 s is not a calibration. */
 export const TIMING_BIAS_RANGE_S: readonly [number, number] = [0, 1];
@@ -38,17 +40,53 @@ export const DRAG_CRISIS_RE_RANGE: readonly [number, number] = [1.5e5, 3.0e5];
  */
 export const DEFAULT_DRAG_CRISIS_RE = 183_289;
 
-/**
- * Body of `PUT /api/club/settings` and answer of `GET /api/club/settings`. `dragCrisisRe` is always
- * answered; a body without it leaves it unchanged.
- */
+/** The ball's drag-crisis Reynolds number, within the range footballs have been measured at. */
+const dragCrisisReSchema = z
+  .number({ error: 'dragCrisisRe must be a Reynolds number' })
+  .min(DRAG_CRISIS_RE_RANGE[0], { error: `dragCrisisRe must be at least ${DRAG_CRISIS_RE_RANGE[0]}` })
+  .max(DRAG_CRISIS_RE_RANGE[1], { error: `dragCrisisRe must be at most ${DRAG_CRISIS_RE_RANGE[1]}` });
+
+/** How a club reads numbers until its admin says otherwise (the demo's too): metres, British English. */
+export const DEFAULT_DISPLAY = { distanceUnit: 'm', locale: DEFAULT_LOCALE } as const satisfies {
+  distanceUnit: DistanceUnit;
+  locale: string;
+};
+
+/** The distance unit the club's screens, charts, exports and mail show. */
+export const distanceUnitSchema = z.enum(DISTANCE_UNITS, { error: `distanceUnit must be one of ${DISTANCE_UNITS.join(', ')}` });
+
+/** A BCP 47 language tag the runtime can format with (e.g. `de-DE`); stored in its canonical form. */
+export const localeSchema = z
+  .string({ error: 'locale must be a BCP 47 language tag such as en-GB or de-DE' })
+  .max(35, { error: 'locale must be at most 35 characters' })
+  .transform((tag, ctx) => {
+    const canonical = canonicalLocale(tag);
+    if (canonical === null) {
+      ctx.addIssue({ code: 'custom', message: 'locale must be a BCP 47 language tag such as en-GB or de-DE' });
+      return z.NEVER;
+    }
+    return canonical;
+  });
+
+/** Answer of `GET /api/club/settings` (and of the `PUT`); `dragCrisisRe` is always answered. */
 export const clubSettingsSchema = z.strictObject({
   timingBiasS: seconds('timingBiasS', TIMING_BIAS_RANGE_S),
   timingSdS: seconds('timingSdS', TIMING_SD_RANGE_S),
-  dragCrisisRe: z
-    .number({ error: 'dragCrisisRe must be a Reynolds number' })
-    .min(DRAG_CRISIS_RE_RANGE[0], { error: `dragCrisisRe must be at least ${DRAG_CRISIS_RE_RANGE[0]}` })
-    .max(DRAG_CRISIS_RE_RANGE[1], { error: `dragCrisisRe must be at most ${DRAG_CRISIS_RE_RANGE[1]}` })
-    .optional(),
+  dragCrisisRe: dragCrisisReSchema.optional(),
+  distanceUnit: distanceUnitSchema,
+  locale: z.string(),
 });
 export type ClubSettings = z.infer<typeof clubSettingsSchema>;
+
+/**
+ * Body of `PUT /api/club/settings`: the stopwatch calibration, and optionally the ball's drag crisis, the
+ * distance unit and the locale (left out, they stay as they are, so a client that only knows the calibration changes nothing else).
+ */
+export const clubSettingsUpdateSchema = z.strictObject({
+  timingBiasS: seconds('timingBiasS', TIMING_BIAS_RANGE_S),
+  timingSdS: seconds('timingSdS', TIMING_SD_RANGE_S),
+  dragCrisisRe: dragCrisisReSchema.optional(),
+  distanceUnit: distanceUnitSchema.optional(),
+  locale: localeSchema.optional(),
+});
+export type ClubSettingsUpdate = z.infer<typeof clubSettingsUpdateSchema>;

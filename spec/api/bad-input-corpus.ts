@@ -221,8 +221,8 @@ function jsonRoutes(c: CorpusContext): JsonRoute[] {
       route: 'PUT /api/club/settings',
       as: 'admin',
       url: '/api/club/settings',
-      body: { timingBiasS: 0.2, timingSdS: 0.08 },
-      fields: { timingBiasS: of('number'), timingSdS: of('number') },
+      body: { timingBiasS: 0.2, timingSdS: 0.08, distanceUnit: 'm', locale: 'en-GB' },
+      fields: { timingBiasS: of('number'), timingSdS: of('number'), distanceUnit: of('enum', false), locale: text(false) },
     },
     {
       route: 'POST /api/digests/run',

@@ -4,9 +4,13 @@ import { accountTokens, auditLog, capturedMail, guardianLinks, mailOutbox, playe
 import { firstNameOf } from '../../api/guardians/guardians.service';
 import { CONSENT_TEXT } from '../../api/guardians/consent-text';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD, demoPeriod } from '../../seed/scenario';
+import { QuantityFormat } from '../../shared/quantity-format';
+import { DEFAULT_DISPLAY } from '../../shared/schemas/club';
 import { createMailTestApp, FIXTURE_NOW, signIn, type MailTestApp } from './fixture';
 
 const LAST_WEEK = demoPeriod(FIXTURE_NOW).weekStarts.at(-1)!.toISOString().slice(0, 10);
+/** How the demo club (metres, en-GB) writes a week's Monday in mail, e.g. "23 Nov 2026". */
+const weekWords = (isoDate: string): string => new QuantityFormat(DEFAULT_DISPLAY).day(isoDate, true);
 
 function adultOn(birthDate: string | null, day: string): boolean {
   if (!birthDate) return true;
@@ -20,7 +24,9 @@ describe('Family digest over SMTP', () => {
   const captured = () => t.db.select().from(capturedMail).all();
   const digestsCaptured = () =>
     captured().filter(
-      (m) => (JSON.parse(m.headersJson) as Record<string, string>)['list-unsubscribe-post'] && m.textBody.includes(`week of ${LAST_WEEK}`),
+      (m) =>
+        (JSON.parse(m.headersJson) as Record<string, string>)['list-unsubscribe-post'] &&
+        m.textBody.includes(`week of ${weekWords(LAST_WEEK)}`),
     );
   let firstRun: request.Response;
   let eligible: { guardianEmail: string }[];
@@ -142,7 +148,7 @@ describe('Family digest over SMTP', () => {
     await t.digests.run({ clubId: clubId(), weekStart: nextWeek });
     const toDemo = captured().filter((m) => (JSON.parse(m.toJson) as string[])[0] === DEMO_ACCOUNTS.guardian);
     expect(toDemo.length).toBe(1);
-    expect(captured().some((m) => m.textBody.includes(`week of ${nextWeek}`))).toBeTrue();
+    expect(captured().some((m) => m.textBody.includes(`week of ${weekWords(nextWeek)}`))).toBeTrue();
     expect(
       t.db
         .select()
@@ -153,7 +159,7 @@ describe('Family digest over SMTP', () => {
   });
 
   it('sends the Squad week summary to head coaches once', () => {
-    const summaries = captured().filter((m) => m.subject.startsWith(`Squad week ${LAST_WEEK}`));
+    const summaries = captured().filter((m) => m.subject.startsWith(`Squad week ${weekWords(LAST_WEEK)}`));
     expect(summaries.map((m) => (JSON.parse(m.toJson) as string[])[0])).toEqual([DEMO_ACCOUNTS.head_coach]);
     expect(summaries[0]!.textBody).toContain('U14');
   });

@@ -18,6 +18,9 @@ const ALL: Who[] = [...ROLES];
  */
 const MATRIX: Record<string, Who[] | 'public'> = {
   'GET /api/health': 'public',
+  'GET /api/openapi.json': 'public',
+  'GET /api/reference': 'public',
+  'GET /api/reference.js': 'public',
   'GET /api/ready': 'public',
   'POST /api/auth/login': 'public',
   'POST /api/auth/refresh': 'public',
@@ -30,7 +33,7 @@ const MATRIX: Record<string, Who[] | 'public'> = {
   'GET /api/me': ALL,
   'GET /api/me/digest-opt-in': ['player'],
   'PUT /api/me/digest-opt-in': ['player'],
-  'GET /api/club/settings': STAFF,
+  'GET /api/club/settings': ALL,
   'PUT /api/club/settings': ['admin'],
   'GET /api/squads': ALL,
   'GET /api/squads/:id/week': STAFF,

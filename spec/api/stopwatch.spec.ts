@@ -101,7 +101,13 @@ describe('hang-time stopwatch: kicks, club timing settings and spin estimates', 
     const initial = await request(t.app).get('/api/club/settings').set(auth(coach));
     expect(initial.status).toBe(200);
     // Product defaults (common practice): 0.2 s bias, 0.08 s spread (migration 0004).
-    expect(initial.body).toEqual({ timingBiasS: 0.2, timingSdS: 0.08, dragCrisisRe: DEFAULT_DRAG_CRISIS_RE });
+    expect(initial.body).toEqual({
+      timingBiasS: 0.2,
+      timingSdS: 0.08,
+      dragCrisisRe: DEFAULT_DRAG_CRISIS_RE,
+      distanceUnit: 'm',
+      locale: 'en-GB',
+    });
     expect((await request(t.app).put('/api/club/settings').set(auth(coach)).send({ timingBiasS: 0.1, timingSdS: 0.05 })).status).toBe(403);
     const bad = await request(t.app).put('/api/club/settings').set(auth(admin)).send({ timingBiasS: 0.1, timingSdS: 0.9 });
     expect(bad.status).toBe(400);
@@ -116,6 +122,8 @@ describe('hang-time stopwatch: kicks, club timing settings and spin estimates', 
       timingBiasS: 0.15,
       timingSdS: 0.05,
       dragCrisisRe: DEFAULT_DRAG_CRISIS_RE,
+      distanceUnit: 'm',
+      locale: 'en-GB',
     });
     await request(t.app).put('/api/club/settings').set(auth(admin)).send({ timingBiasS: 0.2, timingSdS: 0.08 });
   });

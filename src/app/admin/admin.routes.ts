@@ -7,6 +7,7 @@ import { GuardianLinks } from './guardian-links';
 import { InviteForm } from './invite-form';
 import { OutboxView } from './outbox-view';
 import { StopwatchTiming } from './stopwatch-timing';
+import { UnitsLocale } from './units-locale';
 
 /**
  * Club admin's sections under `/admin`. The whole set is one lazy chunk (loaded from
@@ -25,6 +26,7 @@ export const ADMIN_ROUTES: Routes = [
       { path: 'mail', title: 'Captured mail · Club admin · Loftline', component: CapturedMail },
       { path: 'stopwatch', title: 'Stopwatch timing · Club admin · Loftline', component: StopwatchTiming },
       { path: 'ball', title: 'Ball model · Club admin · Loftline', component: BallModel },
+      { path: 'units', title: 'Units and locale · Club admin · Loftline', component: UnitsLocale },
     ],
   },
 ];

@@ -16,6 +16,7 @@ const SECTIONS: readonly AdminSection[] = [
   { path: 'mail', label: 'Captured mail' },
   { path: 'stopwatch', label: 'Stopwatch timing' },
   { path: 'ball', label: 'Ball model' },
+  { path: 'units', label: 'Units and locale' },
 ];
 
 /**
@@ -30,8 +31,8 @@ const SECTIONS: readonly AdminSection[] = [
     <header class="admin__header">
       <h1 class="admin__title">Club admin</h1>
       <p class="admin__subtitle">
-        Guardian links and consent, invitations, training grounds, the club’s outgoing mail, the Pitchside stopwatch timing and the ball
-        model.
+        Guardian links and consent, invitations, training grounds, the club’s outgoing mail, the Pitchside stopwatch timing, the ball model,
+        and the club’s units and locale.
       </p>
     </header>
     <nav mat-tab-nav-bar [tabPanel]="panel" aria-label="Club admin sections" mat-stretch-tabs="false">

@@ -31,7 +31,9 @@ describe('StopwatchTiming (Club admin)', () => {
     fixture = TestBed.createComponent(StopwatchTiming);
     loader = TestbedHarnessEnvironment.loader(fixture);
     await fixture.whenStable();
-    backend.expectOne({ method: 'GET', url: '/api/club/settings' }).flush({ timingBiasS: 0.18, timingSdS: 0.07 });
+    backend
+      .expectOne({ method: 'GET', url: '/api/club/settings' })
+      .flush({ timingBiasS: 0.18, timingSdS: 0.07, distanceUnit: 'm', locale: 'en-GB' });
     await fixture.whenStable();
   });
 
@@ -53,9 +55,14 @@ describe('StopwatchTiming (Club admin)', () => {
     await (await loader.getHarness(MatButtonHarness.with({ text: 'Save timing' }))).click();
     const put = backend.expectOne({ method: 'PUT', url: '/api/club/settings' });
     expect(put.request.body).toEqual({ timingBiasS: 0.15, timingSdS: 0.05 });
-    put.flush({ timingBiasS: 0.15, timingSdS: 0.05 });
+    put.flush({ timingBiasS: 0.15, timingSdS: 0.05, distanceUnit: 'm', locale: 'en-GB' });
     await until('the saved message', () => text().includes('Saved.'));
-    expect(TestBed.inject(ClubSettingsStore).settings()).toEqual({ timingBiasS: 0.15, timingSdS: 0.05 });
+    expect(TestBed.inject(ClubSettingsStore).settings()).toEqual({
+      timingBiasS: 0.15,
+      timingSdS: 0.05,
+      distanceUnit: 'm',
+      locale: 'en-GB',
+    });
   });
 
   it('refuses a spread outside the bounds before sending, and shows the server’s field error', async () => {

@@ -7,8 +7,10 @@ import {
   computed,
   input,
   viewChild,
+  inject,
 } from '@angular/core';
 import { axisBottom, axisLeft, axisRight, line, max, scaleBand, scaleLinear, select } from 'd3';
+import { ClubFormat } from '../core/club-format';
 import { weekLabel } from '../ui/charts/chart-format';
 import { drawWidth, injectChartWidth } from '../ui/charts/chart-width';
 import { describeTrend, percentLabel } from './child-trend';
@@ -72,12 +74,14 @@ export class WeeklyTrendChart {
 
   private readonly svg = viewChild.required<ElementRef<SVGSVGElement>>('svg');
   private readonly width = injectChartWidth();
+  /** The club's formatter (locale of dates and numbers). */
+  private readonly fmt = inject(ClubFormat).format;
 
   protected readonly summary = computed(() => describeTrend(this.firstName(), this.weeks()));
   protected readonly rows = computed(() =>
     this.weeks().map((week) => ({
       weekStart: week.weekStart,
-      week: weekLabel(week.weekStart),
+      week: weekLabel(week.weekStart, this.fmt()),
       reps: week.reps,
       hitRate: week.hitRate === null ? '–' : percentLabel(week.hitRate),
     })),
@@ -130,7 +134,7 @@ export class WeeklyTrendChart {
       .call(
         axisRight(rate)
           .ticks(2)
-          .tickFormat((v) => `${Math.round(Number(v) * 100)} %`),
+          .tickFormat((v) => this.fmt().percent(Number(v))),
       );
     g.append('g')
       .attr('class', 'll-chart__axis')
@@ -138,7 +142,7 @@ export class WeeklyTrendChart {
       .call(
         axisBottom(x)
           .tickValues(weeks.map((week) => week.weekStart).filter((_, i) => i % tickEvery === 0))
-          .tickFormat((weekStart) => weekLabel(weekStart)),
+          .tickFormat((weekStart) => weekLabel(weekStart, this.fmt())),
       );
 
     const bandWidth = x.bandwidth();
@@ -151,7 +155,7 @@ export class WeeklyTrendChart {
       .attr('width', bandWidth)
       .attr('height', (week) => innerH - reps(week.reps))
       .append('title')
-      .text((week) => `Week of ${weekLabel(week.weekStart)}: ${week.reps} repetitions`);
+      .text((week) => `Week of ${weekLabel(week.weekStart, this.fmt())}: ${week.reps} repetitions`);
 
     const centre = (week: ChildWeek): number => (x(week.weekStart) ?? 0) + bandWidth / 2;
     const rateLine = line<ChildWeek>()
@@ -169,6 +173,6 @@ export class WeeklyTrendChart {
       .attr('cy', (week) => rate(week.hitRate ?? 0))
       .attr('r', 3.5)
       .append('title')
-      .text((week) => `Week of ${weekLabel(week.weekStart)}: hit rate ${percentLabel(week.hitRate ?? 0)}`);
+      .text((week) => `Week of ${weekLabel(week.weekStart, this.fmt())}: hit rate ${percentLabel(week.hitRate ?? 0)}`);
   }
 }

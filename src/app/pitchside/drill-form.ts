@@ -1,5 +1,8 @@
 import { ChangeDetectionStrategy, Component, OnInit, inject, input, output, signal } from '@angular/core';
-import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { type AbstractControl, NonNullableFormBuilder, ReactiveFormsModule, type ValidatorFn, Validators } from '@angular/forms';
+import type * as z from 'zod';
+import { distanceToM } from '../../../shared/units';
+import { ClubFormat } from '../core/club-format';
 import { DrillSuggestion } from '../core/drill-suggestion';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
@@ -38,18 +41,18 @@ import { TECHNIQUES, TECHNIQUE_LABELS, backspinLabel, sidespinLabel } from '../.
       <div class="drill-form__row">
         <mat-form-field appearance="outline">
           <mat-label>Target distance</mat-label>
-          <input matInput type="number" inputmode="decimal" formControlName="targetDistanceM" />
-          <span matTextSuffix>m</span>
-          @if (form.controls.targetDistanceM.errors; as e) {
-            <mat-error>{{ e['schema'] ?? 'Enter the distance in metres' }}</mat-error>
+          <input matInput type="number" inputmode="decimal" step="any" formControlName="targetDistance" />
+          <span matTextSuffix>{{ fmt().unit }}</span>
+          @if (form.controls.targetDistance.errors; as e) {
+            <mat-error>{{ e['schema'] ?? 'Enter the distance in ' + fmt().unitWord }}</mat-error>
           }
         </mat-form-field>
         <mat-form-field appearance="outline">
           <mat-label>Target radius</mat-label>
-          <input matInput type="number" inputmode="decimal" formControlName="targetRadiusM" />
-          <span matTextSuffix>m</span>
-          @if (form.controls.targetRadiusM.errors; as e) {
-            <mat-error>{{ e['schema'] ?? 'Enter the radius in metres' }}</mat-error>
+          <input matInput type="number" inputmode="decimal" step="any" formControlName="targetRadius" />
+          <span matTextSuffix>{{ fmt().unit }}</span>
+          @if (form.controls.targetRadius.errors; as e) {
+            <mat-error>{{ e['schema'] ?? 'Enter the radius in ' + fmt().unitWord }}</mat-error>
           }
         </mat-form-field>
       </div>
@@ -139,10 +142,23 @@ export class DrillForm implements OnInit {
   protected readonly sidespinLabel = sidespinLabel;
   protected readonly backspinStep = signal(0);
   protected readonly sidespinStep = signal(0);
+  private readonly clubFormat = inject(ClubFormat);
+  /** The club's formatter: the fields are in its distance unit (metres or yards); storage stays metres. */
+  protected readonly fmt = this.clubFormat.format;
+  /** `zodValidator` on the metres the typed value stands for (the shared schema is in SI). */
+  private readonly inMetres = (schema: z.ZodType): ValidatorFn => {
+    const check = zodValidator(schema);
+    return (control) => {
+      const value: unknown = control.value;
+      if (value === null || value === undefined || value === '') return null;
+      return check({ value: distanceToM(Number(value), this.fmt().distanceUnit) } as AbstractControl);
+    };
+  };
+  /** Distances in the club's unit (a new club starts from 30 and 3 of them). */
   protected readonly form = inject(NonNullableFormBuilder).group({
     technique: ['lofted' as Technique, Validators.required],
-    targetDistanceM: [30, [Validators.required, zodValidator(drillDataSchema.shape.targetDistanceM)]],
-    targetRadiusM: [3, [Validators.required, zodValidator(drillDataSchema.shape.targetRadiusM)]],
+    targetDistance: [30, [Validators.required, this.inMetres(drillDataSchema.shape.targetDistanceM)]],
+    targetRadius: [3, [Validators.required, this.inMetres(drillDataSchema.shape.targetRadiusM)]],
     label: ['', zodValidator(drillDataSchema.shape.label)],
   });
 
@@ -156,8 +172,8 @@ export class DrillForm implements OnInit {
     if (suggested) {
       this.form.patchValue({
         technique: suggested.technique,
-        targetDistanceM: suggested.targetDistanceM,
-        targetRadiusM: suggested.targetRadiusM,
+        targetDistance: this.inUnit(suggested.targetDistanceM),
+        targetRadius: this.inUnit(suggested.targetRadiusM),
         label: 'Next target',
       });
       this.backspinStep.set(previous?.backspinStep ?? 0);
@@ -166,8 +182,8 @@ export class DrillForm implements OnInit {
     } else if (previous) {
       this.form.patchValue({
         technique: previous.technique,
-        targetDistanceM: previous.targetDistanceM,
-        targetRadiusM: previous.targetRadiusM,
+        targetDistance: this.inUnit(previous.targetDistanceM),
+        targetRadius: this.inUnit(previous.targetRadiusM),
       });
       this.backspinStep.set(previous.backspinStep ?? 0);
       this.sidespinStep.set(previous.sidespinStep ?? 0);
@@ -183,11 +199,16 @@ export class DrillForm implements OnInit {
     if (this.suggested()) this.suggestion.clear();
     this.submitted.emit({
       technique: value.technique,
-      targetDistanceM: Number(value.targetDistanceM),
-      targetRadiusM: Number(value.targetRadiusM),
+      targetDistanceM: distanceToM(Number(value.targetDistance), this.fmt().distanceUnit),
+      targetRadiusM: distanceToM(Number(value.targetRadius), this.fmt().distanceUnit),
       backspinStep: this.backspinStep(),
       sidespinStep: this.sidespinStep(),
       label: value.label.trim() === '' ? null : value.label.trim(),
     });
+  }
+
+  /** Metres in the club's unit, to 2 decimals (a 30 m drill shows 32.81 in a yards club). */
+  private inUnit(valueM: number): number {
+    return Math.round(this.fmt().toUnit(valueM) * 100) / 100;
   }
 }

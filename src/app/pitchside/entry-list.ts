@@ -1,6 +1,7 @@
-import { ChangeDetectionStrategy, Component, computed, input, output, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, output, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
+import { ClubFormat } from '../core/club-format';
 import type { KickCorrection } from '../core/kick-store';
 import type { CachedPlayer, LocalKick, OutboxEntry } from '../core/loftline-db';
 import { KickEditor } from './kick-editor';
@@ -36,13 +37,13 @@ export interface EntryCorrection {
             <span class="entry__time">{{ time(kick.recordedAt) }}</span>
             <span class="entry__what">
               <strong>{{ playerName(kick.playerId) }}</strong>
-              · {{ outcomeLabels[kick.outcome] }} · {{ techniqueLabels[kick.technique] }} {{ kick.targetDistanceM }} m ·
+              · {{ outcomeLabels[kick.outcome] }} · {{ techniqueLabels[kick.technique] }} {{ fmt().round(kick.targetDistanceM) }} ·
               {{ backspinLabel(kick.backspinStep) }}
               @if (kick.carryM !== null && kick.carryM !== undefined) {
-                · carry {{ kick.carryM }} m
+                · carry {{ fmt().distance(kick.carryM) }}
               }
               @if (kick.hangTimeS !== null && kick.hangTimeS !== undefined) {
-                · timed {{ kick.hangTimeS }} s
+                · timed {{ fmt().number(kick.hangTimeS) }} s
               }
               @if (entry?.state === 'rejected') {
                 <span class="entry__reason">Not accepted: {{ entry?.error?.message }}</span>
@@ -124,6 +125,8 @@ export class EntryList {
   protected readonly outcomeLabels = OUTCOME_LABELS;
   protected readonly techniqueLabels = TECHNIQUE_LABELS;
   protected readonly backspinLabel = backspinLabel;
+  /** The club's formatter (distance unit, locale). */
+  protected readonly fmt = inject(ClubFormat).format;
   private readonly names = computed(
     () => new Map(this.players().map((p) => [p.id, `${p.shirtNumber === null ? '' : p.shirtNumber + ' '}${p.displayName}`])),
   );
@@ -138,7 +141,7 @@ export class EntryList {
   }
 
   protected time(iso: string): string {
-    return new Date(iso).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit', second: '2-digit', hourCycle: 'h23' });
+    return this.fmt().time(iso, true);
   }
 
   protected syncIcon(entry: OutboxEntry | undefined): string {

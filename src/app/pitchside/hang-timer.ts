@@ -7,6 +7,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { startWith, switchMap } from 'rxjs';
 import { optionalMetres } from './metres-field';
+import { ClubFormat } from '../core/club-format';
 
 /**
  * Milliseconds from a monotonic clock. `performance.now()` in the app (wall-clock changes and NTP steps do
@@ -118,6 +119,8 @@ export class HangTimer {
   /** The club's timing bias, s: shown so the coach sees the flight time the model will use. */
   readonly biasS = input.required<number>();
 
+  /** The club's formatter (decimal mark of the shown times). */
+  private readonly fmt = inject(ClubFormat).format;
   private readonly startedAt = signal<number | null>(null);
   private readonly now = signal(0);
   /** When the last pointer-down was taken, while its click has not arrived yet (null: none pending). */
@@ -127,7 +130,7 @@ export class HangTimer {
   protected readonly running = computed(() => this.startedAt() !== null);
   protected readonly elapsedText = computed(() => {
     const started = this.startedAt();
-    return started === null ? '' : `${(Math.max(0, this.now() - started) / 1000).toFixed(1)} s`;
+    return started === null ? '' : `${this.fmt().fixed(Math.max(0, this.now() - started) / 1000, 1)} s`;
   });
   private readonly value = toSignal(toObservable(this.control).pipe(switchMap((c) => c.valueChanges.pipe(startWith(c.value)))), {
     initialValue: '',
@@ -138,7 +141,8 @@ export class HangTimer {
     const reading = optionalMetres(this.value());
     if (reading === null || Number.isNaN(reading)) return 'Tap at foot contact, then at the first bounce.';
     const flight = reading - this.biasS();
-    return `Goes with the next repetition: about ${flight.toFixed(2)} s in the air after the club's ${this.biasS().toFixed(2)} s timing bias.`;
+    const f = this.fmt();
+    return `Goes with the next repetition: about ${f.fixed(flight, 2)} s in the air after the club's ${f.fixed(this.biasS(), 2)} s timing bias.`;
   });
 
   constructor() {
@@ -183,7 +187,7 @@ export class HangTimer {
     }
     this.startedAt.set(null);
     this.stopTicker();
-    this.control().setValue(((at - started) / 1000).toFixed(2));
+    this.control().setValue(this.fmt().fixed((at - started) / 1000, 2));
     this.control().markAsTouched();
   }
 

@@ -6,6 +6,8 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { kickDataSchema, type Outcome } from '../../../shared/schemas/sync';
+import type { DistanceUnit } from '../../../shared/units';
+import { ClubFormat } from '../core/club-format';
 import type { KickCorrection } from '../core/kick-store';
 import type { CachedPlayer, LocalKick } from '../core/loftline-db';
 import { metresValidator, optionalMetres } from './metres-field';
@@ -60,7 +62,7 @@ import { StepControl } from './step-control';
         <mat-form-field appearance="outline">
           <mat-label>Carry</mat-label>
           <input matInput inputmode="decimal" formControlName="carry" />
-          <span matTextSuffix>m</span>
+          <span matTextSuffix>{{ fmt().unit }}</span>
           @if (form.controls.carry.errors?.['schema']; as message) {
             <mat-error>{{ message }}</mat-error>
           }
@@ -68,7 +70,7 @@ import { StepControl } from './step-control';
         <mat-form-field appearance="outline">
           <mat-label>Lateral (+ left)</mat-label>
           <input matInput inputmode="decimal" formControlName="lateral" />
-          <span matTextSuffix>m</span>
+          <span matTextSuffix>{{ fmt().unit }}</span>
           @if (form.controls.lateral.errors?.['schema']; as message) {
             <mat-error>{{ message }}</mat-error>
           }
@@ -148,11 +150,16 @@ export class KickEditor implements OnInit {
   protected readonly sidespinLabel = sidespinLabel;
   protected readonly backspinStep = signal(0);
   protected readonly sidespinStep = signal(0);
+  private readonly clubFormat = inject(ClubFormat);
+  /** The club's formatter: carry and lateral offset are typed in its distance unit. */
+  protected readonly fmt = this.clubFormat.format;
+  private readonly unitWord = (): string => this.fmt().unitWord;
+  private readonly distanceUnit = (): DistanceUnit => this.fmt().distanceUnit;
   protected readonly form = inject(NonNullableFormBuilder).group({
     playerId: [''],
     outcome: ['on_target' as Outcome],
-    carry: ['', metresValidator(kickDataSchema.shape.carryM)],
-    lateral: ['', metresValidator(kickDataSchema.shape.lateralM)],
+    carry: ['', metresValidator(kickDataSchema.shape.carryM, this.unitWord, this.distanceUnit)],
+    lateral: ['', metresValidator(kickDataSchema.shape.lateralM, this.unitWord, this.distanceUnit)],
     hangTime: ['', metresValidator(kickDataSchema.shape.hangTimeS, 'seconds')],
   });
 
@@ -161,8 +168,8 @@ export class KickEditor implements OnInit {
     this.form.setValue({
       playerId: kick.playerId,
       outcome: kick.outcome,
-      carry: kick.carryM === null || kick.carryM === undefined ? '' : String(kick.carryM),
-      lateral: kick.lateralM === null || kick.lateralM === undefined ? '' : String(kick.lateralM),
+      carry: this.clubFormat.fieldText(kick.carryM),
+      lateral: this.clubFormat.fieldText(kick.lateralM),
       hangTime: kick.hangTimeS === null || kick.hangTimeS === undefined ? '' : String(kick.hangTimeS),
     });
     this.backspinStep.set(kick.backspinStep);
@@ -180,9 +187,15 @@ export class KickEditor implements OnInit {
       outcome: value.outcome,
       backspinStep: this.backspinStep(),
       sidespinStep: this.sidespinStep(),
-      carryM: optionalMetres(value.carry),
-      lateralM: optionalMetres(value.lateral),
+      carryM: this.distanceOf(value.carry, this.kick().carryM),
+      lateralM: this.distanceOf(value.lateral, this.kick().lateralM),
       hangTimeS: optionalMetres(value.hangTime),
     });
+  }
+
+  /** Metres for a distance field; an untouched field keeps the stored value exactly (no unit round trip). */
+  private distanceOf(text: string, storedM: number | null | undefined): number | null {
+    if (text === this.clubFormat.fieldText(storedM)) return storedM ?? null;
+    return optionalMetres(text, this.distanceUnit());
   }
 }

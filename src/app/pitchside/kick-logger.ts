@@ -1,4 +1,16 @@
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal, untracked, viewChild } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  DestroyRef,
+  computed,
+  effect,
+  inject,
+  input,
+  signal,
+  untracked,
+  viewChild,
+} from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
@@ -9,6 +21,8 @@ import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { DrillSuggestion } from '../core/drill-suggestion';
 import { Router } from '@angular/router';
 import { kickDataSchema, type Outcome } from '../../../shared/schemas/sync';
+import { AppUpdate } from '../core/app-update';
+import { ClubFormat } from '../core/club-format';
 import { ClubSettingsStore } from '../core/club-settings-store';
 import { KickStore } from '../core/kick-store';
 import type { LocalDrill, LocalSession } from '../core/loftline-db';
@@ -61,6 +75,9 @@ export class KickLogger {
   private readonly router = inject(Router);
   private readonly stopwatchDrills = inject(StopwatchDrills);
   protected readonly clubSettings = inject(ClubSettingsStore);
+  private readonly clubFormat = inject(ClubFormat);
+  /** The club's formatter (distance unit, locale). */
+  protected readonly fmt = this.clubFormat.format;
 
   /** The session being logged. */
   readonly session = input.required<LocalSession>();
@@ -86,7 +103,14 @@ export class KickLogger {
   protected readonly statusText = signal('Pick a player, then the outcome.');
   protected readonly savedCount = signal(0);
   protected readonly failure = signal<string | null>(null);
-  protected readonly carry = new FormControl('', { nonNullable: true, validators: metresValidator(kickDataSchema.shape.carryM) });
+  protected readonly carry = new FormControl('', {
+    nonNullable: true,
+    validators: metresValidator(
+      kickDataSchema.shape.carryM,
+      () => this.fmt().unitWord,
+      () => this.fmt().distanceUnit,
+    ),
+  });
   protected readonly hangTime = new FormControl('', {
     nonNullable: true,
     validators: metresValidator(kickDataSchema.shape.hangTimeS, 'seconds'),
@@ -129,7 +153,24 @@ export class KickLogger {
     return drill?.technique === 'curled' || (drill?.sidespinStep ?? 0) !== 0 || this.sidespinStep() !== 0;
   });
 
+  /** Whether a repetition is being entered here: a carry or stopwatch reading typed, or a save in flight. */
+  private readonly saving = signal(false);
+  private readonly carryText = toSignal(this.carry.valueChanges, { initialValue: '' });
+  private readonly hangText = toSignal(this.hangTime.valueChanges, { initialValue: '' });
+  private readonly midEntry = computed(() => this.saving() || this.carryText().trim() !== '' || this.hangText().trim() !== '');
+
   constructor() {
+    // A new version's reload offer waits while a repetition is half entered (AppUpdate).
+    const update = inject(AppUpdate);
+    let release: (() => void) | null = null;
+    effect(() => {
+      if (this.midEntry() && release === null) release = update.hold();
+      if (!this.midEntry() && release !== null) {
+        release();
+        release = null;
+      }
+    });
+    inject(DestroyRef).onDestroy(() => release?.());
     // A new drill resets the spin to its default.
     effect(() => {
       const drill = this.drill();
@@ -163,7 +204,8 @@ export class KickLogger {
       this.hangTime.markAsTouched();
       return;
     }
-    const carryM = optionalMetres(this.carry.value);
+    const carryM = optionalMetres(this.carry.value, this.fmt().distanceUnit);
+    this.saving.set(true);
     const hangTimeS = timed ? optionalMetres(this.hangTime.value) : null;
     const backspinStep = this.backspinStep();
     const sidespinStep = this.sidespinStep();
@@ -188,10 +230,12 @@ export class KickLogger {
       });
       this.failure.set(null);
       this.savedCount.update((n) => n + 1);
-      const time = hangTimeS === null ? '' : ` · ${hangTimeS.toFixed(2)} s`;
+      const time = hangTimeS === null ? '' : ` · ${this.fmt().fixed(hangTimeS, 2)} s`;
       this.statusText.set(`Saved · ${this.playerName(player.id)} · ${OUTCOME_LABELS[outcome]}${time}`);
     } catch (error) {
       this.failure.set(describeLocalError(error));
+    } finally {
+      this.saving.set(false);
     }
   }
 
@@ -257,7 +301,8 @@ export class KickLogger {
     const spin = backspinLabel(drill.backspinStep ?? 0);
     const curl = (drill.sidespinStep ?? 0) === 0 ? '' : ` · ${sidespinLabel(drill.sidespinStep ?? 0)}`;
     const name = drill.label ? `${drill.label}: ` : '';
-    return `${name}${TECHNIQUE_LABELS[drill.technique]} → ${drill.targetDistanceM} m (r ${drill.targetRadiusM} m) · ${spin}${curl}`;
+    const f = this.fmt();
+    return `${name}${TECHNIQUE_LABELS[drill.technique]} → ${f.round(drill.targetDistanceM)} (r ${f.round(drill.targetRadiusM)}) · ${spin}${curl}`;
   }
 
   private playerName(id: string): string {

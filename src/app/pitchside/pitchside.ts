@@ -2,6 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, effect, inject, input, si
 import { MatButtonModule } from '@angular/material/button';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
+import { ClubFormat } from '../core/club-format';
 import { DrillSuggestion } from '../core/drill-suggestion';
 import { RosterStore } from '../core/roster-store';
 import { SessionStore } from '../core/session-store';
@@ -41,6 +42,8 @@ export class Pitchside {
   private readonly logger = viewChild(KickLogger);
 
   protected readonly session = inject(SessionStore).liveSession(this.id);
+  /** The club's formatter (locale, distance unit). */
+  protected readonly fmt = inject(ClubFormat).format;
   protected readonly panelOpen = signal(false);
   protected readonly players = this.roster.livePlayers(computed(() => this.session()?.squadId ?? null));
 
@@ -51,20 +54,21 @@ export class Pitchside {
       return 'Pitchside';
     }
     const squad = this.roster.squads()?.find((s) => s.id === session.squadId);
-    const started = new Date(session.startedAt).toLocaleString([], { weekday: 'short', hour: '2-digit', minute: '2-digit' });
+    const f = this.fmt();
+    const started = f.dateTime(session.startedAt, { weekday: 'short', hour: '2-digit', minute: '2-digit' });
     const parts = [squad?.name ?? 'Session', started];
     if (session.temperatureC !== null && session.temperatureC !== undefined) {
-      parts.push(`${session.temperatureC} °C`);
+      parts.push(`${f.number(session.temperatureC, 1)} °C`);
     }
     const wind = windLabel(session.windSpeedMs, session.windFromDeg);
     const measuredWind = session.conditionsSource?.['windSpeedMs'] === 'weather';
     if (wind) {
       // A measured wind is a number, not a judgement: show it (e.g. "headwind moderate 6.2 m/s").
-      parts.push(measuredWind && session.windSpeedMs ? `${wind} ${Math.round(session.windSpeedMs * 10) / 10} m/s` : wind);
+      parts.push(measuredWind && session.windSpeedMs ? `${wind} ${f.number(session.windSpeedMs, 1)} m/s` : wind);
     }
     parts.push(`ball ${session.ballSize}`);
     if (session.conditionsObservedAt) {
-      const at = new Date(session.conditionsObservedAt).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' });
+      const at = f.time(session.conditionsObservedAt);
       parts.push(`measured ${at}`);
     }
     return parts.join(' · ');

@@ -8,6 +8,7 @@ import { Router } from '@angular/router';
 import { concat, map, of, switchMap } from 'rxjs';
 import type { ConditionSource } from '../../../shared/schemas/grounds';
 import type { SquadGround } from '../../../shared/schemas/squads';
+import { ClubFormat } from '../core/club-format';
 import { GroundApi, type Ground, type GroundConditions } from '../core/ground-api';
 import { describeLocalError } from './local-error';
 import { RosterStore } from '../core/roster-store';
@@ -44,6 +45,8 @@ export class SessionStart {
   private readonly storage = inject(StorageStatus);
   private readonly router = inject(Router);
   private readonly groundApi = inject(GroundApi);
+  /** The club's formatter (locale); conditions stay in SI and °C, only the decimal mark and clock follow the club. */
+  protected readonly fmt = inject(ClubFormat).format;
 
   protected readonly squads = this.roster.squads;
   protected readonly rosterProblem = this.roster.problem;
@@ -53,9 +56,9 @@ export class SessionStart {
   protected readonly conditions = new StartConditions();
   protected readonly failure = signal<string | null>(null);
   protected readonly starting = signal(false);
-  protected readonly describeTemperature = (c: number): string => `${round1(c)} °C`;
+  protected readonly describeTemperature = (c: number): string => `${this.fmt().number(c, 1)} °C`;
   protected readonly describeHumidity = (pct: number): string => `${Math.round(pct)} %`;
-  protected readonly describePressure = (hpa: number): string => `${round1(hpa)} hPa`;
+  protected readonly describePressure = (hpa: number): string => `${this.fmt().number(hpa, 1)} hPa`;
 
   protected readonly form = inject(NonNullableFormBuilder).group({
     squadId: ['', Validators.required],
@@ -169,10 +172,10 @@ export class SessionStart {
     const speed = this.conditions.windSpeedMs().value;
     const taps = this.conditions.taps();
     if (taps.direction === 'calm') {
-      return speed > 0 ? `${round1(speed)} m/s, calm` : 'calm';
+      return speed > 0 ? `${this.fmt().number(speed, 1)} m/s, calm` : 'calm';
     }
     const label = WIND_DIRECTIONS.find((d) => d.value === taps.direction)?.label.toLowerCase() ?? 'wind';
-    return `${round1(speed)} m/s ${label}`;
+    return `${this.fmt().number(speed, 1)} m/s ${label}`;
   });
 
   /** Whether the coach changed a measured value (so "use the measurement" would change something). */
@@ -200,7 +203,7 @@ export class SessionStart {
   }
 
   protected time(iso: string): string {
-    return new Date(iso).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' });
+    return this.fmt().time(iso);
   }
 
   protected async start(): Promise<void> {
@@ -246,8 +249,4 @@ export class SessionStart {
   protected resume(id: string): void {
     void this.router.navigate(['/pitchside', id]);
   }
-}
-
-function round1(value: number): string {
-  return (Math.round(value * 10) / 10).toFixed(1).replace(/\.0$/, '');
 }

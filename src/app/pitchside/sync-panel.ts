@@ -2,11 +2,13 @@ import { ChangeDetectionStrategy, Component, computed, inject, input, output } f
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import type { CachedPlayer, ConflictNotice, OutboxEntry } from '../core/loftline-db';
+import { ClubFormat } from '../core/club-format';
 import { StorageStatus } from '../core/storage-status';
 import { SyncIssues } from '../core/sync/sync-issues';
 import { SyncQueue } from '../core/sync/sync-queue';
 import { OUTCOME_LABELS } from '../../../shared/vocabulary';
 import type { Outcome } from '../../../shared/schemas/sync';
+import type { QuantityFormat } from '../../../shared/quantity-format';
 
 /** Words for the fields a conflict can name. */
 const FIELD_LABELS: Record<string, string> = {
@@ -43,6 +45,8 @@ const FIELD_LABELS: Record<string, string> = {
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SyncPanel {
+  /** The club's formatter (clock and decimal mark). */
+  private readonly fmt = inject(ClubFormat).format;
   protected readonly queue = inject(SyncQueue);
   protected readonly storage = inject(StorageStatus);
   protected readonly issues = inject(SyncIssues);
@@ -84,7 +88,8 @@ export class SyncPanel {
           : 'Whether the browser keeps Loftline’s data is not known.';
     const used = this.storage.usageBytes();
     const quota = this.storage.quotaBytes();
-    return used === null ? keep : `${keep} Using ${megabytes(used)}${quota === null ? '' : ` of ${megabytes(quota)}`}.`;
+    const f = this.fmt();
+    return used === null ? keep : `${keep} Using ${megabytes(used, f)}${quota === null ? '' : ` of ${megabytes(quota, f)}`}.`;
   });
 
   constructor() {
@@ -132,10 +137,10 @@ export class SyncPanel {
   }
 
   private clock(epochMs: number | null): string {
-    return epochMs === null ? '—' : new Date(epochMs).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit', second: '2-digit' });
+    return epochMs === null ? '—' : this.fmt().time(epochMs, true);
   }
 }
 
-function megabytes(bytes: number): string {
-  return `${(bytes / 1_000_000).toFixed(bytes < 10_000_000 ? 1 : 0)} MB`;
+function megabytes(bytes: number, f: QuantityFormat): string {
+  return `${f.fixed(bytes / 1_000_000, bytes < 10_000_000 ? 1 : 0)} MB`;
 }

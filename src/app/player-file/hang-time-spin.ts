@@ -1,6 +1,7 @@
-import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, input, inject } from '@angular/core';
 import type { SpinEstimateSkip, SpinEstimatesResponse, TechniqueSpinEstimate } from '../../../shared/schemas/analysis';
 import { TECHNIQUE_LABELS } from '../../../shared/vocabulary';
+import { ClubFormat } from '../core/club-format';
 
 const SKIP_WORDS: Record<SpinEstimateSkip, string> = {
   no_carry: 'no carry logged (and not on target)',
@@ -45,7 +46,7 @@ const SKIP_WORDS: Record<SpinEstimateSkip, string> = {
                 <td>{{ row.timedCount }}</td>
                 <td>{{ row.solvedCount }}</td>
                 <td data-testid="spin-estimate">{{ spinText(row) }}</td>
-                <td>{{ row.eyeBackspinRps === null ? '—' : row.eyeBackspinRps.toFixed(1) + ' rev/s' }}</td>
+                <td>{{ row.eyeBackspinRps === null ? '—' : fmt().fixed(row.eyeBackspinRps, 1) + ' rev/s' }}</td>
                 <td>{{ speedText(row) }}</td>
               </tr>
               @if (skippedText(row); as skipped) {
@@ -98,6 +99,8 @@ const SKIP_WORDS: Record<SpinEstimateSkip, string> = {
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class HangTimeSpin {
+  /** The club's formatter (distance unit, locale). */
+  protected readonly fmt = inject(ClubFormat).format;
   /** The server's estimates for one player. */
   readonly estimates = input.required<SpinEstimatesResponse>();
 
@@ -105,7 +108,7 @@ export class HangTimeSpin {
   protected readonly note = computed(() => {
     const { biasS, sdS } = this.estimates().timing;
     return (
-      `Each reading is corrected by the club’s timing bias (${biasS.toFixed(2)} s) and carries its spread (${sdS.toFixed(2)} s); ` +
+      `Each reading is corrected by the club’s timing bias (${this.fmt().fixed(biasS, 2)} s) and carries its spread (${this.fmt().fixed(sdS, 2)} s); ` +
       `one hand-timed kick pins spin down only to a rev/s or two, and an error in the bias shifts every estimate alike, ` +
       `so calibrate it from video in Club admin. Uses the ${this.estimates().perTechniqueLimit} most recent timed repetitions per technique, ` +
       `at the technique’s usual launch angle unless one was measured.`
@@ -114,12 +117,12 @@ export class HangTimeSpin {
 
   protected spinText(row: TechniqueSpinEstimate): string {
     if (row.backspinRps === null || row.backspinUncertaintyRps === null) return 'no estimate';
-    return `${row.backspinRps.toFixed(1)} ± ${row.backspinUncertaintyRps.toFixed(1)} rev/s`;
+    return `${this.fmt().fixed(row.backspinRps, 1)} ± ${this.fmt().fixed(row.backspinUncertaintyRps, 1)} rev/s`;
   }
 
   protected speedText(row: TechniqueSpinEstimate): string {
     if (row.speedMs === null || row.speedUncertaintyMs === null) return '—';
-    return `${row.speedMs.toFixed(1)} ± ${row.speedUncertaintyMs.toFixed(1)} m/s`;
+    return `${this.fmt().fixed(row.speedMs, 1)} ± ${this.fmt().fixed(row.speedUncertaintyMs, 1)} m/s`;
   }
 
   protected skippedText(row: TechniqueSpinEstimate): string | null {

@@ -23,6 +23,7 @@ import { ReachTable } from './reach-table';
 import { HangTimeSpin } from './hang-time-spin';
 import { RecentKicks } from './recent-kicks';
 import type { TechniqueReach } from './technique-reach';
+import { ClubFormat } from '../core/club-format';
 
 /** Ball size assumed when the player's squad (and so its ball) is unknown: the senior ball. */
 const DEFAULT_BALL_SIZE = 5;
@@ -54,6 +55,8 @@ const DEFAULT_BALL_SIZE = 5;
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class PlayerFile {
+  /** The club's formatter (distance unit, locale). */
+  protected readonly fmt = inject(ClubFormat).format;
   private readonly api = inject(PlayerFileApi);
   private readonly envelopes = inject(ReachEnvelopes);
   private readonly session = inject(AuthSession);
@@ -132,7 +135,9 @@ export class PlayerFile {
   /** "Offline: last updated …" when anything shown came from the device's cache. */
   protected readonly cacheNote = computed(() => {
     const oldest = oldestCachedAt([readyValue(this.header()), readyValue(this.progress()), readyValue(this.kicks())]);
-    return oldest === null ? null : `The server cannot be reached: showing what this device saved, last updated ${updatedLabel(oldest)}.`;
+    return oldest === null
+      ? null
+      : `The server cannot be reached: showing what this device saved, last updated ${updatedLabel(oldest, this.fmt())}.`;
   });
 
   protected readonly title = computed(() => {

@@ -1,7 +1,8 @@
-import { ChangeDetectionStrategy, Component, computed, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, input, signal, inject } from '@angular/core';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import type { CarryBasis, ProgressWeek } from '../../../shared/schemas/analysis';
 import type { Technique } from '../../../shared/schemas/sync';
+import { ClubFormat } from '../core/club-format';
 import { formatValue, weekLabel } from '../ui/charts/chart-format';
 import { TECHNIQUE_LABELS } from '../../../shared/vocabulary';
 import { OutcomeMixChart } from '../ui/charts/outcome-mix-chart';
@@ -73,6 +74,8 @@ export class ProgressPanel {
   /** Which carry the answer holds. */
   readonly basis = input<CarryBasis>('logged');
 
+  /** The club's formatter (distance unit, locale). */
+  private readonly fmt = inject(ClubFormat).format;
   protected readonly metric = signal<ProgressMetric>('carry');
   protected readonly points = computed(() => progressPoints(this.weeks(), this.technique(), this.metric()));
   protected readonly mix = computed(() => outcomeWeeks(this.weeks(), this.technique()));
@@ -86,9 +89,10 @@ export class ProgressPanel {
       return `No ${technique} weeks with a ${what} yet.`;
     }
     const kind = this.metric() === 'carry' ? 'metres' : 'share';
+    const f = this.fmt();
     const first = points[0]!;
     const last = points[points.length - 1]!;
-    return `${TECHNIQUE_LABELS[this.technique()]} ${what} over ${points.length} weeks: ${formatValue(first.value, kind)} in the week of ${weekLabel(first.weekStart)}, ${formatValue(last.value, kind)} in the week of ${weekLabel(last.weekStart)}.`;
+    return `${TECHNIQUE_LABELS[this.technique()]} ${what} over ${points.length} weeks: ${formatValue(first.value, kind, f)} in the week of ${weekLabel(first.weekStart, f)}, ${formatValue(last.value, kind, f)} in the week of ${weekLabel(last.weekStart, f)}.`;
   });
 
   protected readonly mixSummary = computed(() => {
@@ -97,6 +101,6 @@ export class ProgressPanel {
       return 'No outcomes logged yet.';
     }
     const last = weeks[weeks.length - 1]!;
-    return `Outcome mix over ${weeks.length} weeks; in the week of ${weekLabel(last.weekStart)}, ${Math.round(last.share.on_target * 100)} % on target of ${last.reps} repetitions.`;
+    return `Outcome mix over ${weeks.length} weeks; in the week of ${weekLabel(last.weekStart, this.fmt())}, ${this.fmt().percent(last.share.on_target)} on target of ${last.reps} repetitions.`;
   });
 }

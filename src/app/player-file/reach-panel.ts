@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, input, inject } from '@angular/core';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { curveHitProbability, PROFILE_WARNING_TEXT, reachWarnings } from '../../../shared/flight';
 import type { PlayerKick } from '../../../shared/schemas/analysis';
@@ -6,6 +6,7 @@ import { TECHNIQUE_LABELS } from '../../../shared/vocabulary';
 import { ReachDiagram, type ReachTarget } from '../ui/charts/reach-diagram';
 import { drillTargets } from './player-file-view';
 import { type TechniqueReach, reachHeadline, reachUncertainty } from './technique-reach';
+import { ClubFormat } from '../core/club-format';
 
 /**
  * One technique's reach envelope with its headline numbers: reliable reach (with repetitions
@@ -35,7 +36,7 @@ import { type TechniqueReach, reachHeadline, reachUncertainty } from './techniqu
         <span class="reach-panel__number">{{ headline() }}</span>
         <span class="reach-panel__detail">
           {{ r.entry.repetitions }} {{ r.entry.repetitions === 1 ? 'repetition' : 'repetitions' }} ·
-          {{ r.status === 'ready' ? r.analysis.radiusM : r.entry.reachRadiusM }} m target
+          {{ fmt().round(r.status === 'ready' ? r.analysis.radiusM : r.entry.reachRadiusM) }} target
           @if (r.entry.pending) {
             · updating with the newest kicks
           }
@@ -62,9 +63,9 @@ import { type TechniqueReach, reachHeadline, reachUncertainty } from './techniqu
           [summary]="summary()"
         />
         <p class="reach-panel__note">
-          Predicted landings of {{ r.analysis.envelope.samples }} simulated kicks aimed at {{ r.analysis.envelope.aimDistanceM }} m (the
-          usual drill distance) at standard conditions: ISA sea level, 15 °C, still air, size {{ r.analysis.ballSize }} ball. Hit rates at
-          other distances come from kicks aimed at each of them.
+          Predicted landings of {{ r.analysis.envelope.samples }} simulated kicks aimed at
+          {{ fmt().round(r.analysis.envelope.aimDistanceM) }} (the usual drill distance) at standard conditions: ISA sea level, 15 °C, still
+          air, size {{ r.analysis.ballSize }} ball. Hit rates at other distances come from kicks aimed at each of them.
         </p>
       }
     }
@@ -109,13 +110,15 @@ export class ReachPanel {
   /** The player's recent kicks, for the drill targets. */
   readonly kicks = input<readonly PlayerKick[]>([]);
 
+  /** The club's formatter (distance unit, locale). */
+  protected readonly fmt = inject(ClubFormat).format;
   protected readonly label = computed(() => {
     const r = this.reach();
     return r ? TECHNIQUE_LABELS[r.technique].toLowerCase() : '';
   });
   protected readonly headline = computed(() => {
     const r = this.reach();
-    return r ? reachHeadline(r) : '–';
+    return r ? reachHeadline(r, this.fmt()) : '–';
   });
   /**
    * The profile's warnings in plain words; reach beyond the distances drilled is judged against the reach
@@ -135,7 +138,7 @@ export class ReachPanel {
   });
   protected readonly uncertainty = computed(() => {
     const r = this.reach();
-    return r?.status === 'ready' ? reachUncertainty(r.analysis) : '';
+    return r?.status === 'ready' ? reachUncertainty(r.analysis, this.fmt()) : '';
   });
 
   /** Drill targets with their predicted hit rates, and the next target. */
@@ -165,9 +168,10 @@ export class ReachPanel {
       return '';
     }
     const e = r.analysis.envelope;
+    const f = this.fmt();
     return (
-      `${TECHNIQUE_LABELS[r.technique]} reach envelope: median carry ${e.carryM.p50.toFixed(1)} m, 80 % of kicks between ` +
-      `${e.carryM.p10.toFixed(1)} and ${e.carryM.p90.toFixed(1)} m; reliable reach ${this.headline()}. ` +
+      `${TECHNIQUE_LABELS[r.technique]} reach envelope: median carry ${f.distance(e.carryM.p50)}, 80 % of kicks between ` +
+      `${f.distance(e.carryM.p10)} and ${f.distance(e.carryM.p90)}; reliable reach ${this.headline()}. ` +
       `${this.targets().length} targets drawn.`
     );
   });

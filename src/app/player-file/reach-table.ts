@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, input, inject } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatTableModule } from '@angular/material/table';
@@ -6,6 +6,7 @@ import { RouterLink } from '@angular/router';
 import { TECHNIQUE_LABELS } from '../../../shared/vocabulary';
 import { describeNextTarget, drillLink } from '../core/analysis/next-target';
 import { type TechniqueReach, reachHeadline, reachUncertainty } from './technique-reach';
+import { ClubFormat } from '../core/club-format';
 
 /** One row as the table shows it. */
 interface ReachRow {
@@ -99,6 +100,8 @@ export class ReachTable {
   readonly canAddDrill = input(false);
 
   protected readonly columns = ['technique', 'reach', 'next'];
+  /** The club's formatter (distance unit, locale). */
+  private readonly fmt = inject(ClubFormat).format;
 
   protected readonly rows = computed(() => this.reaches().map((r) => this.row(r)));
 
@@ -114,14 +117,14 @@ export class ReachTable {
         return {
           ...base,
           reps: reach.entry.pending ? 'Being fitted from the newest kicks' : 'No repetitions yet',
-          reach: reachHeadline(reach),
+          reach: reachHeadline(reach, this.fmt()),
           next: reach.entry.pending ? 'Waiting for the fit' : 'Log some repetitions first',
         };
       case 'computing':
         return {
           ...base,
           reps: this.reps(reach.entry.repetitions, reach.entry.reachRadiusM),
-          reach: reachHeadline(reach),
+          reach: reachHeadline(reach, this.fmt()),
           next: 'Computing the envelope…',
         };
       case 'ready': {
@@ -130,13 +133,13 @@ export class ReachTable {
         return {
           technique,
           reps: this.reps(reach.entry.repetitions, reach.analysis.radiusM) + (reach.entry.pending ? ' · updating' : ''),
-          reach: reachHeadline(reach),
-          uncertainty: reachUncertainty(reach.analysis),
-          next: describeNextTarget(next),
+          reach: reachHeadline(reach, this.fmt()),
+          uncertainty: reachUncertainty(reach.analysis, this.fmt()),
+          next: describeNextTarget(next, this.fmt()),
           link,
           nextLabel:
             next.kind === 'target'
-              ? `Add ${technique.toLowerCase()} drill at ${next.distanceM} m, radius ${next.radiusM} m, in Pitchside`
+              ? `Add ${technique.toLowerCase()} drill at ${this.fmt().round(next.distanceM)}, radius ${this.fmt().round(next.radiusM)}, in Pitchside`
               : '',
         };
       }
@@ -144,6 +147,6 @@ export class ReachTable {
   }
 
   private reps(repetitions: number, radiusM: number): string {
-    return `${repetitions} ${repetitions === 1 ? 'repetition' : 'repetitions'} · ${radiusM} m target`;
+    return `${repetitions} ${repetitions === 1 ? 'repetition' : 'repetitions'} · ${this.fmt().round(radiusM)} target`;
   }
 }

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, effect, input, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, input, viewChild, inject } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, ReactiveFormsModule } from '@angular/forms';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -7,8 +7,10 @@ import { MatInputModule } from '@angular/material/input';
 import { MatPaginator, MatPaginatorModule } from '@angular/material/paginator';
 import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableDataSource, MatTableModule } from '@angular/material/table';
+import type { QuantityFormat } from '../../../shared/quantity-format';
 import type { CarryBasis, PlayerKick } from '../../../shared/schemas/analysis';
 import { OUTCOME_LABELS, TECHNIQUE_LABELS, backspinLabel, sidespinLabel } from '../../../shared/vocabulary';
+import { ClubFormat } from '../core/club-format';
 
 /** One row of the table: the kick plus the words the table shows and filters on. */
 export interface KickRow {
@@ -19,33 +21,37 @@ export interface KickRow {
   readonly outcome: string;
   /** Carry on the chosen basis, metres. */
   readonly carryM: number | null;
+  /** Carry as shown, in the club's unit ("31,4 yd"), or "–". */
+  readonly carry: string;
   readonly lateral: string;
   readonly spin: string;
 }
 
-const WHEN = new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' });
+const WHEN: Intl.DateTimeFormatOptions = { weekday: 'short', day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' };
 
 /** Column ids in display order. */
 export const KICK_COLUMNS = ['recordedAt', 'technique', 'target', 'outcome', 'carry', 'lateral', 'spin'] as const;
 
 /** A kick as the table shows it, on the chosen carry basis. */
-export function kickRow(kick: PlayerKick, basis: CarryBasis): KickRow {
+export function kickRow(kick: PlayerKick, basis: CarryBasis, f: QuantityFormat): KickRow {
   const lateral =
     kick.lateralM === null
       ? '–'
       : Math.abs(kick.lateralM) < 0.05
         ? 'on line'
-        : `${Math.abs(kick.lateralM).toFixed(1)} m ${kick.lateralM > 0 ? 'L' : 'R'}`;
+        : `${f.distance(Math.abs(kick.lateralM))} ${kick.lateralM > 0 ? 'L' : 'R'}`;
   const spin = [backspinLabel(kick.backspinStep), kick.sidespinStep === 0 ? null : sidespinLabel(kick.sidespinStep)]
     .filter((s) => s !== null)
     .join(', ');
+  const carryM = basis === 'still-air' ? kick.stillAirCarryM : kick.carryM;
   return {
     kick,
-    when: WHEN.format(new Date(kick.recordedAt)),
+    when: f.dateTime(kick.recordedAt, WHEN),
     technique: TECHNIQUE_LABELS[kick.technique],
-    target: `${kick.targetDistanceM} m · r ${kick.targetRadiusM} m`,
+    target: `${f.round(kick.targetDistanceM)} · r ${f.round(kick.targetRadiusM)}`,
     outcome: OUTCOME_LABELS[kick.outcome],
-    carryM: basis === 'still-air' ? kick.stillAirCarryM : kick.carryM,
+    carryM,
+    carry: f.distance(carryM),
     lateral,
     spin,
   };
@@ -87,7 +93,7 @@ export function kickRow(kick: PlayerKick, basis: CarryBasis): KickRow {
           <th mat-header-cell *matHeaderCellDef mat-sort-header arrowPosition="before" class="recent-kicks__num">
             {{ basis() === 'still-air' ? 'Still-air carry' : 'Carry' }}
           </th>
-          <td mat-cell *matCellDef="let row" class="recent-kicks__num">{{ row.carryM === null ? '–' : row.carryM.toFixed(1) + ' m' }}</td>
+          <td mat-cell *matCellDef="let row" class="recent-kicks__num">{{ row.carry }}</td>
         </ng-container>
         <ng-container matColumnDef="lateral">
           <th mat-header-cell *matHeaderCellDef mat-sort-header arrowPosition="before" class="recent-kicks__num">Lateral</th>
@@ -162,7 +168,9 @@ export class RecentKicks {
 
   private readonly sort = viewChild.required(MatSort);
   private readonly paginator = viewChild.required(MatPaginator);
-  private readonly rows = computed(() => this.kicks().map((k) => kickRow(k, this.basis())));
+  /** The club's formatter (distance unit, locale). */
+  private readonly fmt = inject(ClubFormat).format;
+  private readonly rows = computed(() => this.kicks().map((k) => kickRow(k, this.basis(), this.fmt())));
 
   constructor() {
     this.dataSource.sortingDataAccessor = (row, column): string | number => {
@@ -187,10 +195,7 @@ export class RecentKicks {
       }
     };
     this.dataSource.filterPredicate = (row, filter) =>
-      [row.when, row.technique, row.target, row.outcome, row.lateral, row.spin, row.carryM === null ? '' : row.carryM.toFixed(1)]
-        .join(' ')
-        .toLowerCase()
-        .includes(filter);
+      [row.when, row.technique, row.target, row.outcome, row.lateral, row.spin, row.carry].join(' ').toLowerCase().includes(filter);
     effect(() => {
       this.dataSource.data = this.rows();
     });

@@ -1,5 +1,6 @@
 import type { ProfileEntry } from '../../../shared/schemas/analysis';
 import type { Technique } from '../../../shared/schemas/sync';
+import type { QuantityFormat } from '../../../shared/quantity-format';
 import { formatRange } from '../ui/charts/chart-format';
 import type { ReachAnalysis } from '../core/analysis/reach-envelopes';
 
@@ -13,12 +14,12 @@ export type TechniqueReach =
   | { readonly technique: Technique; readonly status: 'ready'; readonly entry: ProfileEntry; readonly analysis: ReachAnalysis };
 
 /** Reliable reach as a headline, e.g. "31.4 m"; "none yet" when no distance reaches 60 %. */
-export function reachHeadline(reach: TechniqueReach): string {
+export function reachHeadline(reach: TechniqueReach, f: QuantityFormat): string {
   if (reach.status === 'ready') {
-    return reach.analysis.reliableReachM === null ? 'none yet' : `${reach.analysis.reliableReachM.toFixed(1)} m`;
+    return reach.analysis.reliableReachM === null ? 'none yet' : f.distance(reach.analysis.reliableReachM);
   }
   if (reach.status === 'computing' || reach.status === 'empty') {
-    return reach.entry.reliableReachM === null ? '–' : `${reach.entry.reliableReachM.toFixed(1)} m`;
+    return reach.entry.reliableReachM === null ? '–' : f.distance(reach.entry.reliableReachM);
   }
   return '–';
 }
@@ -28,8 +29,8 @@ export function reachHeadline(reach: TechniqueReach): string {
  * mean launch speed ("likely 29.9–32.8 m"), or, when no distance reaches 60 %, the best chance
  * any distance has ("best 38 % at 34.5 m"), so "none yet" still tells the coach how far off it is.
  */
-export function reachUncertainty(analysis: ReachAnalysis): string {
-  const best = `best ${Math.round(analysis.bestTarget.probability * 100)} % at ${analysis.bestTarget.distanceM} m`;
+export function reachUncertainty(analysis: ReachAnalysis, f: QuantityFormat): string {
+  const best = `best ${f.percent(analysis.bestTarget.probability)} at ${f.round(analysis.bestTarget.distanceM)}`;
   if (analysis.reliableReachM === null) {
     return best;
   }
@@ -39,10 +40,10 @@ export function reachUncertainty(analysis: ReachAnalysis): string {
   const low = analysis.reliableReachLowM;
   const high = analysis.reliableReachHighM;
   if (low === null) {
-    return `up to ${(high ?? analysis.reliableReachM).toFixed(1)} m within ±1 standard error of launch speed`;
+    return `up to ${f.distance(high ?? analysis.reliableReachM)} within ±1 standard error of launch speed`;
   }
   if (high === null) {
-    return `at least ${low.toFixed(1)} m within ±1 standard error of launch speed`;
+    return `at least ${f.distance(low)} within ±1 standard error of launch speed`;
   }
-  return `likely ${formatRange(low, high, 'metres')} (±1 standard error of launch speed)`;
+  return `likely ${formatRange(low, high, 'metres', f)} (±1 standard error of launch speed)`;
 }

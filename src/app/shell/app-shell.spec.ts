@@ -113,6 +113,8 @@ describe('AppShell', () => {
       playerId: null,
       childPlayerIds: [],
     });
+    // The shell fetches the club's units and locale for every screen.
+    backend.expectOne('/api/club/settings').flush({ timingBiasS: 0.2, timingSdS: 0.08, distanceUnit: 'm', locale: 'en-GB' });
     if (!before) {
       await answerPull();
     }

@@ -1,5 +1,5 @@
 import { BreakpointObserver } from '@angular/cdk/layout';
-import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
@@ -13,11 +13,13 @@ import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/rou
 import { map } from 'rxjs';
 import { ROLE_LABELS } from '../../../shared/roles';
 import { AuthSession } from '../core/auth/auth-session';
+import { ClubFormat } from '../core/club-format';
 import { NAV_ITEMS, navItemsFor } from '../core/nav-items';
 import { ProfileStore } from '../core/profile-store';
 import { SyncQueue } from '../core/sync/sync-queue';
 import { ThemePreference } from '../core/theme-preference';
 import { LoftlineMark } from '../ui/loftline-mark';
+import { UpdateBanner } from './update-banner';
 import { SignOutWarning, type SignOutWarningChoice, type SignOutWarningData } from './sign-out-warning';
 
 /** From this width on the navigation sits in a side nav; below it, in a bottom bar for thumbs. */
@@ -46,6 +48,7 @@ const BOTTOM_BAR_SLOTS = 4;
     RouterLinkActive,
     RouterOutlet,
     LoftlineMark,
+    UpdateBanner,
   ],
   templateUrl: './app-shell.html',
   styleUrl: './app-shell.scss',
@@ -97,6 +100,25 @@ export class AppShell {
   constructor() {
     // The club name in the bar comes from GET /api/me; the stored one shows until it answers.
     inject(ProfileStore).ensureLoaded();
+    // The club's distance unit and locale (cached on the device for offline use) for every screen.
+    void inject(ClubFormat).refresh();
+    // A printed sheet carries every chart's table: open the "Show as table" alternatives while printing.
+    const opened: HTMLDetailsElement[] = [];
+    const openTables = (): void => {
+      for (const d of Array.from(document.querySelectorAll<HTMLDetailsElement>('details.ll-chart__alt:not([open])'))) {
+        d.open = true;
+        opened.push(d);
+      }
+    };
+    const closeTables = (): void => {
+      for (const d of opened.splice(0)) d.open = false;
+    };
+    window.addEventListener('beforeprint', openTables);
+    window.addEventListener('afterprint', closeTables);
+    inject(DestroyRef).onDestroy(() => {
+      window.removeEventListener('beforeprint', openTables);
+      window.removeEventListener('afterprint', closeTables);
+    });
   }
 
   protected signOut(): void {

@@ -1,12 +1,14 @@
-import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, input, inject } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
+import type { QuantityFormat } from '../../../shared/quantity-format';
 import type { SquadWeekPlayer } from '../../../shared/schemas/analysis';
+import { ClubFormat } from '../core/club-format';
 
-const DAY = new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short' });
+const DAY: Intl.DateTimeFormatOptions = { weekday: 'short', day: 'numeric', month: 'short' };
 
-/** One player's sessions over the limit in words, e.g. "Bo Adeyemi (46 on Tue 4 Mar)". */
-export function loadLine(player: Pick<SquadWeekPlayer, 'displayName' | 'loadFlags'>): string {
-  const sessions = player.loadFlags.map((f) => `${f.reps} on ${DAY.format(new Date(f.startedAt))}`).join(', ');
+/** One player's sessions over the limit in words, e.g. "Bo Adeyemi (46 on Tue 4 Mar)" (days in the club's locale). */
+export function loadLine(player: Pick<SquadWeekPlayer, 'displayName' | 'loadFlags'>, fmt: QuantityFormat): string {
+  const sessions = player.loadFlags.map((f) => `${f.reps} on ${fmt.dateTime(f.startedAt, DAY)}`).join(', ');
   return `${player.displayName} (${sessions})`;
 }
 
@@ -64,5 +66,10 @@ export class LoadCaution {
   readonly limit = input.required<number>();
 
   protected readonly flagged = computed(() => this.players().filter((p) => p.loadFlags.length > 0));
-  protected readonly lines = computed(() => this.flagged().map(loadLine).join('; '));
+  private readonly fmt = inject(ClubFormat).format;
+  protected readonly lines = computed(() =>
+    this.flagged()
+      .map((p) => loadLine(p, this.fmt()))
+      .join('; '),
+  );
 }

@@ -1,3 +1,4 @@
+import { DISTANCE_UNIT_WORDS, metresTo, type DistanceUnit } from '../../../shared/units';
 import { PROFILE_WARNING_TEXT } from '../../../shared/flight';
 import type { CarryBasis, SquadWeek, SquadWeekPlayer } from '../../../shared/schemas/analysis';
 import type { Technique } from '../../../shared/schemas/sync';
@@ -113,15 +114,18 @@ export function csvCell(value: string | number | null): string {
 }
 
 const pct = (v: number | null): number | null => (v === null ? null : Math.round(v * 1000) / 10);
-const metres = (v: number | null): number | null => (v === null ? null : Math.round(v * 10) / 10);
 
 /**
- * The table as CSV (RFC 4180, CRLF line ends), in the order shown. Header names say the units,
- * the technique and the carry basis, so the file reads correctly outside Loftline.
+ * The table as CSV (RFC 4180, CRLF line ends), in the order shown. Header names say the units (the club's
+ * distance unit: metres or yards), the technique and the carry basis, so the file reads correctly outside
+ * Loftline. Numbers keep the point as decimal mark whatever the club's locale: the comma separates fields
+ * in RFC 4180, and spreadsheets read a point-decimal CSV the same everywhere on import.
  */
-export function squadWeekCsv(rows: readonly SquadRow[], technique: Technique, basis: CarryBasis): string {
+export function squadWeekCsv(rows: readonly SquadRow[], technique: Technique, basis: CarryBasis, unit: DistanceUnit = 'm'): string {
   const t = TECHNIQUE_LABELS[technique];
-  const carryName = basis === 'still-air' ? 'median still-air carry (m)' : 'median carry (m)';
+  const u = DISTANCE_UNIT_WORDS[unit].symbol;
+  const distance = (v: number | null): number | null => (v === null ? null : Math.round(metresTo(v, unit) * 10) / 10);
+  const carryName = basis === 'still-air' ? `median still-air carry (${u})` : `median carry (${u})`;
   const header = [
     'Shirt',
     'Player',
@@ -133,9 +137,9 @@ export function squadWeekCsv(rows: readonly SquadRow[], technique: Technique, ba
     `${t} reps`,
     `${t} hit rate (%)`,
     `${t} ${carryName}`,
-    `${t} reliable reach (m)`,
-    `${t} reach target radius (m)`,
-    `${t} next target (m)`,
+    `${t} reliable reach (${u})`,
+    `${t} reach target radius (${u})`,
+    `${t} next target (${u})`,
     `${t} next target predicted hits (%)`,
     'Sessions over the repetition limit',
   ];
@@ -154,10 +158,10 @@ export function squadWeekCsv(rows: readonly SquadRow[], technique: Technique, ba
         r.bestTechnique ? TECHNIQUE_LABELS[r.bestTechnique] : null,
         r.techniqueReps,
         pct(r.techniqueHitRate),
-        metres(r.techniqueMedianCarryM),
-        metres(r.reliableReachM),
-        r.reachRadiusM,
-        next?.distanceM ?? null,
+        distance(r.techniqueMedianCarryM),
+        distance(r.reliableReachM),
+        distance(r.reachRadiusM),
+        distance(next?.distanceM ?? null),
         next ? pct(next.probability) : null,
         r.loadFlags,
       ]

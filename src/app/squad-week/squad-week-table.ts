@@ -11,10 +11,11 @@ import { MatTooltipModule } from '@angular/material/tooltip';
 import { RouterLink } from '@angular/router';
 import type { CarryBasis } from '../../../shared/schemas/analysis';
 import type { Technique } from '../../../shared/schemas/sync';
-import { describeNextTarget, drillLink } from '../core/analysis/next-target';
+import { describeNextTarget, drillLink, type NextTargetResult } from '../core/analysis/next-target';
 import { TECHNIQUE_LABELS } from '../../../shared/vocabulary';
 import { type SquadRow, changeMark, csvFileName, squadWeekCsv } from './squad-week-rows';
 import { TextDownload } from './text-download';
+import { ClubFormat } from '../core/club-format';
 
 /** Column ids in display order. */
 export const SQUAD_COLUMNS = [
@@ -57,6 +58,8 @@ export const SQUAD_COLUMNS = [
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SquadWeekTable {
+  /** The club's formatter (distance unit, locale). */
+  protected readonly fmt = inject(ClubFormat).format;
   private readonly download = inject(TextDownload);
 
   /** The players' lines. */
@@ -78,7 +81,9 @@ export class SquadWeekTable {
   protected readonly filterText = toSignal(this.filter.valueChanges, { initialValue: '' });
   protected readonly dataSource = new MatTableDataSource<SquadRow>([]);
   protected readonly changeMark = changeMark;
-  protected readonly describeNext = describeNextTarget;
+  protected describeNext(result: NextTargetResult): string {
+    return describeNextTarget(result, this.fmt());
+  }
 
   private readonly sort = viewChild.required(MatSort);
 
@@ -132,7 +137,7 @@ export class SquadWeekTable {
   }
 
   protected exportCsv(): void {
-    const csv = squadWeekCsv(this.shownRows(), this.technique(), this.basis());
+    const csv = squadWeekCsv(this.shownRows(), this.technique(), this.basis(), this.fmt().distanceUnit);
     this.download.save(csvFileName(this.squadName(), this.weekStart(), this.technique()), csv);
   }
 
@@ -141,11 +146,11 @@ export class SquadWeekTable {
   }
 
   protected percent(value: number | null): string {
-    return value === null ? '–' : `${Math.round(value * 100)} %`;
+    return this.fmt().percent(value);
   }
 
   protected metres(value: number | null): string {
-    return value === null ? '–' : `${value.toFixed(1)} m`;
+    return this.fmt().distance(value);
   }
 
   protected link(row: SquadRow): ReturnType<typeof drillLink> | null {

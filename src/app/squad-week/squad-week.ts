@@ -27,6 +27,7 @@ import { type NextTargets, busiestTechniqueOfWeek, squadRows } from './squad-wee
 import { SquadWeekTable } from './squad-week-table';
 import { REVIEW_CLOCK, isMonday, lastCompleteWeek, mondayOf } from './week-dates';
 import { WeekPicker } from './week-picker';
+import { ClubFormat } from '../core/club-format';
 
 const NO_TARGETS: NextTargets = { byPlayer: new Map(), otherwise: { status: 'computing' } };
 
@@ -59,6 +60,8 @@ const NO_TARGETS: NextTargets = { byPlayer: new Map(), otherwise: { status: 'com
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SquadWeek {
+  /** The club's formatter (distance unit, locale). */
+  private readonly fmt = inject(ClubFormat).format;
   /** Whether the signed-in user may send the weekly digests now (admins and head coaches). */
   private readonly auth = inject(AuthSession);
   protected readonly canSendDigests = computed(() => ['admin', 'head_coach'].includes(this.auth.role() ?? ''));
@@ -147,7 +150,7 @@ export class SquadWeek {
     const label = TECHNIQUE_LABELS[this.chosenTechnique()].toLowerCase();
     if (zones.length === 0) return `No ${label} repetitions this week.`;
     const best = zones.reduce((a, b) => (b.hitRate > a.hitRate ? b : a));
-    return `Squad ${label} hit rate in ${zones.length} distance bands; highest ${Math.round(best.hitRate * 100)} % at ${best.bandStartM}–${best.bandEndM} m.`;
+    return `Squad ${label} hit rate in ${zones.length} distance bands; highest ${this.fmt().percent(best.hitRate)} at ${this.fmt().distanceRange(best.bandStartM, best.bandEndM, 0)}.`;
   });
   protected readonly calibrationSummary = computed(() => {
     const marks = this.calibration();
@@ -155,15 +158,18 @@ export class SquadWeek {
     const reps = marks.reduce((n, m) => n + m.reps, 0);
     const predicted = marks.reduce((n, m) => n + m.predicted * m.reps, 0) / reps;
     const observed = marks.reduce((n, m) => n + m.observed * m.reps, 0) / reps;
+    const f = this.fmt();
     return (
-      `${marks.length} players, ${reps} repetitions: predicted ${Math.round(predicted * 100)} % hits ` +
-      `(${(predicted * reps).toFixed(1)}), observed ${Math.round(observed * 100)} % (${Math.round(observed * reps)}).`
+      `${marks.length} players, ${reps} repetitions: predicted ${f.percent(predicted)} hits ` +
+      `(${f.fixed(predicted * reps, 1)}), observed ${f.percent(observed)} (${Math.round(observed * reps)}).`
     );
   });
 
   protected readonly cacheNote = computed(() => {
     const oldest = oldestCachedAt([readyValue(this.squads()), readyValue(this.weekState())]);
-    return oldest === null ? null : `The server cannot be reached: showing what this device saved, last updated ${updatedLabel(oldest)}.`;
+    return oldest === null
+      ? null
+      : `The server cannot be reached: showing what this device saved, last updated ${updatedLabel(oldest, this.fmt())}.`;
   });
 
   protected chooseSquad(squadId: string): void {

@@ -1,3 +1,4 @@
+import type { QuantityFormat } from '../../../shared/quantity-format';
 import { InjectionToken } from '@angular/core';
 
 /*
@@ -34,15 +35,13 @@ export function isMonday(value: string | null | undefined): value is string {
   return !Number.isNaN(d.getTime()) && d.toISOString().slice(0, 10) === value && d.getUTCDay() === 1;
 }
 
-const DAY_MONTH = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', timeZone: 'UTC' });
-const DAY_MONTH_YEAR = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
-
-/** "3 Mar – 9 Mar 2025" for the week starting on `monday` (the year once, at the end, unless the week spans two). */
-export function weekRangeLabel(monday: string): string {
+/** "3 Mar – 9 Mar 2025" (in the club's locale) for the week starting on `monday` (the year once, at the end, unless the week spans two). */
+export function weekRangeLabel(monday: string, f: QuantityFormat): string {
   const start = new Date(`${monday}T00:00:00Z`);
   const end = new Date(start.getTime() + 6 * DAY_MS);
-  const first = start.getUTCFullYear() === end.getUTCFullYear() ? DAY_MONTH.format(start) : DAY_MONTH_YEAR.format(start);
-  return `${first} – ${DAY_MONTH_YEAR.format(end)}`;
+  const endDay = end.toISOString().slice(0, 10);
+  const first = f.day(monday, start.getUTCFullYear() !== end.getUTCFullYear());
+  return `${first} – ${f.day(endDay, true)}`;
 }
 
 /** The clock Squad week opens on (a token so specs can fix "today"). */

@@ -1,11 +1,12 @@
-import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, output } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
-import { MAT_DATE_LOCALE, MAT_NATIVE_DATE_FORMATS, provideNativeDateAdapter } from '@angular/material/core';
+import { DateAdapter, MAT_DATE_LOCALE, MAT_NATIVE_DATE_FORMATS, provideNativeDateAdapter } from '@angular/material/core';
 import { type MatDatepickerInputEvent, MatDatepickerModule } from '@angular/material/datepicker';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { addWeeks, localDate, localDay, mondayOf, weekRangeLabel } from './week-dates';
+import { ClubFormat } from '../core/club-format';
 
 /**
  * Picks the ISO week to review: a step back or forward, or any day in a calendar (the week that
@@ -15,8 +16,9 @@ import { addWeeks, localDate, localDay, mondayOf, weekRangeLabel } from './week-
   selector: 'll-week-picker',
   imports: [MatButtonModule, MatDatepickerModule, MatFormFieldModule, MatIconModule, MatInputModule],
   providers: [
-    // Day-month-year, as the rest of Loftline writes dates.
-    { provide: MAT_DATE_LOCALE, useValue: 'en-GB' },
+    // The club's locale: its date order in the field and its first day of the week in the calendar
+    // (the native adapter reads CLDR week data through Intl.Locale). Review weeks stay ISO weeks, Monday first.
+    { provide: MAT_DATE_LOCALE, useFactory: () => inject(ClubFormat).format().locale },
     provideNativeDateAdapter({
       ...MAT_NATIVE_DATE_FORMATS,
       display: { ...MAT_NATIVE_DATE_FORMATS.display, dateInput: { day: 'numeric', month: 'short', year: 'numeric' } },
@@ -71,7 +73,13 @@ export class WeekPicker {
     return sunday;
   });
   protected readonly atLatest = computed(() => this.week() >= this.latest());
-  protected readonly range = computed(() => weekRangeLabel(this.week()));
+  private readonly fmt = inject(ClubFormat).format;
+  protected readonly range = computed(() => weekRangeLabel(this.week(), this.fmt()));
+
+  constructor() {
+    const adapter = inject<DateAdapter<Date>>(DateAdapter);
+    effect(() => adapter.setLocale(this.fmt().locale));
+  }
 
   protected step(weeks: number): void {
     const next = addWeeks(this.week(), weeks);

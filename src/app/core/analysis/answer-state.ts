@@ -1,3 +1,4 @@
+import type { QuantityFormat } from '../../../../shared/quantity-format';
 import { Observable, OperatorFunction, catchError, map, of, startWith } from 'rxjs';
 import { describeApiError } from '../api-error';
 import type { LoadState } from '../load-state';
@@ -42,9 +43,7 @@ export function oldestCachedAt(answers: readonly (Answer<unknown> | null)[]): st
   return oldest;
 }
 
-const UPDATED = new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' });
-
-/** "Tue 4 Mar, 18:42": when a cached answer was last fresh. */
-export function updatedLabel(iso: string): string {
-  return UPDATED.format(new Date(iso));
+/** "Tue 4 Mar, 18:42" (in the club's locale): when a cached answer was last fresh. */
+export function updatedLabel(iso: string, f: QuantityFormat): string {
+  return f.dateTime(iso, { weekday: 'short', day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' });
 }

@@ -1,5 +1,7 @@
 import { curveHitProbability, type ReachCurve } from '../../../../shared/flight';
 import { NEXT_TARGET_BAND, bestTarget, describeNextTarget, drillLink, hitCurve, nextTarget } from './next-target';
+import { QuantityFormat } from '../../../../shared/quantity-format';
+import { DEFAULT_DISPLAY } from '../../../../shared/schemas/club';
 
 /** A reach curve (1 m steps to `lastM`) whose probability at every radius is `p(d)`. */
 function curveOf(lastM: number, p: (d: number) => number): ReachCurve {
@@ -37,7 +39,7 @@ describe('nextTarget', () => {
     expect(result.kind).toBe('none');
     if (result.kind !== 'none') return;
     expect(result.peakProbability).toBeCloseTo(0.08, 10);
-    expect(describeNextTarget(result)).toContain('Try a larger target');
+    expect(describeNextTarget(result, new QuantityFormat(DEFAULT_DISPLAY))).toContain('Try a larger target');
   });
 
   it('reports the nearest far-side distance when the probability jumps over the band', () => {
@@ -49,7 +51,7 @@ describe('nextTarget', () => {
     expect(result.kind).toBe('none');
     if (result.kind !== 'none') return;
     expect(result.peakProbability).toBeCloseTo(0.7, 10);
-    expect(describeNextTarget(result)).toContain('None in the 50–60 % band');
+    expect(describeNextTarget(result, new QuantityFormat(DEFAULT_DISPLAY))).toContain('None in the 50–60 % band');
   });
 
   it('refuses an empty curve', () => {

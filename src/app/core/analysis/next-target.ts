@@ -1,3 +1,4 @@
+import type { QuantityFormat } from '../../../../shared/quantity-format';
 import { curveHitProbability, type ReachCurve } from '../../../../shared/flight';
 import type { Technique } from '../../../../shared/schemas/sync';
 
@@ -103,16 +104,16 @@ export function drillLink(technique: Technique, distanceM: number, radiusM: numb
 }
 
 /** A sentence explaining a next-target result, e.g. for the table and screen readers. */
-export function describeNextTarget(result: NextTargetResult): string {
+export function describeNextTarget(result: NextTargetResult, f: QuantityFormat): string {
   if (result.kind === 'target') {
-    return `${result.distanceM} m with a ${result.radiusM} m target: ${Math.round(result.probability * 100)} % predicted hits`;
+    return `${f.round(result.distanceM)} with a ${f.round(result.radiusM)} target: ${f.percent(result.probability)} predicted hits`;
   }
   if (result.peakProbability < NEXT_TARGET_BAND.min) {
-    return `None: at best ${Math.round(result.peakProbability * 100)} % predicted hits with a ${result.radiusM} m target. Try a larger target.`;
+    return `None: at best ${f.percent(result.peakProbability)} predicted hits with a ${f.round(result.radiusM)} target. Try a larger target.`;
   }
   const near =
     result.nearestDistanceM === null || result.nearestProbability === null
       ? ''
-      : ` (nearest: ${result.nearestDistanceM} m at ${Math.round(result.nearestProbability * 100)} %)`;
-  return `None in the 50–60 % band with a ${result.radiusM} m target${near}`;
+      : ` (nearest: ${f.round(result.nearestDistanceM)} at ${f.percent(result.nearestProbability)})`;
+  return `None in the 50–60 % band with a ${f.round(result.radiusM)} target${near}`;
 }

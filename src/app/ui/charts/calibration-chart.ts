@@ -7,9 +7,11 @@ import {
   computed,
   input,
   viewChild,
+  inject,
 } from '@angular/core';
 import { axisBottom, axisLeft, max, scaleLinear, scaleSqrt, select } from 'd3';
 import { drawWidth, injectChartWidth } from './chart-width';
+import { ClubFormat } from '../../core/club-format';
 
 /** One player's predicted against observed hit rate over a week. */
 export interface CalibrationMark {
@@ -79,6 +81,8 @@ export class CalibrationChart {
 
   private readonly svg = viewChild.required<ElementRef<SVGSVGElement>>('svg');
   private readonly width = injectChartWidth();
+  /** The club's formatter (locale). */
+  private readonly fmt = inject(ClubFormat).format;
 
   protected readonly rows = computed(() =>
     this.marks().map((m) => ({
@@ -86,8 +90,8 @@ export class CalibrationChart {
       label: m.label,
       reps: m.reps,
       // Counts beside the rates: a 100 % from three kicks is not a 100 % from thirty.
-      predicted: `${Math.round(m.predicted * 100)} % (${(m.predicted * m.reps).toFixed(1)} of ${m.reps})`,
-      observed: `${Math.round(m.observed * 100)} % (${Math.round(m.observed * m.reps)} of ${m.reps})`,
+      predicted: `${this.fmt().percent(m.predicted)} (${this.fmt().fixed(m.predicted * m.reps, 1)} of ${m.reps})`,
+      observed: `${this.fmt().percent(m.observed)} (${Math.round(m.observed * m.reps)} of ${m.reps})`,
     })),
   );
 
@@ -108,7 +112,7 @@ export class CalibrationChart {
     const r = scaleSqrt()
       .domain([0, Math.max(1, max(marks, (m) => m.reps) ?? 1)])
       .range([2, 11]);
-    const pct = (v: unknown): string => `${Math.round(Number(v) * 100)} %`;
+    const pct = (v: unknown): string => this.fmt().percent(Number(v));
     g.append('g')
       .attr('class', 'll-chart__grid')
       .call(

@@ -7,9 +7,11 @@ import {
   computed,
   input,
   viewChild,
+  inject,
 } from '@angular/core';
 import { axisBottom, axisLeft, scaleBand, scaleLinear, select } from 'd3';
 import type { Outcome } from '../../../../shared/schemas/sync';
+import { ClubFormat } from '../../core/club-format';
 import { weekLabel } from './chart-format';
 import { drawWidth, injectChartWidth } from './chart-width';
 import { OUTCOMES, OUTCOME_LABELS } from '../../../../shared/vocabulary';
@@ -93,11 +95,13 @@ export class OutcomeMixChart {
   protected readonly labels = OUTCOME_LABELS;
   private readonly svg = viewChild.required<ElementRef<SVGSVGElement>>('svg');
   private readonly width = injectChartWidth();
+  /** The club's formatter (locale of dates and numbers). */
+  private readonly fmt = inject(ClubFormat).format;
 
   protected readonly rows = computed(() =>
     this.weeks().map((w) => ({
       weekStart: w.weekStart,
-      week: weekLabel(w.weekStart),
+      week: weekLabel(w.weekStart, this.fmt()),
       reps: w.reps,
       cells: OUTCOMES.map((o) => `${Math.round((w.share[o] ?? 0) * 100)} %`),
     })),
@@ -146,7 +150,7 @@ export class OutcomeMixChart {
         axisLeft(y)
           .tickSize(0)
           .tickPadding(6)
-          .tickFormat((d) => weekLabel(d)),
+          .tickFormat((d) => weekLabel(d, this.fmt())),
       );
     g.append('g')
       .attr('class', 'll-chart__axis')
@@ -154,7 +158,7 @@ export class OutcomeMixChart {
       .call(
         axisBottom(x)
           .ticks(Math.min(5, Math.floor(innerW / 60)))
-          .tickFormat((v) => `${Math.round(Number(v) * 100)} %`),
+          .tickFormat((v) => this.fmt().percent(Number(v))),
       );
     g.selectAll('rect.ll-outcome__segment')
       .data(segments)
@@ -165,6 +169,9 @@ export class OutcomeMixChart {
       .attr('y', (s) => y(s.weekStart) ?? 0)
       .attr('height', y.bandwidth())
       .append('title')
-      .text((s) => `Week of ${weekLabel(s.weekStart)}: ${OUTCOME_LABELS[s.outcome]} ${Math.round(s.share * 100)} % of ${s.reps} reps`);
+      .text(
+        (s) =>
+          `Week of ${weekLabel(s.weekStart, this.fmt())}: ${OUTCOME_LABELS[s.outcome]} ${Math.round(s.share * 100)} % of ${s.reps} reps`,
+      );
   }
 }

@@ -5,12 +5,15 @@ import {
   ViewEncapsulation,
   afterRenderEffect,
   computed,
+  inject,
   input,
   viewChild,
 } from '@angular/core';
 import { area, axisBottom, axisLeft, extent, line, max, min, scaleLinear, scaleUtc, select } from 'd3';
-import { type ValueKind, formatRange, formatValue, weekDate, weekLabel } from './chart-format';
+import { ClubFormat } from '../../core/club-format';
+import { type ValueKind, formatRange, formatValue, scaleValue, weekDate, weekLabel } from './chart-format';
 import { drawWidth, injectChartWidth } from './chart-width';
+import type { QuantityFormat } from '../../../../shared/quantity-format';
 
 /** One week of a progress line: the value, the band around it (both ends or neither), and the reps behind it. */
 export interface ProgressPoint {
@@ -85,23 +88,28 @@ export class ProgressChart {
 
   private readonly svg = viewChild.required<ElementRef<SVGSVGElement>>('svg');
   private readonly width = injectChartWidth();
+  /** The club's formatter: metres are drawn and labelled in its unit, dates in its locale. */
+  private readonly fmt = inject(ClubFormat).format;
 
   protected readonly rows = computed(() =>
     this.points().map((p) => ({
       weekStart: p.weekStart,
-      week: weekLabel(p.weekStart),
-      value: formatValue(p.value, this.kind()),
-      band: formatRange(p.low, p.high, this.kind()),
+      week: weekLabel(p.weekStart, this.fmt()),
+      value: formatValue(p.value, this.kind(), this.fmt()),
+      band: formatRange(p.low, p.high, this.kind(), this.fmt()),
       reps: p.reps,
     })),
   );
 
   constructor() {
-    afterRenderEffect(() => this.draw(this.svg().nativeElement, this.points(), drawWidth(this.width())));
+    afterRenderEffect(() => this.draw(this.svg().nativeElement, this.points(), drawWidth(this.width()), this.fmt()));
   }
 
-  private draw(element: SVGSVGElement, points: readonly ProgressPoint[], width: number): void {
+  private draw(element: SVGSVGElement, given: readonly ProgressPoint[], width: number, f: QuantityFormat): void {
     const kind = this.kind();
+    // Drawn in the club's unit, so the axis ticks fall on round yards (or metres).
+    const inUnit = (v: number | null): number | null => (v === null ? null : scaleValue(v, kind, f));
+    const points = given.map((p) => ({ ...p, value: scaleValue(p.value, kind, f), low: inUnit(p.low), high: inUnit(p.high) }));
     const svg = select(element);
     svg.selectAll('*').remove();
     svg.attr('viewBox', `0 0 ${width} ${HEIGHT_PX}`).attr('width', width).attr('height', HEIGHT_PX);
@@ -150,7 +158,7 @@ export class ProgressChart {
       .call(
         axisLeft(y)
           .ticks(5)
-          .tickFormat((v) => (kind === 'share' ? `${Math.round(Number(v) * 100)} %` : `${Number(v)} m`)),
+          .tickFormat((v) => (kind === 'share' ? f.percent(Number(v)) : `${f.number(Number(v))} ${f.unit}`)),
       );
     g.append('g')
       .attr('class', 'll-chart__axis')
@@ -158,7 +166,7 @@ export class ProgressChart {
       .call(
         axisBottom(x)
           .tickValues(tickDates)
-          .tickFormat((d) => weekLabel((d as Date).toISOString().slice(0, 10))),
+          .tickFormat((d) => weekLabel((d as Date).toISOString().slice(0, 10), f)),
       );
 
     const band = area<ProgressPoint>()
@@ -183,8 +191,9 @@ export class ProgressChart {
       .attr('cy', (p) => y(p.value))
       .attr('r', 4)
       .append('title')
-      .text(
-        (p) => `Week of ${weekLabel(p.weekStart)}: ${formatValue(p.value, kind)} (${formatRange(p.low, p.high, kind)}), ${p.reps} reps`,
-      );
+      .text((_, i) => {
+        const p = given[i]!;
+        return `Week of ${weekLabel(p.weekStart, f)}: ${formatValue(p.value, kind, f)} (${formatRange(p.low, p.high, kind, f)}), ${p.reps} reps`;
+      });
   }
 }

@@ -5,11 +5,13 @@ import {
   ViewEncapsulation,
   afterRenderEffect,
   computed,
+  inject,
   input,
   viewChild,
 } from '@angular/core';
 import { range, select } from 'd3';
 import type { DistributionSummary, LandingEllipse } from '../../../../shared/flight';
+import { ClubFormat } from '../../core/club-format';
 import { formatValue } from './chart-format';
 import { drawWidth, injectChartWidth } from './chart-width';
 
@@ -109,31 +111,37 @@ export class ReachDiagram {
 
   private readonly svg = viewChild.required<ElementRef<SVGSVGElement>>('svg');
   private readonly width = injectChartWidth();
+  /** The club's formatter: labels in its distance unit (the drawing itself is to scale in metres). */
+  private readonly fmt = inject(ClubFormat).format;
 
   protected readonly hasDrill = computed(() => this.targets().some((t) => t.kind === 'drill'));
   protected readonly hasNext = computed(() => this.targets().some((t) => t.kind === 'next'));
 
   protected readonly rows = computed(() => {
     const p = this.picture();
+    const f = this.fmt();
     const lateral = (v: number): string =>
-      Math.abs(v) < 0.05 ? 'on the aim line' : `${Math.abs(v).toFixed(1)} m ${v > 0 ? 'left' : 'right'}`;
+      Math.abs(v) < 0.05 ? 'on the aim line' : `${f.distance(Math.abs(v))} ${v > 0 ? 'left' : 'right'}`;
     const rows = [
-      { label: 'Carry, 10th percentile', value: formatValue(p.carryM.p10, 'metres') },
-      { label: 'Carry, median', value: formatValue(p.carryM.p50, 'metres') },
-      { label: 'Carry, 90th percentile', value: formatValue(p.carryM.p90, 'metres') },
+      { label: 'Carry, 10th percentile', value: formatValue(p.carryM.p10, 'metres', this.fmt()) },
+      { label: 'Carry, median', value: formatValue(p.carryM.p50, 'metres', this.fmt()) },
+      { label: 'Carry, 90th percentile', value: formatValue(p.carryM.p90, 'metres', this.fmt()) },
       { label: 'Lateral, median', value: lateral(p.lateralM.p50) },
       { label: 'Lateral, 10th–90th percentile', value: `${lateral(p.lateralM.p10)} to ${lateral(p.lateralM.p90)}` },
       {
         label: '90 % ellipse',
-        value: `${(2 * p.ellipse.semiMajorM).toFixed(1)} m × ${(2 * p.ellipse.semiMinorM).toFixed(1)} m`,
+        value: `${f.distance(2 * p.ellipse.semiMajorM)} × ${f.distance(2 * p.ellipse.semiMinorM)}`,
       },
-      { label: 'Reliable reach', value: this.reliableReachM() === null ? 'none' : formatValue(this.reliableReachM(), 'metres') },
+      {
+        label: 'Reliable reach',
+        value: this.reliableReachM() === null ? 'none' : formatValue(this.reliableReachM(), 'metres', this.fmt()),
+      },
     ];
     for (const t of this.targets()) {
       const what = t.kind === 'next' ? 'Next target' : `Drill target${t.reps === null ? '' : ` (${t.reps} reps)`}`;
       rows.push({
-        label: `${what} ${t.distanceM} m, radius ${t.radiusM} m`,
-        value: t.probability === null ? '–' : `${Math.round(t.probability * 100)} % predicted hits`,
+        label: `${what} ${f.round(t.distanceM)}, radius ${f.round(t.radiusM)}`,
+        value: t.probability === null ? '–' : `${f.percent(t.probability)} predicted hits`,
       });
     }
     return rows;
@@ -161,8 +169,11 @@ export class ReachDiagram {
       absQuantile98(xM),
       5,
     );
-    const step = ringStep(farthest);
-    const forwardM = Math.ceil((farthest * 1.08) / step) * step;
+    // Rings fall on round distances in the club's unit (5 m or 5 yd apart); the drawing stays to scale.
+    const f = this.fmt();
+    const unitsPerM = f.toUnit(1);
+    const step = ringStep(farthest * unitsPerM);
+    const forwardM = (Math.ceil((farthest * unitsPerM * 1.08) / step) * step) / unitsPerM;
     const innerW = Math.max(10, width - MARGIN.left - MARGIN.right);
     const lateralHalfM = Math.max(forwardM / (2 * MAX_ASPECT), absQuantile98(yM) * 1.15, ...targets.map((t) => t.radiusM * 1.5));
     const scale = innerW / (2 * lateralHalfM);
@@ -194,7 +205,7 @@ export class ReachDiagram {
       .attr('height', innerH);
     const plot = svg.append('g').attr('clip-path', `url(#${clipId})`);
 
-    const rings = range(step, forwardM + step / 2, step);
+    const rings = range(step, forwardM * unitsPerM + step / 2, step);
     plot
       .selectAll('circle.ll-reach__ring')
       .data(rings)
@@ -202,7 +213,7 @@ export class ReachDiagram {
       .attr('class', 'll-reach__ring')
       .attr('cx', cx)
       .attr('cy', baseY)
-      .attr('r', (d) => d * scale);
+      .attr('r', (d) => (d / unitsPerM) * scale);
     plot.append('line').attr('class', 'll-reach__aim').attr('x1', cx).attr('y1', baseY).attr('x2', cx).attr('y2', MARGIN.top);
 
     plot
@@ -244,7 +255,7 @@ export class ReachDiagram {
       .attr('cy', (t) => sy(t.distanceM))
       .attr('r', (t) => Math.max(2, t.radiusM * scale))
       .append('title')
-      .text((t) => `${t.kind === 'next' ? 'Next target' : 'Drill target'} ${t.distanceM} m, radius ${t.radiusM} m`);
+      .text((t) => `${t.kind === 'next' ? 'Next target' : 'Drill target'} ${f.round(t.distanceM)}, radius ${f.round(t.radiusM)}`);
 
     // Ring labels sit on each ring a little right of the aim line, where targets never are, and
     // only where they fall inside the drawing.
@@ -254,22 +265,23 @@ export class ReachDiagram {
       .data(
         rings.filter(
           (d) =>
-            cx + d * scale * Math.sin(labelAngle) < MARGIN.left + innerW - 24 && baseY - d * scale * Math.cos(labelAngle) > MARGIN.top + 8,
+            cx + (d / unitsPerM) * scale * Math.sin(labelAngle) < MARGIN.left + innerW - 24 &&
+            baseY - (d / unitsPerM) * scale * Math.cos(labelAngle) > MARGIN.top + 8,
         ),
       )
       .join('text')
       .attr('class', 'll-chart__label ll-reach__ring-label')
-      .attr('x', (d) => cx + d * scale * Math.sin(labelAngle))
-      .attr('y', (d) => baseY - d * scale * Math.cos(labelAngle) + 4)
+      .attr('x', (d) => cx + (d / unitsPerM) * scale * Math.sin(labelAngle))
+      .attr('y', (d) => baseY - (d / unitsPerM) * scale * Math.cos(labelAngle) + 4)
       .attr('text-anchor', 'middle')
-      .text((d) => `${d} m`);
+      .text((d) => `${f.number(d)} ${f.unit}`);
     if (reliableReachM !== null) {
       svg
         .append('text')
         .attr('class', 'll-reach__reliable-label')
         .attr('x', MARGIN.left + 4)
         .attr('y', Math.max(MARGIN.top + 12, sy(reliableReachM) - 4))
-        .text(`reliable ${reliableReachM.toFixed(1)} m`);
+        .text(`reliable ${f.distance(reliableReachM)}`);
     }
     svg.append('circle').attr('class', 'll-reach__spot').attr('cx', cx).attr('cy', baseY).attr('r', 4);
     svg

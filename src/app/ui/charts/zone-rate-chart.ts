@@ -7,9 +7,12 @@ import {
   computed,
   input,
   viewChild,
+  inject,
 } from '@angular/core';
 import { axisBottom, axisLeft, scaleBand, scaleLinear, select } from 'd3';
 import { drawWidth, injectChartWidth } from './chart-width';
+import type { QuantityFormat } from '../../../../shared/quantity-format';
+import { ClubFormat } from '../../core/club-format';
 
 /** The hit rate of one band of target distance. */
 export interface ZoneRate {
@@ -23,9 +26,9 @@ export interface ZoneRate {
 const HEIGHT_PX = 220;
 const MARGIN = { top: 20, right: 8, bottom: 30, left: 44 };
 
-/** "20–25 m". */
-function bandLabel(z: ZoneRate): string {
-  return `${z.bandStartM}–${z.bandEndM} m`;
+/** "20–25 m", or in a yards club "21,9–27,3 yd" (bands are metres on the server). */
+function bandLabel(z: ZoneRate, f: QuantityFormat): string {
+  return `${f.number(f.toUnit(z.bandStartM), 1)}–${f.round(z.bandEndM)}`;
 }
 
 /** The bands from the nearest to the farthest in steps of the narrowest band, with or without data. */
@@ -94,9 +97,11 @@ export class ZoneRateChart {
 
   private readonly svg = viewChild.required<ElementRef<SVGSVGElement>>('svg');
   private readonly width = injectChartWidth();
+  /** The club's formatter (distance unit, locale). */
+  private readonly fmt = inject(ClubFormat).format;
 
   protected readonly rows = computed(() =>
-    this.zones().map((z) => ({ band: bandLabel(z), reps: z.reps, hitRate: `${Math.round(z.hitRate * 100)} %` })),
+    this.zones().map((z) => ({ band: bandLabel(z, this.fmt()), reps: z.reps, hitRate: this.fmt().percent(z.hitRate) })),
   );
 
   constructor() {
@@ -121,7 +126,10 @@ export class ZoneRateChart {
     }
     // Every band from the nearest to the farthest, so a distance nobody trained at shows as a gap.
     const slots = bandSlots(zones);
-    const x = scaleBand<string>().domain(slots.map(bandLabel)).range([0, innerW]).padding(0.2);
+    const x = scaleBand<string>()
+      .domain(slots.map((z) => bandLabel(z, this.fmt())))
+      .range([0, innerW])
+      .padding(0.2);
     const y = scaleLinear().domain([0, 1]).range([innerH, 0]);
     g.append('g')
       .attr('class', 'll-chart__grid')
@@ -136,27 +144,27 @@ export class ZoneRateChart {
       .call(
         axisLeft(y)
           .ticks(4)
-          .tickFormat((v) => `${Math.round(Number(v) * 100)} %`),
+          .tickFormat((v) => this.fmt().percent(Number(v))),
       );
     const every = Math.max(1, Math.ceil(slots.length / Math.max(1, Math.floor(innerW / 56))));
     g.append('g')
       .attr('class', 'll-chart__axis')
       .attr('transform', `translate(0,${innerH})`)
-      .call(axisBottom(x).tickValues(slots.map(bandLabel).filter((_, i) => i % every === 0)));
+      .call(axisBottom(x).tickValues(slots.map((z) => bandLabel(z, this.fmt())).filter((_, i) => i % every === 0)));
     const bars = g.selectAll('g.ll-zone').data(zones).join('g').attr('class', 'll-zone');
     bars
       .append('rect')
       .attr('class', 'll-zone__bar')
-      .attr('x', (z) => x(bandLabel(z)) ?? 0)
+      .attr('x', (z) => x(bandLabel(z, this.fmt())) ?? 0)
       .attr('width', x.bandwidth())
       .attr('y', (z) => y(z.hitRate))
       .attr('height', (z) => innerH - y(z.hitRate))
       .append('title')
-      .text((z) => `${bandLabel(z)}: ${Math.round(z.hitRate * 100)} % of ${z.reps} reps on target`);
+      .text((z) => `${bandLabel(z, this.fmt())}: ${this.fmt().percent(z.hitRate)} of ${z.reps} reps on target`);
     bars
       .append('text')
       .attr('class', 'll-chart__label ll-zone__reps')
-      .attr('x', (z) => (x(bandLabel(z)) ?? 0) + x.bandwidth() / 2)
+      .attr('x', (z) => (x(bandLabel(z, this.fmt())) ?? 0) + x.bandwidth() / 2)
       .attr('y', (z) => y(z.hitRate) - 4)
       .attr('text-anchor', 'middle')
       .text((z) => (x.bandwidth() >= 22 ? `n ${z.reps}` : `${z.reps}`));

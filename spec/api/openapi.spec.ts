@@ -1,0 +1,101 @@
+import request from 'supertest';
+import type * as z from 'zod';
+import { openApiPath } from '../../api/openapi/document';
+import { OPERATIONS } from '../../api/openapi/operations';
+import { anyObjectSchema } from '../../api/openapi/responses';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../seed/scenario';
+import { createMailTestApp, createTestApp, signIn, type MailTestApp } from './fixture';
+import { enumerateRoutes } from './routes';
+
+type Json = Record<string, Record<string, Record<string, unknown>>>;
+
+describe('OpenAPI document', () => {
+  let t: MailTestApp;
+  let doc: { openapi: string; paths: Json };
+  const tokens = new Map<string, string>();
+
+  beforeAll(async () => {
+    // The mail test app mounts every router, the development mail viewer included.
+    t = await createMailTestApp();
+    doc = (await request(t.app).get('/api/openapi.json')).body;
+    for (const role of ['admin', 'head_coach', 'player'] as const) tokens.set(role, (await signIn(t.app, DEMO_ACCOUNTS[role])).accessToken);
+  }, 30_000);
+  afterAll(() => t.close());
+
+  it('is OpenAPI 3.1 and documents every route Express has, and nothing it lacks', () => {
+    expect(doc.openapi).toBe('3.1.0');
+    const documented = Object.entries(doc.paths).flatMap(([path, item]) => Object.keys(item).map((m) => `${m.toUpperCase()} ${path}`));
+    const actual = enumerateRoutes(t.app).map((r) => {
+      const [method, path] = r.split(' ') as [string, string];
+      return `${method} ${openApiPath(path)}`;
+    });
+    expect(actual.filter((r) => !documented.includes(r)))
+      .withContext('routes missing from the document')
+      .toEqual([]);
+    expect(documented.filter((r) => !actual.includes(r)))
+      .withContext('documented routes Express lacks')
+      .toEqual([]);
+  });
+
+  it('renders request bodies and queries from the zod schemas the routers parse with', () => {
+    const login = doc.paths['/api/auth/login']!['post']!;
+    expect(JSON.stringify(login['requestBody'])).toContain('"password"');
+    const settings = doc.paths['/api/club/settings']!['put']!;
+    expect(JSON.stringify(settings['requestBody'])).toContain('"yd"');
+    const week = doc.paths['/api/squads/{id}/week']!['get']!;
+    expect((week['parameters'] as { name: string }[]).map((p) => p.name)).toEqual(['id', 'start', 'carry']);
+  });
+
+  it('serves a readable reference page whose script comes from this server', async () => {
+    const page = await request(t.app).get('/api/reference');
+    expect(page.status).toBe(200);
+    expect(page.type).toBe('text/html');
+    expect(page.text).toContain('<script src="/api/reference.js"');
+    expect(page.text).not.toMatch(/https?:\/\//);
+    expect((await request(t.app).get('/api/reference.js')).status).toBe(200);
+  });
+
+  it('in production answers only a signed-in admin', async () => {
+    const prod = createTestApp({ env: 'production' });
+    try {
+      expect((await request(prod.app).get('/api/openapi.json')).status).toBe(401);
+      expect((await request(prod.app).get('/api/reference')).status).toBe(401);
+      const player = (await signIn(prod.app, DEMO_ACCOUNTS.player)).accessToken;
+      expect((await request(prod.app).get('/api/openapi.json').set('Authorization', `Bearer ${player}`)).status).toBe(403);
+      const admin = (await signIn(prod.app, DEMO_ACCOUNTS.admin)).accessToken;
+      expect((await request(prod.app).get('/api/openapi.json').set('Authorization', `Bearer ${admin}`)).status).toBe(200);
+    } finally {
+      prod.close();
+    }
+  });
+
+  describe('real answers match the documented answer schemas', () => {
+    const detailed = OPERATIONS.filter((op) => op.method === 'GET' && op.answer && op.answer !== anyObjectSchema && !op.path.includes(':'));
+
+    it('covers the detailed GET answers', () => {
+      expect(detailed.map((op) => op.path)).toEqual(
+        jasmine.arrayContaining(['/api/health', '/api/me', '/api/club/settings', '/api/squads', '/api/players', '/api/grounds']),
+      );
+    });
+
+    for (const op of OPERATIONS.filter((o) => o.method === 'GET' && o.answer && o.answer !== anyObjectSchema && !o.path.includes(':'))) {
+      it(`GET ${op.path}`, async () => {
+        const role = op.access === 'public' ? null : op.access.includes('admin') ? 'admin' : op.access[0]!;
+        const req = request(t.app).get(op.path);
+        const res =
+          role === null
+            ? await req
+            : await req.set('Authorization', `Bearer ${tokens.get(role) ?? (await signIn(t.app, DEMO_ACCOUNTS[role])).accessToken}`);
+        expect(res.status).toBe(200);
+        const parsed = (op.answer as z.ZodType).safeParse(res.body);
+        expect(parsed.success ? [] : parsed.error.issues).toEqual([]);
+      });
+    }
+
+    it('POST /api/auth/login', async () => {
+      const res = await request(t.app).post('/api/auth/login').send({ email: DEMO_ACCOUNTS.assistant_coach, password: DEMO_PASSWORD });
+      const login = OPERATIONS.find((op) => op.path === '/api/auth/login')!;
+      expect((login.answer as z.ZodType).safeParse(res.body).success).toBeTrue();
+    });
+  });
+});
