@@ -3,6 +3,7 @@
  * JSON limits, request logs, `/api` routers behind authentication and scope, the built
  * Angular app with SPA fallback, and the one error middleware.
  */
+import compression from 'compression';
 import express, { type Express } from 'express';
 import helmet from 'helmet';
 import { existsSync } from 'node:fs';
@@ -24,6 +25,7 @@ import { exportsRouter } from './exports/exports.router';
 import { importsRouter } from './imports/imports.router';
 import { Mailer } from './mail/mailer';
 import { AuthService } from './auth/auth.service';
+import { servePrecompressed } from './client/precompressed';
 import { clubRouter } from './club/club.router';
 import { authRouter } from './auth/auth.router';
 import { createAuthMiddleware } from './auth/passport';
@@ -100,6 +102,9 @@ export function createApp(deps: AppDeps): Express {
     }),
   );
   app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !(req.url ?? '').startsWith('/api') } }));
+  // Brotli or gzip for API answers (a sync page is mostly repeated keys) and for any client file
+  // without a precompressed copy; zlib runs on libuv's thread pool, off the event loop.
+  app.use(compression({ threshold: 1024 }));
 
   const api = express.Router();
   api.use((_req, _res, next) => {
@@ -150,12 +155,13 @@ export function createApp(deps: AppDeps): Express {
 /** Serves the built Angular app; unknown non-API GETs that accept HTML get `index.html`. */
 function serveClient(app: Express, clientDir: string): void {
   const index = join(clientDir, 'index.html');
+  app.use(servePrecompressed(clientDir));
   app.use(
     express.static(clientDir, {
       index: false,
       setHeaders: (res, path) => {
         // Hashed bundles are immutable; the shell and the service-worker files must revalidate.
-        if (/\.[0-9a-f]{8,}\.(js|css)$/i.test(path) || /-[A-Z0-9]{8}\.(js|css)$/.test(path)) {
+        if (/\.[0-9a-f]{8,}\.(js|css)(\.br|\.gz)?$/i.test(path) || /-[A-Z0-9]{8}\.(js|css)(\.br|\.gz)?$/.test(path)) {
           res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
         } else {
           res.setHeader('Cache-Control', 'no-cache');
@@ -164,7 +170,8 @@ function serveClient(app: Express, clientDir: string): void {
     }),
   );
   app.get('/{*splat}', (req, res, next) => {
-    if (!req.accepts('html') || !existsSync(index)) return next();
+    // A path with a file extension names a file (robots.txt, a stale chunk): a 404, never the app's HTML.
+    if (/\.[^/]*$/.test(req.path) || !req.accepts('html') || !existsSync(index)) return next();
     res.setHeader('Cache-Control', 'no-cache');
     res.sendFile(index);
   });
