@@ -3,7 +3,6 @@
  * JSON limits, request logs, `/api` routers behind authentication and scope, the built
  * Angular app with SPA fallback, and the one error middleware.
  */
-import compression from 'compression';
 import express, { type Express } from 'express';
 import helmet from 'helmet';
 import { existsSync } from 'node:fs';
@@ -25,6 +24,7 @@ import { exportsRouter } from './exports/exports.router';
 import { importsRouter } from './imports/imports.router';
 import { Mailer } from './mail/mailer';
 import { AuthService } from './auth/auth.service';
+import { compressJson } from './client/compress-json';
 import { servePrecompressed } from './client/precompressed';
 import { clubRouter } from './club/club.router';
 import { authRouter } from './auth/auth.router';
@@ -102,11 +102,10 @@ export function createApp(deps: AppDeps): Express {
     }),
   );
   app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !(req.url ?? '').startsWith('/api') } }));
-  // Brotli or gzip for API answers (a sync page is mostly repeated keys) and for any client file
-  // without a precompressed copy; zlib runs on libuv's thread pool, off the event loop.
-  app.use(compression({ threshold: 1024 }));
 
   const api = express.Router();
+  // Brotli or gzip for API answers; client files are compressed once, after the build (serveClient).
+  api.use(compressJson());
   api.use((_req, _res, next) => {
     profiles.noteRequest();
     next();
