@@ -27,7 +27,7 @@ def ligature_glyphs(font):
 
 def main(source, names_path, output):
     names = json.load(open(names_path))
-    font = TTFont(source)
+    font = TTFont(source, recalcTimestamp=False)
     glyphs = ligature_glyphs(font)
     missing = [n for n in names if n not in glyphs]
     if missing:

@@ -12,7 +12,7 @@
  * painted, total blocking time (Σ long task − 50 ms after first contentful paint) and CLS, from
  * Chromium's own performance entries.
  *
- * Targets (issue 18): first visit ≤ 700 kB over the wire; sign-in LCP ≤ 2.5 s; Pitchside main content
+ * Targets: first visit ≤ 700 kB over the wire; sign-in LCP ≤ 2.5 s; Pitchside main content
  * on a new device ≤ 4 s; TBT ≤ 300 ms and CLS ≤ 0.1 on every screen. Figures, not a timed test.
  * `-- --only=sign-in|pitchside|squad-week` runs one screen.
  */
@@ -131,7 +131,7 @@ async function main(): Promise<void> {
     await server.stop();
     server.cleanup();
   }
-  console.log('\nTargets (issue 18):');
+  console.log('\nTargets:');
   const verdict = (ok: boolean): string => (ok ? 'PASS' : 'FAIL');
   for (const { screen, device, f } of rows) {
     const checks: string[] = [

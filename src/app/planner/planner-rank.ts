@@ -3,7 +3,7 @@
  * the keys under which profiles and results are kept offline. No Angular, so each is tested directly.
  */
 
-import { WALL_DISTANCE_M, type SetPieceShares, type Technique } from '../../../shared/flight';
+import { PROFILE_WARNING_TEXT, WALL_DISTANCE_M, type SetPieceShares, type Technique } from '../../../shared/flight';
 import type { SquadProfilesResponse } from '../../../shared/schemas/analysis';
 import type { AimLineFlight, SetPieceCloudResult, SetPieceRankEntry } from '../flight/set-piece-rank';
 import { DEFAULT_PITCH, type PitchPoint } from '../ui/pitch-markings';
@@ -78,6 +78,8 @@ export interface RankedPlayer {
   readonly shares: SetPieceShares | null;
   readonly result: SetPieceCloudResult | null;
   readonly meanKick: AimLineFlight | null;
+  /** The profile's warnings in plain words (thin or contradictory data), shown beside the player's share. */
+  readonly warnings: readonly string[];
 }
 
 /**
@@ -98,6 +100,7 @@ export function rankSetPiece(profiles: SquadProfilesResponse, entries: readonly 
       shares: entry?.result.shares ?? null,
       result: entry?.result ?? null,
       meanKick: entry?.meanKick ?? null,
+      warnings: (p.profile?.warnings ?? []).map((code) => PROFILE_WARNING_TEXT[code] ?? code),
     };
   });
   const byName = (a: { displayName: string }, b: { displayName: string }): number => a.displayName.localeCompare(b.displayName);
@@ -124,9 +127,15 @@ export function resultsCacheKey(squadId: string, technique: Technique, spot: Pla
 }
 
 /**
- * What a cached ranking was computed from: each player's profile version. A cached ranking is reused only
- * when this matches, so a refreshed profile is never hidden behind an old result.
+ * How rankings are computed; part of the fingerprint, so rankings kept on a device by an older planner
+ * (each player's usual ball, no chosen kick) are recomputed rather than shown.
+ */
+export const RANKING_METHOD = 'chosen-kick-1';
+
+/**
+ * What a cached ranking was computed from: the ranking method and each player's profile version. A cached
+ * ranking is reused only when this matches, so a refreshed profile is never hidden behind an old result.
  */
 export function profilesFingerprint(profiles: SquadProfilesResponse): string {
-  return profiles.players.map((p) => `${p.playerId}@${p.computedAt ?? '-'}#${p.repetitions}`).join('|');
+  return [RANKING_METHOD, ...profiles.players.map((p) => `${p.playerId}@${p.computedAt ?? '-'}#${p.repetitions}`)].join('|');
 }
