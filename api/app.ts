@@ -25,6 +25,8 @@ import { ImportRunner } from './imports/import-runner';
 import { importsRouter } from './imports/imports.router';
 import { Mailer } from './mail/mailer';
 import { AuthService } from './auth/auth.service';
+import { compressJson } from './client/compress-json';
+import { servePrecompressed } from './client/precompressed';
 import { clubRouter } from './club/club.router';
 import { authRouter } from './auth/auth.router';
 import { createAuthMiddleware, requireRole } from './auth/passport';
@@ -107,6 +109,8 @@ export function createApp(deps: AppDeps): Express {
   app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !(req.url ?? '').startsWith('/api') } }));
 
   const api = express.Router();
+  // Brotli or gzip for API answers; client files are compressed once, after the build (serveClient).
+  api.use(compressJson());
   api.use((_req, _res, next) => {
     profiles.noteRequest();
     next();
@@ -169,12 +173,13 @@ export function createApp(deps: AppDeps): Express {
 /** Serves the built Angular app; unknown non-API GETs that accept HTML get `index.html`. */
 function serveClient(app: Express, clientDir: string): void {
   const index = join(clientDir, 'index.html');
+  app.use(servePrecompressed(clientDir));
   app.use(
     express.static(clientDir, {
       index: false,
       setHeaders: (res, path) => {
         // Hashed bundles are immutable; the shell and the service-worker files must revalidate.
-        if (/\.[0-9a-f]{8,}\.(js|css)$/i.test(path) || /-[A-Z0-9]{8}\.(js|css)$/.test(path)) {
+        if (/\.[0-9a-f]{8,}\.(js|css)(\.br|\.gz)?$/i.test(path) || /-[A-Z0-9]{8}\.(js|css)(\.br|\.gz)?$/.test(path)) {
           res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
         } else {
           res.setHeader('Cache-Control', 'no-cache');
@@ -183,7 +188,8 @@ function serveClient(app: Express, clientDir: string): void {
     }),
   );
   app.get('/{*splat}', (req, res, next) => {
-    if (!req.accepts('html') || !existsSync(index)) return next();
+    // A path with a file extension names a file (robots.txt, a stale chunk): a 404, never the app's HTML.
+    if (/\.[^/]*$/.test(req.path) || !req.accepts('html') || !existsSync(index)) return next();
     res.setHeader('Cache-Control', 'no-cache');
     res.sendFile(index);
   });

@@ -20,6 +20,9 @@ import { Mailer } from './mail/mailer';
 import { startFakeWeather, type FakeWeather } from './weather/fake-weather';
 import { OpenMeteoClient } from './weather/open-meteo-client';
 
+/** How long requests under way may take to finish once the server is asked to stop. */
+const SHUTDOWN_GRACE_MS = 3000;
+
 /** How long an idle kept-alive connection stays open (common practice: above a load balancer's 60 s). */
 export const KEEP_ALIVE_TIMEOUT_MS = 65_000;
 
@@ -179,7 +182,12 @@ async function startOn(
       stopSchedule();
       clearInterval(retry);
       mailer.close();
-      await new Promise<void>((done) => server.close(() => done()));
+      const closed = new Promise<void>((done) => server.close(() => done()));
+      // A kept-alive connection that keeps carrying requests (a page and its service worker) would hold the
+      // close open for ever: requests under way get a grace period, then every connection is closed.
+      const grace = setTimeout(() => server.closeAllConnections(), SHUTDOWN_GRACE_MS);
+      await closed;
+      clearTimeout(grace);
       await imports.close();
       await smtp?.close();
       await fakeWeather?.close();

@@ -5,6 +5,7 @@
 import { spawnSync } from 'node:child_process';
 import { existsSync, readdirSync, statSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
+import { precompressDir } from '../client/precompressed';
 
 const CLIENT_SOURCES = [
   'src',
@@ -46,5 +47,9 @@ export function buildClient(): void {
   if (result.status !== 0) {
     throw new Error(`The client build failed (exit ${result.status ?? result.signal}); see the output above.`);
   }
+  const packed = precompressDir(resolve('dist/loftline/browser'));
+  console.log(
+    `Precompressed ${packed.files} files: ${(packed.rawBytes / 1000).toFixed(0)} kB → ${(packed.brotliBytes / 1000).toFixed(0)} kB brotli.`,
+  );
   writeFileSync(STAMP, new Date().toISOString() + '\n');
 }

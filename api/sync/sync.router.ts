@@ -1,6 +1,6 @@
 /** `/api/sync`: push the device's outbox, pull changes since a cursor. */
 import { Router } from 'express';
-import { pullQuerySchema, pushRequestSchema } from '../../shared/schemas/sync';
+import { pullQuerySchema, pushRequestSchema, type PullWindow } from '../../shared/schemas/sync';
 import { requireRole } from '../auth/passport';
 import type { Db } from '../db/client';
 import { parseOrThrow } from '../errors';
@@ -16,7 +16,13 @@ export function syncRouter(db: Db): Router {
   });
   router.get('/pull', (req, res) => {
     const q = parseOrThrow(pullQuerySchema, req.query, 'Query');
-    res.json(pull(db, scopeOf(req), q.since, q.limit));
+    const window: PullWindow | undefined =
+      q.part === 'recent' && q.from
+        ? { part: 'recent', from: q.from }
+        : q.part === 'history' && q.upTo !== undefined
+          ? { part: 'history', upTo: q.upTo }
+          : undefined;
+    res.json(pull(db, scopeOf(req), q.since, q.limit, window));
   });
   return router;
 }

@@ -2,7 +2,7 @@
  * Applies pushed mutations exactly once and serves scoped changes for pull.
  * The contract is written down in `shared/schemas/sync.ts`.
  */
-import { and, asc, eq, getTableColumns, gt, inArray, sql } from 'drizzle-orm';
+import { and, asc, eq, getTableColumns, gt, gte, inArray, lte, sql } from 'drizzle-orm';
 import type * as z from 'zod';
 import {
   ENTITY_SCHEMAS,
@@ -11,6 +11,7 @@ import {
   type KickData,
   type MutationResult,
   type PullResponse,
+  type PullWindow,
   type PushResponse,
   type SessionData,
   type SyncChange,
@@ -351,11 +352,34 @@ function applyKick(db: Db, scope: Scope, deviceId: string, m: Parsed, now: strin
   return { id: m.id, status: 'applied' };
 }
 
-/** Changes after `since` that the caller may read, oldest first, at most `limit`. */
-export function pull(db: Db, scope: Scope, since: number, limit: number): PullResponse {
+/**
+ * Changes after `since` that the caller may read, oldest first, at most `limit`; with a `window`, only
+ * the recent sessions or only the history (see `pullQuerySchema`). One read transaction, so the
+ * recent part's closing cursor (the club's latest change) describes the same snapshot as its rows.
+ */
+export function pull(db: Db, scope: Scope, since: number, limit: number, window?: PullWindow): PullResponse {
   if (scope.user.role === 'guardian') throw new Forbidden('Guardians see their child’s summary, not raw training data');
+  return db.$client.transaction(() => pullSnapshot(db, scope, since, limit, window))();
+}
+
+function pullSnapshot(db: Db, scope: Scope, since: number, limit: number, window: PullWindow | undefined): PullResponse {
   const take = limit + 1;
   const club = scope.user.clubId;
+  // The recent part: sessions started from `from` on. History is every row up to `upTo`, not only the
+  // older sessions: a session whose start was moved since would otherwise fall between the two parts
+  // (the device keeps the copies it has, so the overlap costs bytes, never correctness).
+  const windowSessions =
+    window?.part === 'recent'
+      ? db
+          .select({ id: trainingSessions.id })
+          .from(trainingSessions)
+          .where(and(eq(trainingSessions.clubId, club), gte(trainingSessions.startedAt, window.from)))
+      : undefined;
+  const upTo = window?.part === 'history' ? window.upTo : undefined;
+  const seqRange = <T extends typeof trainingSessions.changeSeq | typeof drills.changeSeq | typeof kicks.changeSeq>(col: T) =>
+    upTo === undefined ? gt(col, since) : and(gt(col, since), lte(col, upTo));
+  const inWindow = (col: typeof trainingSessions.id | typeof drills.sessionId | typeof kicks.sessionId) =>
+    windowSessions ? inArray(col, windowSessions) : undefined;
   let sessionRows: (typeof trainingSessions.$inferSelect)[];
   let drillRows: (typeof drills.$inferSelect)[];
   let kickRows: (typeof kicks.$inferSelect)[];
@@ -369,21 +393,28 @@ export function pull(db: Db, scope: Scope, since: number, limit: number): PullRe
     sessionRows = db
       .select()
       .from(trainingSessions)
-      .where(and(eq(trainingSessions.clubId, club), gt(trainingSessions.changeSeq, since), inArray(trainingSessions.id, ownSessions)))
+      .where(
+        and(
+          eq(trainingSessions.clubId, club),
+          seqRange(trainingSessions.changeSeq),
+          inArray(trainingSessions.id, ownSessions),
+          inWindow(trainingSessions.id),
+        ),
+      )
       .orderBy(asc(trainingSessions.changeSeq))
       .limit(take)
       .all();
     drillRows = db
       .select()
       .from(drills)
-      .where(and(eq(drills.clubId, club), gt(drills.changeSeq, since), inArray(drills.id, ownDrills)))
+      .where(and(eq(drills.clubId, club), seqRange(drills.changeSeq), inArray(drills.id, ownDrills), inWindow(drills.sessionId)))
       .orderBy(asc(drills.changeSeq))
       .limit(take)
       .all();
     kickRows = db
       .select()
       .from(kicks)
-      .where(and(eq(kicks.clubId, club), gt(kicks.changeSeq, since), inArray(kicks.playerId, own)))
+      .where(and(eq(kicks.clubId, club), seqRange(kicks.changeSeq), inArray(kicks.playerId, own), inWindow(kicks.sessionId)))
       .orderBy(asc(kicks.changeSeq))
       .limit(take)
       .all();
@@ -396,21 +427,30 @@ export function pull(db: Db, scope: Scope, since: number, limit: number): PullRe
     sessionRows = db
       .select()
       .from(trainingSessions)
-      .where(and(eq(trainingSessions.clubId, club), gt(trainingSessions.changeSeq, since), inArray(trainingSessions.squadId, squadIds)))
+      .where(
+        and(
+          eq(trainingSessions.clubId, club),
+          seqRange(trainingSessions.changeSeq),
+          inArray(trainingSessions.squadId, squadIds),
+          inWindow(trainingSessions.id),
+        ),
+      )
       .orderBy(asc(trainingSessions.changeSeq))
       .limit(take)
       .all();
     drillRows = db
       .select()
       .from(drills)
-      .where(and(eq(drills.clubId, club), gt(drills.changeSeq, since), inArray(drills.sessionId, readableSessions)))
+      .where(
+        and(eq(drills.clubId, club), seqRange(drills.changeSeq), inArray(drills.sessionId, readableSessions), inWindow(drills.sessionId)),
+      )
       .orderBy(asc(drills.changeSeq))
       .limit(take)
       .all();
     kickRows = db
       .select()
       .from(kicks)
-      .where(and(eq(kicks.clubId, club), gt(kicks.changeSeq, since), inArray(kicks.sessionId, readableSessions)))
+      .where(and(eq(kicks.clubId, club), seqRange(kicks.changeSeq), inArray(kicks.sessionId, readableSessions), inWindow(kicks.sessionId)))
       .orderBy(asc(kicks.changeSeq))
       .limit(take)
       .all();
@@ -421,5 +461,24 @@ export function pull(db: Db, scope: Scope, since: number, limit: number): PullRe
     ...kickRows.map((r) => ({ entity: 'kick' as SyncEntity, changeSeq: r.changeSeq, data: kickToSync(r) })),
   ].sort((a, b) => a.changeSeq - b.changeSeq);
   const changes = all.slice(0, limit);
-  return { changes, cursor: changes.at(-1)?.changeSeq ?? since, hasMore: all.length > limit };
+  const hasMore = all.length > limit;
+  let cursor = changes.at(-1)?.changeSeq ?? since;
+  if (window?.part === 'recent' && !hasMore) {
+    // Everything recent is on its way; whatever else changed up to now is history. Pulling on from the
+    // club's latest change misses nothing that changes next.
+    cursor = Math.max(cursor, latestClubChange(db, club));
+  }
+  return { changes, cursor, hasMore };
+}
+
+/** The club's latest change sequence over the synced tables (each read through its club/change_seq index). */
+function latestClubChange(db: Db, clubId: string): number {
+  const row = cachedStatement(
+    db.$client,
+    `SELECT max(
+       coalesce((SELECT max(change_seq) FROM training_sessions WHERE club_id = @clubId), 0),
+       coalesce((SELECT max(change_seq) FROM drills WHERE club_id = @clubId), 0),
+       coalesce((SELECT max(change_seq) FROM kicks WHERE club_id = @clubId), 0)) AS seq`,
+  ).get({ clubId }) as { seq: number };
+  return row.seq;
 }

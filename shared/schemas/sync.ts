@@ -170,13 +170,37 @@ export interface PullResponse {
   hasMore: boolean;
 }
 
+/**
+ * Which part of the data a pull covers. Without `part`, every change after `since`. A new device
+ * first pulls `part=recent&from=<date>`: only sessions started at or after `from` (with their drills
+ * and kicks), and the last page's cursor is the club's latest change, so pulling on from it misses
+ * nothing new. What it skipped is in `part=history&upTo=<that cursor>` — every row as it stood up to
+ * that change, older sessions included — fetched on demand with a cursor of its own; the device keeps
+ * any copy it already has (it is as new or newer).
+ */
+export const PULL_PARTS = ['recent', 'history'] as const;
+export type PullPart = (typeof PULL_PARTS)[number];
+
 /** Query of `GET /api/sync/pull`. */
-export const pullQuerySchema = z.object({
-  since: z.coerce.number({ error: 'since must be a number' }).int().min(0, { error: 'since must be 0 or more' }).default(0),
-  limit: z.coerce
-    .number({ error: 'limit must be a number' })
-    .int()
-    .min(1, { error: 'limit must be at least 1' })
-    .max(MAX_PULL_LIMIT, { error: `limit must be at most ${MAX_PULL_LIMIT}` })
-    .default(500),
-});
+export const pullQuerySchema = z
+  .object({
+    since: z.coerce.number({ error: 'since must be a number' }).int().min(0, { error: 'since must be 0 or more' }).default(0),
+    limit: z.coerce
+      .number({ error: 'limit must be a number' })
+      .int()
+      .min(1, { error: 'limit must be at least 1' })
+      .max(MAX_PULL_LIMIT, { error: `limit must be at most ${MAX_PULL_LIMIT}` })
+      .default(500),
+    part: z.enum(PULL_PARTS, { error: 'part must be recent or history' }).optional(),
+    from: isoDateTime('from').optional(),
+    upTo: z.coerce.number({ error: 'upTo must be a number' }).int().min(0, { error: 'upTo must be 0 or more' }).optional(),
+  })
+  .superRefine((q, ctx) => {
+    if (q.part === 'recent' && q.from === undefined)
+      ctx.addIssue({ code: 'custom', path: ['from'], message: 'from is required with part=recent' });
+    if (q.part === 'history' && q.upTo === undefined)
+      ctx.addIssue({ code: 'custom', path: ['upTo'], message: 'upTo is required with part=history' });
+  });
+
+/** The part of a pull beyond `since`/`limit` (see `pullQuerySchema`). */
+export type PullWindow = { part: 'recent'; from: string } | { part: 'history'; upTo: number };

@@ -233,4 +233,79 @@ describe('sync push and pull', () => {
     expect(kickChanges.length).toBeGreaterThan(0);
     expect(kickChanges.every((c) => c.data['playerId'] === own.id)).toBeTrue();
   });
+
+  describe('a new device: recent sessions first, history on demand', () => {
+    type Device = Map<string, { version: number; deletedAt: unknown }>;
+    const from = new Date(Date.parse('2026-11-18T12:00:00Z') - 14 * 86_400_000).toISOString();
+
+    async function pullAll(query: string, since: number, land: (c: SyncChange) => void): Promise<number> {
+      let cursor = since;
+      for (;;) {
+        const res = await request(t.app).get(`/api/sync/pull?since=${cursor}&limit=400${query}`).set('Authorization', `Bearer ${token}`);
+        expect(res.status).withContext(query).toBe(200);
+        const body = res.body as PullResponse;
+        body.changes.forEach(land);
+        cursor = body.cursor;
+        if (!body.hasMore) return cursor;
+      }
+    }
+    const put = (device: Device) => (c: SyncChange) =>
+      device.set(`${c.entity}:${c.data.id}`, { version: c.data.version, deletedAt: c.data.deletedAt });
+    // The device keeps a copy it has: it came from a later pull, so it is as new or newer.
+    const putIfAbsent = (device: Device) => (c: SyncChange) => {
+      if (!device.has(`${c.entity}:${c.data.id}`)) put(device)(c);
+    };
+
+    it('brings only sessions from the date on, and closes on the club’s latest change', async () => {
+      const seen: SyncChange[] = [];
+      const cursor = await pullAll(`&part=recent&from=${from}`, 0, (c) => seen.push(c));
+      const sessionIds = new Set(seen.filter((c) => c.entity === 'training_session').map((c) => c.data.id));
+      expect(sessionIds.size).toBeGreaterThan(0);
+      for (const c of seen.filter((x) => x.entity === 'training_session')) expect(String(c.data['startedAt']) >= from).toBeTrue();
+      for (const c of seen.filter((x) => x.entity !== 'training_session')) expect(sessionIds.has(String(c.data['sessionId']))).toBeTrue();
+      const full: SyncChange[] = [];
+      const fullCursor = await pullAll('', 0, (c) => full.push(c));
+      expect(seen.length).toBeLessThan(full.length);
+      // The club's latest change: at least the caller's own latest, and nothing is left after it.
+      expect(cursor).toBeGreaterThanOrEqual(fullCursor);
+      const after = await request(t.app).get(`/api/sync/pull?since=${cursor}`).set('Authorization', `Bearer ${token}`);
+      expect((after.body as PullResponse).changes).toEqual([]);
+    });
+
+    it('ends up with every row a full pull gives, at its newest version, with changes made in between', async () => {
+      const full: Device = new Map();
+      const device: Device = new Map();
+      const pid = playerOf(DEMO_SQUAD_IDS.u14)[0].id;
+      // An older session (before `from`) with kicks, pushed before the device's first pull.
+      const old = sessionMutation(randomUUID(), DEMO_SQUAD_IDS.u14);
+      old.data.startedAt = '2026-10-01T17:00:00Z';
+      const oldKicks = [kickMutation(old.data.id, pid), kickMutation(old.data.id, pid)];
+      expect(statuses(await pushAs(token, [old, ...oldKicks]))).toEqual(['applied', 'applied', 'applied']);
+
+      const upTo = await pullAll(`&part=recent&from=${from}`, 0, put(device));
+      // Meanwhile another phone edits an old kick and logs a new session.
+      const edit = { ...oldKicks[0], id: randomUUID(), baseVersion: 1, data: { ...oldKicks[0].data, outcome: 'short' } };
+      const fresh = sessionMutation();
+      expect(statuses(await pushAs(token, [edit, fresh]))).toEqual(['applied', 'applied']);
+      await pullAll('', upTo, put(device));
+      expect(device.has(`kick:${oldKicks[1].data.id}`))
+        .withContext('old rows wait for the history')
+        .toBeFalse();
+      await pullAll(`&part=history&upTo=${upTo}`, 0, putIfAbsent(device));
+
+      await pullAll('', 0, put(full));
+      expect(device.size).toBe(full.size);
+      for (const [key, row] of full) expect(device.get(key)).withContext(key).toEqual(row);
+      expect(device.get(`kick:${oldKicks[0].data.id}`)?.version).toBe(2);
+    });
+
+    it('refuses a recent part without its date and a history without its cursor, naming the field', async () => {
+      const recent = await request(t.app).get('/api/sync/pull?part=recent').set('Authorization', `Bearer ${token}`);
+      expect(recent.status).toBe(400);
+      expect(JSON.stringify(recent.body)).toContain('from');
+      const history = await request(t.app).get('/api/sync/pull?part=history').set('Authorization', `Bearer ${token}`);
+      expect(history.status).toBe(400);
+      expect(JSON.stringify(history.body)).toContain('upTo');
+    });
+  });
 });

@@ -9,8 +9,11 @@ import { existsSync, readFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { gzipSync } from 'node:zlib';
 
-/** Budget: initial JavaScript at most 250 kB gzip (1 kB = 1,000 bytes, as Angular counts). */
-const INITIAL_GZIP_LIMIT_BYTES = 250_000;
+/**
+ * Budget: initial JavaScript at most 140 kB gzip (1 kB = 1,000 bytes, as Angular counts). It was 250 kB
+ * until the shell became a lazy route (sign-in loads only what it shows); 137.4 kB was measured then.
+ */
+const INITIAL_GZIP_LIMIT_BYTES = 140_000;
 
 const BROWSER_DIR = resolve('dist/loftline/browser');
 
@@ -40,7 +43,7 @@ function staticClosure(entries: readonly string[]): string[] {
 }
 
 describe('initial JavaScript of the production build', () => {
-  it('is at most 250 kB gzip', () => {
+  it('is at most 140 kB gzip', () => {
     const indexPath = join(BROWSER_DIR, 'index.html');
     expect(existsSync(indexPath)).withContext('run the production build first (api/cli/client-build.ts)').toBeTrue();
     const entries = entryScripts(readFileSync(indexPath, 'utf8'));

@@ -75,10 +75,15 @@ describe('signing in (end to end, Chromium)', () => {
         await document.fonts.ready;
         return {
           text: document.fonts.check('16px "Atkinson Hyperlegible"'),
-          icons: document.fonts.check('24px "Material Symbols Outlined"'),
+          icons: document.fonts.check('24px "Loftline Symbols"'),
+          // The password toggle: a ligature the cut-down font holds draws one 24 px glyph, not the word "visibility".
+          iconWidthPx: document.querySelector('button mat-icon')?.getBoundingClientRect().width ?? 0,
         };
       });
       expect(fontsOk.text).toBeTrue();
+      expect(fontsOk.icons).toBeTrue();
+      expect(fontsOk.iconWidthPx).toBeGreaterThan(0);
+      expect(fontsOk.iconWidthPx).toBeLessThanOrEqual(28);
       expect(external).toEqual([]);
     } finally {
       await close();

@@ -5,7 +5,6 @@ import { requireStaff } from './core/auth/staff-guard';
 import { requireGuardian } from './guardian/guardian-guard';
 import { guardianLanding } from './home/guardian-landing';
 import { requireSandboxAccess } from './sandbox/sandbox-access';
-import { AppShell } from './shell/app-shell';
 
 /**
  * The app's routes. Sign-in stands alone; everything else sits inside the shell behind
@@ -42,7 +41,8 @@ export const routes: Routes = [
   },
   {
     path: '',
-    component: AppShell,
+    // Lazy too: the shell (navigation, menus, the sync queue and its database) is not what sign-in shows.
+    loadComponent: () => import('./shell/app-shell').then((m) => m.AppShell),
     canActivate: [requireSignedIn],
     canActivateChild: [requireSignedIn],
     children: [

@@ -12,7 +12,8 @@ import type { PlayerSummary, SquadSummary } from '../../../shared/schemas/squads
  *    coach had). `rejected` entries stay, with the reason, until fixed or discarded.
  *  - Replays are harmless: the mutation id is the idempotency key on the server.
  *  - Pulled rows land in the tables unless the row has outbox entries (local edits win until
- *    the server has answered them); `syncState` keeps each user's pull cursor.
+ *    the server has answered them); `syncState` keeps each user's pull cursor (and, on a new
+ *    device, how far its first pull and the on-demand history have got).
  *  - `squads`/`players` are a read cache of the API, refreshed when online.
  */
 
@@ -110,6 +111,16 @@ export interface SyncStateRow {
   /** The highest change sequence pulled. */
   cursor: number;
   lastPulledAt: string | null;
+  /**
+   * While a new device's first pull is under way: the date its recent part starts from (sessions from
+   * then on come first; see `PullWindow` in `shared/schemas/sync.ts`). Absent once it is done.
+   */
+  firstPullFrom?: string;
+  /**
+   * What that first pull left on the server: every row up to change `upTo` (older sessions), fetched on
+   * demand page by page from `cursor`. Absent when there is none left.
+   */
+  history?: { upTo: number; cursor: number };
 }
 
 /** A cached analysis answer (envelopes, profiles, progress, planner results) so screens open offline. */

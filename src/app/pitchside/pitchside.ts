@@ -3,6 +3,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
 import { ClubFormat } from '../core/club-format';
+import { describeApiError } from '../core/api-error';
 import { DrillSuggestion } from '../core/drill-suggestion';
 import { RosterStore } from '../core/roster-store';
 import { SessionStore } from '../core/session-store';
@@ -74,10 +75,20 @@ export class Pitchside {
     return parts.join(' · ');
   });
 
+  protected readonly sync = inject(SyncQueue);
+  /** Why fetching older sessions failed, in words, or null. */
+  protected readonly historyProblem = signal<string | null>(null);
+
   constructor() {
     // Opening Pitchside is a good moment to sync: the coach is about to rely on the data.
-    inject(SyncQueue).syncNow();
+    this.sync.syncNow();
     effect(() => this.suggestion.offer(this.drillTechnique(), this.drillTargetM(), this.drillRadiusM()));
+  }
+
+  /** A new device holds the last two weeks; an older session opened from a link is fetched on demand. */
+  protected fetchOlderSessions(): void {
+    this.historyProblem.set(null);
+    this.sync.fetchHistory().catch((error: unknown) => this.historyProblem.set(describeApiError(error).message));
   }
 
   protected fixKick(kickId: string): void {

@@ -109,6 +109,13 @@ export class SquadWeek {
     { initialValue: LOADING },
   );
   protected readonly weekAnswer = computed(() => readyValue(this.weekState())?.value ?? null);
+  /**
+   * The Weekly digests card sits below the week; shown before the week has loaded, it would be pushed
+   * down the screen when the week arrives (a layout shift of the whole card), so it waits for it.
+   */
+  protected readonly digestsShown = computed(
+    () => this.canSendDigests() && this.squads().status !== 'loading' && this.weekState().status !== 'loading',
+  );
 
   protected readonly chosenTechnique = computed<Technique>(() => {
     const asked = this.technique();

@@ -1,7 +1,7 @@
 import { HttpClient, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { Observable } from 'rxjs';
-import type { PullResponse, PushResponse } from '../../../../shared/schemas/sync';
+import type { PullResponse, PullWindow, PushResponse } from '../../../../shared/schemas/sync';
 import type { OutboxEntry } from '../loftline-db';
 
 /**
@@ -24,9 +24,11 @@ export class SyncApi {
     return this.http.post<PushResponse>('/api/sync/push', { deviceId, mutations });
   }
 
-  /** Changes after `since`, oldest first, at most `limit`. */
-  pull(since: number, limit: number): Observable<PullResponse> {
-    const params = new HttpParams().set('since', since).set('limit', limit);
+  /** Changes after `since`, oldest first, at most `limit`; only the recent sessions or the history with a `window`. */
+  pull(since: number, limit: number, window?: PullWindow): Observable<PullResponse> {
+    let params = new HttpParams().set('since', since).set('limit', limit);
+    if (window?.part === 'recent') params = params.set('part', 'recent').set('from', window.from);
+    if (window?.part === 'history') params = params.set('part', 'history').set('upTo', window.upTo);
     return this.http.get<PullResponse>('/api/sync/pull', { params });
   }
 }

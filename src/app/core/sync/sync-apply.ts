@@ -1,5 +1,5 @@
 import type { MutationResult, SyncChange, SyncEntity, SyncRow } from '../../../../shared/schemas/sync';
-import { type ConflictNotice, type LoftlineDb, type OutboxEntry, newId, tableFor } from '../loftline-db';
+import { type ConflictNotice, type LoftlineDb, type OutboxEntry, type SyncStateRow, newId, tableFor } from '../loftline-db';
 import type { LocalRow } from './outbox';
 
 /**
@@ -158,7 +158,13 @@ export function differingFields(mine: Record<string, unknown>, theirs: Record<st
  * entries keeps the device's version (those edits are still on their way) and only records
  * the server's copy as the confirmed one.
  */
-export function landPulledChanges(db: LoftlineDb, userId: string, changes: readonly SyncChange[], cursor: number): Promise<void> {
+export function landPulledChanges(
+  db: LoftlineDb,
+  userId: string,
+  changes: readonly SyncChange[],
+  cursor: number,
+  progress: Partial<Pick<SyncStateRow, 'firstPullFrom' | 'history'>> = {},
+): Promise<void> {
   return db.transaction('rw', [db.sessions, db.drills, db.kicks, db.outbox, db.syncState], async () => {
     const ids = changes.map((c) => c.data.id);
     const busy = new Set((await db.outbox.where('entityId').anyOf(ids).toArray()).map((e) => e.entityId));
@@ -179,7 +185,48 @@ export function landPulledChanges(db: LoftlineDb, userId: string, changes: reado
         await tableFor(db, entity).bulkPut(puts[entity]);
       }
     }
-    await db.syncState.put({ userId, cursor, lastPulledAt: new Date().toISOString() });
+    const state: SyncStateRow = {
+      ...(await db.syncState.get(userId)),
+      ...progress,
+      userId,
+      cursor,
+      lastPulledAt: new Date().toISOString(),
+    };
+    // An explicit undefined ends that phase (the first pull, the history).
+    if ('firstPullFrom' in progress && progress.firstPullFrom === undefined) delete state.firstPullFrom;
+    if ('history' in progress && progress.history === undefined) delete state.history;
+    await db.syncState.put(state);
+  });
+}
+
+/**
+ * Lands one page of history (rows as they stood up to the first pull's cursor) and moves the history
+ * cursor, in one transaction. A row the device already has is kept: it came from a later pull or from
+ * this device, so it is as new or newer. `done` ends the history.
+ */
+export function landHistory(
+  db: LoftlineDb,
+  userId: string,
+  changes: readonly SyncChange[],
+  historyCursor: number,
+  done: boolean,
+): Promise<void> {
+  return db.transaction('rw', [db.sessions, db.drills, db.kicks, db.syncState], async () => {
+    const byEntity: Record<SyncEntity, LocalRow[]> = { training_session: [], drill: [], kick: [] };
+    for (const change of changes) byEntity[change.entity].push(change.data as unknown as LocalRow);
+    for (const entity of Object.keys(byEntity) as SyncEntity[]) {
+      const rows = byEntity[entity];
+      if (rows.length === 0) continue;
+      const table = tableFor(db, entity);
+      const present = await table.bulkGet(rows.map((r) => r.id));
+      const missing = rows.filter((_, i) => present[i] === undefined);
+      if (missing.length > 0) await table.bulkPut(missing);
+    }
+    const state = await db.syncState.get(userId);
+    if (!state?.history) return;
+    const next: SyncStateRow = { ...state, history: { upTo: state.history.upTo, cursor: historyCursor } };
+    if (done) delete next.history;
+    await db.syncState.put(next);
   });
 }
 

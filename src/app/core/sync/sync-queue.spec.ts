@@ -25,6 +25,7 @@ const TIMING: SyncTiming = {
   backoffBaseMs: 60,
   backoffMaxMs: 1000,
   pullPageSize: 2,
+  recentHistoryMs: 14 * 24 * 3_600_000,
   random: () => 0.5,
 };
 
@@ -415,5 +416,52 @@ describe('SyncQueue (real IndexedDB, HttpTestingController)', () => {
     await new Promise((r) => setTimeout(r, 150));
     http.expectNone('/api/sync/push');
     expect(await db.outbox.count()).toBe(3);
+  });
+
+  it('on a new device pulls the last two weeks first, then fetches older sessions on demand, keeping newer copies', async () => {
+    const queue = startQueue();
+    answerAll(await next('/api/sync/push'));
+    const recent = await next('/api/sync/pull');
+    expect(recent.request.params.get('part')).toBe('recent');
+    const from = Date.parse(recent.request.params.get('from') ?? '');
+    expect(Math.abs(Date.now() - 14 * 24 * 3_600_000 - from)).toBeLessThan(60_000);
+    const session = (await db.sessions.get(sessionId))!;
+    const newer: SyncRow = { ...session, version: 3, updatedAt: '2026-11-20T18:00:00.000Z', deletedAt: null, notes: 'newer' };
+    // The last page of the recent part: its cursor is the club's latest change (40), beyond its rows.
+    recent.flush({ changes: [{ entity: 'training_session', changeSeq: 12, data: newer }], cursor: 40, hasMore: false });
+    await until('the first pull to finish', () => queue.phase() === 'idle');
+    expect(await db.syncState.get(SPEC_COACH.id)).toEqual(jasmine.objectContaining({ cursor: 40, history: { upTo: 40, cursor: 0 } }));
+    expect((await db.syncState.get(SPEC_COACH.id))?.firstPullFrom).toBeUndefined();
+    await until('history to show as on the server', () => queue.historyOnServer());
+
+    const fetching = queue.fetchHistory();
+    const page = await next('/api/sync/pull');
+    expect(page.request.params.get('part')).toBe('history');
+    expect(page.request.params.get('upTo')).toBe('40');
+    expect(page.request.params.get('since')).toBe('0');
+    const older: SyncRow = { ...newer, id: '0b5d7c1e-2f3a-4b5c-8d9e-0f1a2b3c4d5e', version: 1, notes: 'older session' };
+    const stale: SyncRow = { ...newer, version: 2, notes: 'stale' };
+    page.flush({
+      changes: [
+        { entity: 'training_session', changeSeq: 5, data: stale },
+        { entity: 'training_session', changeSeq: 6, data: older },
+      ],
+      cursor: 6,
+      hasMore: false,
+    });
+    await fetching;
+    expect((await db.sessions.get(older.id))?.notes).toBe('older session');
+    expect((await db.sessions.get(sessionId))?.notes)
+      .withContext('the copy from the later pull stays')
+      .toBe('newer');
+    expect((await db.syncState.get(SPEC_COACH.id))?.history).toBeUndefined();
+    await until('history to show as fetched', () => !queue.historyOnServer());
+
+    // From now on, plain pulls from the cursor.
+    queue.syncNow();
+    const later = await next('/api/sync/pull');
+    expect(later.request.params.get('since')).toBe('40');
+    expect(later.request.params.has('part')).toBeFalse();
+    later.flush({ changes: [], cursor: 40, hasMore: false });
   });
 });

@@ -21,14 +21,14 @@ import {
   firstValueFrom,
 } from 'rxjs';
 import { isStaffRole } from '../../../../shared/roles';
-import type { MutationResult } from '../../../../shared/schemas/sync';
+import type { MutationResult, PullWindow } from '../../../../shared/schemas/sync';
 import { describeApiError } from '../api-error';
 import { AuthSession } from '../auth/auth-session';
 import { Connectivity } from '../connectivity';
 import { DEVICE_ID } from '../device-id';
 import { LocalWrites } from './local-writes';
 import { LOFTLINE_DB, type LoftlineDb } from '../loftline-db';
-import { landPulledChanges, releaseBatch, releaseStaleInFlight, settlePush, takeBatch } from './sync-apply';
+import { landHistory, landPulledChanges, releaseBatch, releaseStaleInFlight, settlePush, takeBatch } from './sync-apply';
 import { SyncApi } from './sync-api';
 
 /**
@@ -48,8 +48,10 @@ export interface SyncTiming {
   readonly backoffBaseMs: number;
   /** The longest retry delay. */
   readonly backoffMaxMs: number;
-  /** Changes asked for per pull request. */
+  /** Changes asked for per pull request (a page is parsed and landed in one go, so it stays small). */
   readonly pullPageSize: number;
+  /** How far back a new device's first pull reaches; older sessions come on demand (`fetchHistory`). */
+  readonly recentHistoryMs: number;
   /** Source of jitter in [0, 1). */
   readonly random: () => number;
 }
@@ -60,7 +62,9 @@ export const DEFAULT_SYNC_TIMING: SyncTiming = {
   periodMs: 60_000,
   backoffBaseMs: 2000,
   backoffMaxMs: 5 * 60_000,
-  pullPageSize: 2000,
+  pullPageSize: 500,
+  // Two weeks: the sessions a coach resumes or looks back on pitch-side (common practice, no standard).
+  recentHistoryMs: 14 * 24 * 60 * 60 * 1000,
   random: Math.random,
 };
 
@@ -91,6 +95,11 @@ const PATIENT_REASONS: readonly SyncReason[] = ['write', 'periodic'];
 
 class UserChanged extends Error {}
 
+/** Lets input and rendering run between two pulled pages, so landing a long pull never freezes a tap. */
+function yieldToInput(): Promise<void> {
+  return new Promise((resolve) => setTimeout(resolve, 0));
+}
+
 /**
  * Sends the outbox to the server and brings the server's changes down into IndexedDB.
  *
@@ -98,7 +107,10 @@ class UserChanged extends Error {}
  * becomes visible or gets focus, shortly after local changes (debounced), and every minute
  * while visible — there is no background sync to rely on in every browser. A failure retries
  * with exponential backoff and jitter. Each round pushes everything pending, oldest first, in
- * batches of at most 500, then pulls from the user's cursor until the server has no more.
+ * batches of at most 500, then pulls from the user's cursor until the server has no more. A device
+ * that has never pulled for the user pulls the last two weeks' sessions first (Pitchside is useful at
+ * once) and fetches older sessions only when asked (`fetchHistory`); pages are small and the queue
+ * yields between them, so landing a pull never blocks a tap for long.
  * Only staff push (the server refuses players and guardians) and only their own entries.
  * Across tabs a Web Lock keeps one round at a time, so an entry is never sent twice at once.
  * Nothing leaves the outbox without an answer from the server (see `sync-apply.ts`).
@@ -148,6 +160,10 @@ export class SyncQueue {
   readonly rejected: Signal<number> = this.forUser(0, (id) => this.db.outbox.where('[userId+state]').equals([id, 'rejected']).count());
   /** Edits of the user's the server refused because its row had changed meanwhile, not yet reviewed. */
   readonly conflicts: Signal<number> = this.forUser(0, (id) => this.db.conflicts.where('userId').equals(id).count());
+  /** Whether older sessions a new device's first pull left out are still only on the server. */
+  readonly historyOnServer: Signal<boolean> = this.forUser(false, async (id) => (await this.db.syncState.get(id))?.history !== undefined);
+  /** Whether `fetchHistory` is under way. */
+  readonly fetchingHistory = signal(false);
   /** Emits after each successful round (e.g. for caches that refresh alongside). */
   readonly synced$: Observable<void> = this.rounds.asObservable();
 
@@ -258,16 +274,61 @@ export class SyncQueue {
         break; // Entries without an answer wait for the next round rather than spin in this one.
       }
     }
-    let cursor = (await this.db.syncState.get(userId))?.cursor ?? 0;
+    let state = await this.db.syncState.get(userId);
+    if (!state) {
+      // A device that has never pulled for this user: the recent sessions first, the rest on demand.
+      state = { userId, cursor: 0, lastPulledAt: null, firstPullFrom: new Date(Date.now() - this.timing.recentHistoryMs).toISOString() };
+      await this.db.syncState.put(state);
+    }
+    let cursor = state.cursor;
+    let firstPullFrom = state.firstPullFrom;
     for (;;) {
       this.checkUser(userId);
-      const page = await firstValueFrom(this.api.pull(cursor, this.timing.pullPageSize));
+      const window: PullWindow | undefined = firstPullFrom === undefined ? undefined : { part: 'recent', from: firstPullFrom };
+      const page = await firstValueFrom(this.api.pull(cursor, this.timing.pullPageSize, window));
       this.checkUser(userId);
-      await landPulledChanges(this.db, userId, page.changes, page.cursor);
+      const firstPullDone = firstPullFrom !== undefined && !page.hasMore;
+      await landPulledChanges(
+        this.db,
+        userId,
+        page.changes,
+        page.cursor,
+        firstPullDone ? { firstPullFrom: undefined, history: { upTo: page.cursor, cursor: 0 } } : {},
+      );
+      if (firstPullDone) firstPullFrom = undefined;
       cursor = page.cursor;
       if (!page.hasMore) {
         break;
       }
+      await yieldToInput();
+    }
+  }
+
+  /**
+   * Fetches the history a new device's first pull left on the server (older sessions), page by page,
+   * under the same lock as the rounds; resolves when it is all on the device. Fails like a round
+   * (no signal, server down); what landed stays and the next call goes on from there.
+   */
+  async fetchHistory(): Promise<void> {
+    const userId = this.userId();
+    if (userId === null) return;
+    this.fetchingHistory.set(true);
+    try {
+      await this.withLock(async () => {
+        for (;;) {
+          this.checkUser(userId);
+          const history = (await this.db.syncState.get(userId))?.history;
+          if (!history) return;
+          const page = await firstValueFrom(
+            this.api.pull(history.cursor, this.timing.pullPageSize, { part: 'history', upTo: history.upTo }),
+          );
+          this.checkUser(userId);
+          await landHistory(this.db, userId, page.changes, page.cursor, !page.hasMore);
+          await yieldToInput();
+        }
+      });
+    } finally {
+      this.fetchingHistory.set(false);
     }
   }
 
