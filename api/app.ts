@@ -31,6 +31,7 @@ import type { AppConfig } from './config';
 import type { Db } from './db/client';
 import { errorMiddleware, NotFound } from './errors';
 import { refuseUnsafeJson } from './json-guard';
+import { redactRequest } from './logger';
 import { meRouter } from './me/me.router';
 import { playersRouter } from './players/players.router';
 import { attachScope } from './scope/scope.middleware';
@@ -99,7 +100,14 @@ export function createApp(deps: AppDeps): Express {
       },
     }),
   );
-  app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !(req.url ?? '').startsWith('/api') } }));
+  // Request lines go through redactRequest whatever logger was passed in: no bearer or link token is ever logged.
+  app.use(
+    pinoHttp({
+      logger,
+      serializers: { req: redactRequest },
+      autoLogging: { ignore: (req) => !(req.url ?? '').startsWith('/api') },
+    }),
+  );
 
   const api = express.Router();
   api.use((_req, _res, next) => {

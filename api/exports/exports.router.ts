@@ -12,7 +12,7 @@ import { guardianLinks, kicks, players, playerProfiles, squads, trainingSessions
 import { Forbidden, NotFound, parseOrThrow } from '../errors';
 import { getPlayer } from '../players/players.service';
 import { scopeOf } from '../scope/scope.middleware';
-import { toCsv } from './csv-writer';
+import { toCsv, type CsvCell } from '../../shared/csv';
 
 const isoDate = (name: string) => z.iso.date({ error: `${name} must be a date (YYYY-MM-DD)` });
 const kicksQuery = z
@@ -64,7 +64,7 @@ export function exportsRouter(db: Db): Router {
           WHERE ${where.join(' AND ')} ORDER BY k.recorded_at`,
       )
       .raw()
-      .all({ squadId: q.squadId ?? null, playerId: q.playerId ?? null, from: q.from ?? null, to: q.to ?? null }) as unknown[][];
+      .all({ squadId: q.squadId ?? null, playerId: q.playerId ?? null, from: q.from ?? null, to: q.to ?? null }) as CsvCell[][];
     audit(db, {
       clubId: scope.user.clubId,
       userId: scope.user.id,

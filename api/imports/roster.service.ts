@@ -5,11 +5,12 @@
  */
 import { audit } from '../audit';
 import { createHash, randomUUID } from 'node:crypto';
-import { and, eq } from 'drizzle-orm';
+import { and, eq, isNull } from 'drizzle-orm';
 import * as z from 'zod';
 import type { AuthUser } from '../auth/passport';
 import type { Db } from '../db/client';
 import { guardianLinks, players, squads, uploads, users } from '../db/schema';
+import { hasUnsafeNameCharacters } from '../../shared/safe-text';
 import { readCsv } from './csv';
 import { ImportInvalid, type ImportResult, type RowError } from './import-types';
 
@@ -54,8 +55,10 @@ function validate(table: ReturnType<typeof readCsv>, now: Date): { rows: RosterR
     const name = values['name']?.trim() ?? '';
     if (!squad) err('squad', 'Squad is required');
     else if (squad.length > 60) err('squad', 'Squad name is longer than 60 characters');
+    else if (hasUnsafeNameCharacters(squad)) err('squad', 'Squad name contains control characters or text-direction overrides');
     if (!name) err('name', 'Name is required');
     else if (name.length > 120) err('name', 'Name is longer than 120 characters');
+    else if (hasUnsafeNameCharacters(name)) err('name', 'Name contains control characters or text-direction overrides');
     const shirtRaw = values['shirt_number']?.trim() ?? '';
     const shirtNumber = shirtRaw === '' ? null : Number(shirtRaw);
     if (shirtNumber !== null && (!Number.isInteger(shirtNumber) || shirtNumber < 1 || shirtNumber > 99))
@@ -178,7 +181,7 @@ function plan(db: Db, clubId: string, rows: RosterRow[]): RosterSummary {
       ? db
           .select({ id: players.id })
           .from(players)
-          .where(and(eq(players.squadId, squadId), eq(players.displayName, r.name)))
+          .where(and(eq(players.squadId, squadId), eq(players.displayName, r.name), isNull(players.erasedAt)))
           .get()
       : undefined;
     if (existing) s.playersUpdated++;
@@ -221,7 +224,8 @@ function apply(db: Db, clubId: string, rows: RosterRow[]): RosterSummary {
     let player = db
       .select()
       .from(players)
-      .where(and(eq(players.squadId, squad.id), eq(players.displayName, r.name)))
+      // An erased player is never matched (and so never brought back): a row with the same name is someone new.
+      .where(and(eq(players.squadId, squad.id), eq(players.displayName, r.name), isNull(players.erasedAt)))
       .get();
     if (player) {
       db.update(players)

@@ -459,6 +459,8 @@ export function buildHttpCorpus(c: CorpusContext): HttpCase[] {
   cases.push(...pathCases('POST /api/guardians/links/:id/consent', 'guardian', '/api/guardians/links/:id/consent', randomUUID()));
   cases.push(...pathCases('PUT /api/guardians/links/:id/digest', 'guardian', '/api/guardians/links/:id/digest', randomUUID()));
   cases.push(...pathCases('POST /api/admin/players/:id/erase', 'admin', '/api/admin/players/:id/erase', c.otherClubPlayerId));
+  cases.push(...pathCases('POST /api/admin/users/:id/invite', 'admin', '/api/admin/users/:id/invite', randomUUID()));
+  cases.push(...pathCases('POST /api/admin/users/:id/disable', 'admin', '/api/admin/users/:id/disable', randomUUID()));
   const unsub = 'POST /api/digests/unsubscribe';
   for (const [label, query] of [
     ['no token', ''],
