@@ -49,6 +49,10 @@ export default function karmaConfig(config) {
     client: {
       jasmine: {
         random: true,
+        // Specs that wait for the flight worker or IndexedDB wait for a condition, not a time; this
+        // is only the ceiling. Jasmine's 5 s default was hit on a loaded 2-core machine (load
+        // average 20+) by specs that pass in 1 s on a quiet one.
+        timeoutInterval: 30000,
       },
     },
     coverageReporter: {

@@ -4,6 +4,7 @@
  * names are generic — and never loaded by `npm start`.
  */
 import type { Db } from '../api/db/client';
+import { OUTCOMES, TECHNIQUES } from '../shared/vocabulary';
 import { Prng, stableId } from './prng';
 
 /** Options of the generator. */
@@ -28,8 +29,8 @@ export interface LargeAcademy {
   lastWeekStart: string;
 }
 
-const TECHNIQUES = ['driven', 'lofted', 'chipped', 'curled'] as const;
-const OUTCOMES = ['on_target', 'short', 'long', 'left', 'right'] as const;
+/** Outcomes of open-play drills: no wall and no bar, so neither `blocked` nor `over`. */
+const DRILL_OUTCOMES = OUTCOMES.filter((o) => o !== 'blocked' && o !== 'over');
 
 /** Generates the academy into `db` (which must already be migrated). */
 export function generateLargeAcademy(db: Db, options: LargeAcademyOptions): LargeAcademy {
@@ -84,7 +85,7 @@ export function generateLargeAcademy(db: Db, options: LargeAcademyOptions): Larg
             const playerId = playerIds[s * perSquad + (k % perSquad)]!;
             const technique = TECHNIQUES[(k >> 3) % TECHNIQUES.length]!;
             const target = 15 + ((k * 7) % 30);
-            const outcome = prng.chance(0.4) ? 'on_target' : OUTCOMES[1 + Math.floor(prng.next() * 4)]!;
+            const outcome = prng.chance(0.4) ? 'on_target' : DRILL_OUTCOMES[1 + Math.floor(prng.next() * 4)]!;
             const carry = prng.chance(0.35) ? Math.round((target + prng.normal(0, 4)) * 2) / 2 : null;
             const at = new Date(start.getTime() + k * 6_000).toISOString();
             insKick.run(prng.uuid(), clubId, sessionId, playerId, technique, target, outcome, carry, carry, at, ++seq);

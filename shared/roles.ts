@@ -1,5 +1,5 @@
 /**
- * The five roles of DESIGN §2. The server is the only guard; the client uses these
+ * The five roles of docs/design.md §2. The server is the only guard; the client uses these
  * to hide what a role cannot do.
  */
 export const ROLES = ['admin', 'head_coach', 'assistant_coach', 'player', 'guardian'] as const;

@@ -6,7 +6,7 @@
  * Wind direction follows the meteorological convention (WMO, Guide to Meteorological Instruments and
  * Methods of Observation, WMO-No. 8): the direction the wind blows *from*, in degrees clockwise from
  * true north (90 = an east wind). The flight model's `wind.fromDeg` is relative to the kick instead
- * (DESIGN §6 axes: x forward, y to the kicker's left): 0 = from the target (headwind), 90 = from the
+ * (docs/design.md §6 axes: x forward, y to the kicker's left): 0 = from the target (headwind), 90 = from the
  * kicker's left, 180 = tailwind, 270 = from the right — i.e. measured counter-clockwise seen from
  * above, while compass bearings run clockwise. Hence the subtraction below runs kicking − wind.
  */

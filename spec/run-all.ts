@@ -4,7 +4,7 @@
  *  1. Node-side Jasmine specs under `spec/` (shared/, api/ with supertest, seed/).
  *  2. Karma + Jasmine for `src/**\/*.spec.ts` in headless Chromium.
  *  3. End-to-end specs in `spec/e2e/` (playwright-core driving Chromium against a real server).
- *  0. Before them, the static checks: Prettier's format check and strict `tsc` over server, shared,
+ *  0. Before them, the static checks: Prettier's format check, ESLint and strict `tsc` over server, shared,
  *     specs, client and worker (tsx and esbuild strip types without checking them). Each counts as one
  *     test.
  *
@@ -108,6 +108,7 @@ async function runChecks(): Promise<Counts> {
       `Types (tsc -p tsconfig.${project}.json)`,
       [resolve('node_modules/typescript/bin/tsc'), '-p', `tsconfig.${project}.json`, '--noEmit'],
     ]),
+    ['Lint (eslint: typescript-eslint, angular-eslint)', [resolve('node_modules/eslint/bin/eslint.js'), '--max-warnings=0', '.']],
   ];
   for (const [label, args] of checks) {
     console.log(`\n── ${label} ──`);

@@ -5,8 +5,11 @@
 import {
   BALL_SIZES,
   DEFAULT_ELEVATION_DEG,
+  LAUNCH_SPEED_CAP_MS,
   SIDESPIN_STEP_RPS,
   SPIN_STEP_RPS,
+  COACH_WIND_HEIGHT_M,
+  WEATHER_WIND_HEIGHT_M,
   simulateKick,
   solveLaunchSpeed,
   type BackspinStep,
@@ -26,6 +29,26 @@ export interface SessionConditions {
   windSpeedMs: number | null;
   windFromDeg: number | null;
   ballSize: number;
+  /** The session's `conditions_source_json` (which values came from the weather service); absent = unknown. */
+  conditionsSourceJson?: string | null;
+}
+
+/**
+ * Height the session's wind speed applies at: 10 m when it came from the weather service (its anemometer
+ * height), else head height, where a coach feels it (common practice). Unknown or unreadable sources
+ * count as the coach's estimate, the usual way wind is entered.
+ */
+export function windReferenceHeightM(conditionsSourceJson: string | null | undefined): number {
+  if (!conditionsSourceJson) return COACH_WIND_HEIGHT_M;
+  try {
+    const parsed: unknown = JSON.parse(conditionsSourceJson);
+    if (parsed !== null && typeof parsed === 'object' && (parsed as Record<string, unknown>)['windSpeedMs'] === 'weather') {
+      return WEATHER_WIND_HEIGHT_M;
+    }
+  } catch {
+    // A malformed source record is treated like none.
+  }
+  return COACH_WIND_HEIGHT_M;
 }
 
 /** The kick fields the flight model needs. */
@@ -59,7 +82,13 @@ export function conditionsOf(s: SessionConditions): FlightConditions {
   if (s.relativeHumidityPct !== null) air.relativeHumidityPct = s.relativeHumidityPct;
   if (s.pressureHpa !== null) air.pressureHpa = s.pressureHpa;
   const conditions: FlightConditions = { ball: ballOf(s.ballSize), air };
-  if (s.windSpeedMs && s.windSpeedMs > 0) conditions.wind = { speedMs: s.windSpeedMs, fromDeg: s.windFromDeg ?? 0 };
+  if (s.windSpeedMs && s.windSpeedMs > 0) {
+    conditions.wind = {
+      speedMs: s.windSpeedMs,
+      fromDeg: s.windFromDeg ?? 0,
+      referenceHeightM: windReferenceHeightM(s.conditionsSourceJson),
+    };
+  }
   return conditions;
 }
 
@@ -90,7 +119,7 @@ export function loggedKickOf(k: StoredKick, s: SessionConditions): LoggedKick {
 /**
  * The carry this kick would have had in standard conditions: the launch speed that explains
  * the logged carry under the session's conditions, flown again in still ISA air. Null when
- * there is no carry or the model cannot explain it.
+ * there is no carry or no speed under the physiological cap explains it.
  */
 export function stillAirCarryM(k: StoredKick, s: SessionConditions): number | null {
   if (k.carryM === null || k.carryM <= 0) return null;
@@ -99,7 +128,10 @@ export function stillAirCarryM(k: StoredKick, s: SessionConditions): number | nu
   const backspinRps = SPIN_STEP_RPS[k.backspinStep as BackspinStep] ?? 0;
   const sidespinRps = SIDESPIN_STEP_RPS[k.sidespinStep as SidespinStep] ?? 0;
   try {
-    const speed = solveLaunchSpeed({ carryM: k.carryM, elevationDeg, backspinRps, sidespinRps, ...conditionsOf(s) });
+    // No speed under the physiological cap explains the carry: a wrong log or a wrong assumed angle, not a
+    // carry to normalise (else a 45 m lofted carry into a 6 m/s headwind became 70 m of still air).
+    const maxSpeedMs = LAUNCH_SPEED_CAP_MS[s.ballSize === 3 || s.ballSize === 4 ? s.ballSize : 5];
+    const speed = solveLaunchSpeed({ carryM: k.carryM, elevationDeg, backspinRps, sidespinRps, maxSpeedMs, ...conditionsOf(s) });
     if (speed === null) return null;
     const flight = simulateKick({ speed, elevationDeg, backspinRps, sidespinRps, ...standardConditions(s.ballSize) });
     return flight.landed ? Math.round(flight.carryM * 100) / 100 : null;

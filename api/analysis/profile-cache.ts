@@ -4,9 +4,16 @@
  * week, planner ranking) answer from the cache and let a background refresher catch up in
  * small slices so the event loop is never blocked for long.
  */
-import { and, eq } from 'drizzle-orm';
 import { Worker } from 'node:worker_threads';
-import { CURVE_SAMPLES, fitProfile, reachCurve, reliableReachM, type KickProfile, type ReachCurve } from '../../shared/flight/index';
+import {
+  CURVE_SAMPLES,
+  fitProfile,
+  reachCurve,
+  reachWarnings,
+  reliableReachM,
+  type KickProfile,
+  type ReachCurve,
+} from '../../shared/flight/index';
 import type { ProfileEntry } from '../../shared/schemas/analysis';
 import type { Technique } from '../../shared/schemas/sync';
 import type { Db } from '../db/client';
@@ -22,12 +29,19 @@ export const PROFILE_ENVELOPE_SEED = 20_260_101;
 /**
  * Version of the profile model. 2: launch speed relative to the speed each target needs, with a
  * ceiling, and reach curves per distance (rows of version 1 pooled every target into one speed spread).
+ * 3: launch angle and spin uncertainty integrated into the fit and drawn by sampling, a physiological
+ * speed cap, a one-sided ceiling posterior, priors by ball size, and warnings.
  */
-export const PROFILE_MODEL_VERSION = 2;
+export const PROFILE_MODEL_VERSION = 3;
 /** Target radius used for reliable reach when a player's logs give none (common practice). */
 export const DEFAULT_REACH_RADIUS_M = 3;
 
 type CachedRow = typeof playerProfiles.$inferSelect;
+
+/** A session's ball size as the priors know it (anything else is treated as 5, as `ballOf` does). */
+function squadBallSize(size: number): 3 | 4 | 5 {
+  return size === 3 || size === 4 ? size : 5;
+}
 
 /**
  * How long the API must have been quiet before the refresher fits another profile, ms. A fit holds the
@@ -99,7 +113,8 @@ export class ProfileCache {
                 k.backspin_step AS backspinStep, k.sidespin_step AS sidespinStep, k.carry_m AS carryM, k.lateral_m AS lateralM,
                 k.measured_speed_ms AS measuredSpeedMs, k.launch_angle_deg AS launchAngleDeg, k.measured_spin_rps AS measuredSpinRps,
                 k.hang_time_s AS hangTimeS, s.temperature_c AS temperatureC, s.altitude_m AS altitudeM, s.relative_humidity_pct AS relativeHumidityPct,
-                s.pressure_hpa AS pressureHpa, s.wind_speed_ms AS windSpeedMs, s.wind_from_deg AS windFromDeg, s.ball_size AS ballSize
+                s.pressure_hpa AS pressureHpa, s.wind_speed_ms AS windSpeedMs, s.wind_from_deg AS windFromDeg, s.ball_size AS ballSize,
+                s.conditions_source_json AS conditionsSourceJson
            FROM kicks k JOIN training_sessions s ON s.id = k.session_id
           WHERE k.player_id = ? AND k.technique = ? AND k.deleted_at IS NULL AND s.deleted_at IS NULL
           ORDER BY k.recorded_at DESC LIMIT 400`,
@@ -115,14 +130,16 @@ export class ProfileCache {
     let reach: number | null = null;
     if (rows.length > 0) {
       try {
-        profile = fitProfile(
+        const ballSize = squadBallSize(rows[0]!.ballSize);
+        const fitted = fitProfile(
           rows.map((r) => loggedKickOf(r, r)),
           undefined,
-          { timing: this.timingOf(playerId) },
+          { timing: this.timingOf(playerId), ballSize },
         );
-        const ballSize = rows[0]!.ballSize;
-        curve = reachCurve(profile, standardConditions(ballSize), { samples: PROFILE_ENVELOPE_SAMPLES, seed: PROFILE_ENVELOPE_SEED });
+        curve = reachCurve(fitted, standardConditions(ballSize), { samples: PROFILE_ENVELOPE_SAMPLES, seed: PROFILE_ENVELOPE_SEED });
         reach = reliableReachM(curve, reachRadiusM);
+        // Reach beyond the longest distance drilled is the model's and the prior's, not the logs': say so.
+        profile = { ...fitted, warnings: reachWarnings(fitted, reach) };
       } catch (err) {
         // The model refused input these checks did not foresee: answer "no profile, N kicks skipped", not a 500.
         if (!(err instanceof RangeError)) throw err;

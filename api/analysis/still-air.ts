@@ -17,7 +17,8 @@ const SELECT = `SELECT k.id, k.change_seq AS changeSeq, k.technique, k.outcome, 
        k.backspin_step AS backspinStep, k.sidespin_step AS sidespinStep, k.carry_m AS carryM, k.lateral_m AS lateralM,
        k.measured_speed_ms AS measuredSpeedMs, k.launch_angle_deg AS launchAngleDeg, k.measured_spin_rps AS measuredSpinRps,
        s.temperature_c AS temperatureC, s.altitude_m AS altitudeM, s.relative_humidity_pct AS relativeHumidityPct,
-       s.pressure_hpa AS pressureHpa, s.wind_speed_ms AS windSpeedMs, s.wind_from_deg AS windFromDeg, s.ball_size AS ballSize
+       s.pressure_hpa AS pressureHpa, s.wind_speed_ms AS windSpeedMs, s.wind_from_deg AS windFromDeg, s.ball_size AS ballSize,
+       s.conditions_source_json AS conditionsSourceJson
   FROM kicks k JOIN training_sessions s ON s.id = k.session_id`;
 
 /** Per connection: the lowest change sequence a refresher must walk back to (older rows were cleared). */

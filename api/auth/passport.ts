@@ -23,9 +23,10 @@ export interface AuthUser {
 }
 
 declare global {
-  // eslint-disable-next-line @typescript-eslint/no-namespace
+  // eslint-disable-next-line @typescript-eslint/no-namespace -- Express's request types live in a global namespace; augmenting them needs one
   namespace Express {
     // passport augments Express.User; make it our AuthUser.
+    // eslint-disable-next-line @typescript-eslint/no-empty-object-type -- declaration merging: passport's empty User becomes our AuthUser
     interface User extends AuthUser {}
   }
 }

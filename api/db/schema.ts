@@ -1,5 +1,5 @@
 /**
- * The one Drizzle schema module for Loftline's SQLite database (DESIGN §5).
+ * The one Drizzle schema module for Loftline's SQLite database (docs/design.md §5).
  *
  * Conventions: camelCase keys over snake_case columns; timestamps are ISO 8601 UTC text
  * (sortable, readable in a SQL shell, and what the sync payloads carry). Rows a client can
@@ -9,6 +9,7 @@
  */
 import { sql } from 'drizzle-orm';
 import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import { FEET, OUTCOMES, TECHNIQUES } from '../../shared/vocabulary';
 
 const createdAt = () =>
   text('created_at')
@@ -82,7 +83,7 @@ export const groundConditions = sqliteTable('ground_conditions', {
   windFromBearingDeg: real('wind_from_bearing_deg').notNull(),
 });
 
-/** Accounts. `role` is one of DESIGN §2's five roles. */
+/** Accounts. `role` is one of docs/design.md §2's five roles. */
 export const users = sqliteTable(
   'users',
   {
@@ -173,11 +174,9 @@ export const players = sqliteTable(
     userId: text('user_id').references(() => users.id),
     displayName: text('display_name').notNull(),
     shirtNumber: integer('shirt_number'),
-    dominantFoot: text('dominant_foot', { enum: ['left', 'right'] })
-      .notNull()
-      .default('right'),
+    dominantFoot: text('dominant_foot', { enum: FEET }).notNull().default('right'),
     birthDate: text('birth_date'),
-    /** An adult player's own opt-in to Family digests about them (DESIGN §10: none for adults otherwise). */
+    /** An adult player's own opt-in to Family digests about them (docs/design.md §10: none for adults otherwise). */
     digestSelfOptIn: integer('digest_self_opt_in', { mode: 'boolean' }).notNull().default(false),
     /** When the player was erased on request: an erased row never comes back (a roster import creates a new one). */
     erasedAt: text('erased_at'),
@@ -264,7 +263,7 @@ export const drills = sqliteTable(
     sessionId: text('session_id')
       .notNull()
       .references(() => trainingSessions.id),
-    technique: text('technique', { enum: ['driven', 'lofted', 'chipped', 'curled'] }).notNull(),
+    technique: text('technique', { enum: TECHNIQUES }).notNull(),
     targetDistanceM: real('target_distance_m').notNull(),
     targetRadiusM: real('target_radius_m').notNull(),
     lateralOffsetM: real('lateral_offset_m').notNull().default(0),
@@ -295,19 +294,19 @@ export const kicks = sqliteTable(
     playerId: text('player_id')
       .notNull()
       .references(() => players.id),
-    technique: text('technique', { enum: ['driven', 'lofted', 'chipped', 'curled'] }).notNull(),
-    foot: text('foot', { enum: ['left', 'right'] }).notNull(),
-    /** −3..3, + = backspin (DESIGN §3 seven-step scale). */
+    technique: text('technique', { enum: TECHNIQUES }).notNull(),
+    foot: text('foot', { enum: FEET }).notNull(),
+    /** −3..3, + = backspin (docs/design.md §3 seven-step scale). */
     backspinStep: integer('backspin_step').notNull().default(0),
-    /** −2..2, + = curls left (DESIGN §3 five-step scale). */
+    /** −2..2, + = curls left (docs/design.md §3 five-step scale). */
     sidespinStep: integer('sidespin_step').notNull().default(0),
     targetDistanceM: real('target_distance_m').notNull(),
     targetRadiusM: real('target_radius_m').notNull(),
-    outcome: text('outcome', { enum: ['on_target', 'short', 'long', 'left', 'right', 'blocked', 'over'] }).notNull(),
+    outcome: text('outcome', { enum: OUTCOMES }).notNull(),
     carryM: real('carry_m'),
     /** `carry_m` normalised through the flight model to still air at ISA sea level, 15 °C (server-computed). */
     stillAirCarryM: real('still_air_carry_m'),
-    /** Landing offset from the aim line, metres, + = the kicker's left (DESIGN §6 y axis). */
+    /** Landing offset from the aim line, metres, + = the kicker's left (docs/design.md §6 y axis). */
     lateralM: real('lateral_m'),
     measuredSpeedMs: real('measured_speed_ms'),
     launchAngleDeg: real('launch_angle_deg'),
@@ -345,7 +344,7 @@ export const playerProfiles = sqliteTable(
     playerId: text('player_id')
       .notNull()
       .references(() => players.id),
-    technique: text('technique', { enum: ['driven', 'lofted', 'chipped', 'curled'] }).notNull(),
+    technique: text('technique', { enum: TECHNIQUES }).notNull(),
     /** Highest kick change_seq the cached profile saw. */
     kicksSeq: integer('kicks_seq').notNull(),
     repetitions: integer('repetitions').notNull(),

@@ -1,6 +1,6 @@
 /**
  * A real SMTP server on a loopback port that accepts every message and stores it (headers,
- * text, HTML) in `captured_mail`, for development, tests and the demo (DESIGN §8). Nothing
+ * text, HTML) in `captured_mail`, for development, tests and the demo (docs/design.md §8). Nothing
  * leaves the machine; admins read the captures at /admin/mail.
  */
 import { randomUUID } from 'node:crypto';

@@ -47,12 +47,12 @@ interface TimedRow extends SessionConditions {
 }
 
 const SELECT_TIMED = `SELECT technique, outcome, targetDistanceM, targetRadiusM, backspinStep, sidespinStep, carryM, launchAngleDeg, hangTimeS,
-       temperatureC, altitudeM, relativeHumidityPct, pressureHpa, windSpeedMs, windFromDeg, ballSize
+       temperatureC, altitudeM, relativeHumidityPct, pressureHpa, windSpeedMs, windFromDeg, ballSize, conditionsSourceJson
   FROM (SELECT k.technique, k.outcome, k.target_distance_m AS targetDistanceM, k.target_radius_m AS targetRadiusM,
                k.backspin_step AS backspinStep, k.sidespin_step AS sidespinStep, k.carry_m AS carryM, k.launch_angle_deg AS launchAngleDeg,
                k.hang_time_s AS hangTimeS, s.temperature_c AS temperatureC, s.altitude_m AS altitudeM,
                s.relative_humidity_pct AS relativeHumidityPct, s.pressure_hpa AS pressureHpa, s.wind_speed_ms AS windSpeedMs,
-               s.wind_from_deg AS windFromDeg, s.ball_size AS ballSize,
+               s.wind_from_deg AS windFromDeg, s.ball_size AS ballSize, s.conditions_source_json AS conditionsSourceJson,
                ROW_NUMBER() OVER (PARTITION BY k.technique ORDER BY k.recorded_at DESC) AS n
           FROM kicks k JOIN training_sessions s ON s.id = k.session_id
          WHERE k.player_id = ? AND k.club_id = ? AND k.deleted_at IS NULL AND k.hang_time_s IS NOT NULL AND s.deleted_at IS NULL)

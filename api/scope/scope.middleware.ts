@@ -8,7 +8,7 @@ import { Unauthorized } from '../errors';
 import { Scope } from './scope';
 
 declare global {
-  // eslint-disable-next-line @typescript-eslint/no-namespace
+  // eslint-disable-next-line @typescript-eslint/no-namespace -- Express's request types live in a global namespace; augmenting them needs one
   namespace Express {
     interface Request {
       /** The caller's scope; set by `attachScope` on every authenticated route. */

@@ -1,5 +1,5 @@
 /**
- * The one server-side scoping module (DESIGN §2). Every router asks a `Scope` what the caller
+ * The one server-side scoping module (docs/design.md §2). Every router asks a `Scope` what the caller
  * may read or write; nothing else decides visibility.
  *
  *  - Everything is limited to the caller's club first.

@@ -130,6 +130,7 @@ export function squadWeek(
         reachRadiusM: entry.reachRadiusM,
         repetitions: entry.repetitions,
         pending: entry.pending,
+        warnings: entry.profile?.warnings ?? [],
       };
     });
     const eligible = byTechnique.filter((r) => r.reps >= MIN_REPS_FOR_BEST).sort((a, b) => b.hitRate - a.hitRate || b.reps - a.reps);

@@ -82,6 +82,11 @@ export interface AimedSpeedFit {
   ceilingMs: number;
   /** Standard error of ln(ceiling). Large when no repetition came near the ceiling (the prior speaks). */
   ceilingLogSe: number;
+  /**
+   * Speed the player has demonstrably reached, m/s: the ceiling's posterior is one-sided above it
+   * (sampling draws the ceiling from the normal in ln speed truncated below here). Absent in old rows: 0.
+   */
+  ceilingFloorMs?: number;
   /** Median target distance of the repetitions, m: where the profile's absolute speed figures are quoted. */
   typicalTargetM: number;
 }

@@ -91,8 +91,8 @@ export const DEFAULT_ELEVATION_DEG: Readonly<Record<Technique, number>> = {
   chipped: 48,
 };
 
-/** All techniques, in the order screens list them. */
-export const TECHNIQUES: readonly Technique[] = ['driven', 'lofted', 'chipped', 'curled'];
+/** All techniques, in the order screens list them (the vocabulary's list). */
+export { TECHNIQUES } from '../vocabulary';
 
 /**
  * Spin-decay time constant τ in ω = ω₀ e^(−t/τ), seconds. An estimate: the golf-ball spin-down law of

@@ -18,6 +18,9 @@ export {
   goffCarreSpinCd,
   GOFF_CARRE_RE_CENTRE,
   GOFF_CARRE_RE_WIDTH,
+  LIFT_ONSET_S,
+  LIFT_ONSET_SLOPE,
+  onsetLiftCl,
   powerLiftCl,
   saturatingLiftCl,
 } from './aero';
@@ -47,10 +50,24 @@ export type { SolverSettings } from './integrate';
 export { INVERSE_MAX_SPEED_MS, INVERSE_MIN_SPEED_MS, solveLaunchSpeed } from './inverse';
 export type { LaunchSpeedQuery } from './inverse';
 export { fitProfile } from './profile';
+export {
+  backspinLogSdRps,
+  CEILINGS_BY_BALL_MS,
+  ELEVATION_SD_PRIOR_DEG,
+  LAUNCH_SPEED_CAP_MS,
+  PRIORS_BY_BALL,
+  sidespinLogSdRps,
+} from './profile-priors';
+export type { SquadBallSize } from './profile-priors';
+export { fitWarnings, PROFILE_WARNING_TEXT, reachWarnings } from './profile-warnings';
+export { PROFILE_WARNINGS } from './profile-types';
+export type { ElevationSpreadSource, ProfileWarning } from './profile-types';
 export { CEILING_PRIOR_LOG_SD, DEFAULT_CEILINGS_MS, DEFAULT_PRIORS } from './profile-types';
 export type { FitOptions } from './profile-types';
 export type { KickProfile, LoggedKick, ProfileObservationCounts, ProfilePrior } from './profile-types';
 export { DEFAULT_WALL_HEIGHT_M, GOAL_CROSSING, setPieceCheck, setPieceCloud, setPieceGeometry } from './set-piece';
+export { choiceRangeOf, TECHNIQUE_CHOICES } from './set-piece-aim';
+export type { IntendedKick, KickChoiceRange } from './set-piece-aim';
 export type { GoalCrossingKind, GoalMouthCloud, SetPieceCloudResult, SetPieceInput, SetPieceResult, SetPieceShares } from './set-piece';
 export { simulateKick } from './simulate';
 export {
@@ -91,3 +108,10 @@ export type {
   WindSpec,
 } from './types';
 export { LIMITS } from './validate';
+export {
+  COACH_WIND_HEIGHT_M,
+  GRASS_ROUGHNESS_LENGTH_M,
+  WEATHER_WIND_HEIGHT_M,
+  WIND_PROFILE_MIN_HEIGHT_M,
+  windHeightFactor,
+} from './wind-profile';

@@ -63,6 +63,12 @@ export interface IntegrateOptions {
   planes?: readonly VerticalPlane[];
   path?: boolean;
   settings?: Readonly<SolverSettings>;
+  /**
+   * Whether to stop as soon as every plane has been crossed (set pieces need only the wall and the goal
+   * line; the rest of the flight into the net or the stand is wasted work). The landing fields then
+   * describe the ball at that moment, with `landed` false.
+   */
+  stopAfterPlanes?: boolean;
 }
 
 /** Crossing of a general vertical plane (kick axes). */
@@ -98,6 +104,7 @@ export function integrateFlight(model: FlightModel, options: IntegrateOptions = 
   const s0 = model.initialState;
   const planes = options.planes ?? [];
   const wantPath = options.path === true;
+  const stopAfterPlanes = options.stopAfterPlanes === true && planes.length > 0;
   const speed0 = Math.hypot(s0[3]!, s0[4]!, s0[5]!);
   if (!(s0[5]! > 0)) {
     // No upward launch: the ball never leaves the ground, so there is no flight to integrate.
@@ -200,6 +207,7 @@ export function integrateFlight(model: FlightModel, options: IntegrateOptions = 
     prevZ = zEnd;
     prevVz = vzEnd;
     if (landed) return false;
+    if (stopAfterPlanes && crossed.every((c) => c !== null)) return false;
   };
 
   const result = solverFor(options.settings ?? DEFAULT_SOLVER_SETTINGS).solve(f, 0, s0, FLIGHT_TIME_CAP_S, observer);

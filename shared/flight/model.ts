@@ -8,11 +8,12 @@
  * here helps every envelope.
  */
 
-import { goffCarreCd, powerLiftCl, saturatingLiftCl } from './aero';
+import { goffCarreCd, GOFF_CARRE_RE_CENTRE, onsetLiftCl, powerLiftCl, saturatingLiftCl } from './aero';
 import { resolveAir } from './atmosphere';
 import { BALL_SIZES, DEFAULT_SPIN_DECAY_TAU_S, STANDARD_GRAVITY_MS2 } from './constants';
 import type { FlightConditions, KickInput } from './types';
 import { LIMITS, requireFinite, requireInHalfOpen, requireInRange } from './validate';
+import { logHeightRatio } from './wind-profile';
 
 const DEG = Math.PI / 180;
 const TWO_PI = 2 * Math.PI;
@@ -21,12 +22,14 @@ const TWO_PI = 2 * Math.PI;
 export const DRAG_GOFF_CARRE = 0;
 /** Constant drag coefficient. */
 export const DRAG_CONSTANT = 1;
+/** Lift: the default, linear through zero then the measured power fit (onsetLiftCl). */
+export const LIFT_ONSET = 0;
 /** Lift: power fit. */
-export const LIFT_POWER = 0;
+export const LIFT_POWER = 1;
 /** Lift: saturating form. */
-export const LIFT_SATURATING = 1;
+export const LIFT_SATURATING = 2;
 /** Lift: constant coefficient. */
-export const LIFT_CONSTANT = 2;
+export const LIFT_CONSTANT = 3;
 
 /** Precomputed constants of one kick's equations of motion. Plain numbers only, for speed. */
 export interface FlightModel {
@@ -34,10 +37,19 @@ export interface FlightModel {
   /** ρA/(2m), 1/m. */
   aeroK: number;
   radiusM: number;
-  /** d/ν: Reynolds number per m/s of air speed. */
+  /**
+   * d/ν, times GOFF_CARRE_RE_CENTRE / (this ball's crisis Reynolds number): the Reynolds number per m/s
+   * of air speed on the scale of the Goff & Carré fit, so the fit's crisis lands at this ball's.
+   */
   reynoldsPerMs: number;
+  /** Wind at the reference height (or everywhere, when `windLogScale` is 0), m/s. */
   windXMs: number;
   windYMs: number;
+  /**
+   * 1 / ln(z_ref/z₀) of the logarithmic wind profile (floored form, wind-profile.ts); 0 = the same wind at
+   * every height.
+   */
+  windLogScale: number;
   /** Unit spin axis (constant direction; only the magnitude decays). */
   axisX: number;
   axisY: number;
@@ -66,12 +78,17 @@ export function resolveConditions(c: FlightConditions): Omit<FlightModel, 'axisX
   const air = resolveAir(c.air);
   let windXMs = 0;
   let windYMs = 0;
+  let windLogScale = 0;
   if (c.wind) {
     const speed = requireInRange('wind.speedMs', c.wind.speedMs, LIMITS.windSpeedMs[0], LIMITS.windSpeedMs[1], 'm/s');
     const from = requireFinite('wind.fromDeg', c.wind.fromDeg) * DEG;
     // Wind blows *from* `fromDeg` (0 = from the target), so it moves towards the opposite direction.
     windXMs = -speed * Math.cos(from);
     windYMs = -speed * Math.sin(from);
+    if (c.wind.referenceHeightM !== undefined) {
+      const h = requireInRange('wind.referenceHeightM', c.wind.referenceHeightM, LIMITS.windHeightM[0], LIMITS.windHeightM[1], 'm');
+      windLogScale = 1 / logHeightRatio(h);
+    }
   }
   const aero = c.aero ?? {};
   let dragKind = DRAG_GOFF_CARRE;
@@ -82,15 +99,20 @@ export function resolveConditions(c: FlightConditions): Omit<FlightModel, 'axisX
     dragKind = DRAG_CONSTANT;
     dragConstant = requireInRange('aero.drag.constant', aero.drag.constant, LIMITS.dragConstant[0], LIMITS.dragConstant[1]);
   }
-  let liftKind = LIFT_POWER;
+  let liftKind = LIFT_ONSET;
   let liftConstant = 0;
-  if (aero.lift === 'saturating') liftKind = LIFT_SATURATING;
-  else if (aero.lift !== undefined && aero.lift !== 'power') {
+  if (aero.lift === 'power') liftKind = LIFT_POWER;
+  else if (aero.lift === 'saturating') liftKind = LIFT_SATURATING;
+  else if (aero.lift !== undefined && aero.lift !== 'onset') {
     if (typeof aero.lift !== 'object' || aero.lift === null)
-      throw new RangeError(`aero.lift must be 'power', 'saturating' or { constant } (got ${String(aero.lift)})`);
+      throw new RangeError(`aero.lift must be 'onset', 'power', 'saturating' or { constant } (got ${String(aero.lift)})`);
     liftKind = LIFT_CONSTANT;
     liftConstant = requireInRange('aero.lift.constant', aero.lift.constant, LIMITS.liftConstant[0], LIMITS.liftConstant[1]);
   }
+  const crisisRe =
+    aero.dragCrisisRe === undefined
+      ? GOFF_CARRE_RE_CENTRE
+      : requireInRange('aero.dragCrisisRe', aero.dragCrisisRe, LIMITS.dragCrisisRe[0], LIMITS.dragCrisisRe[1]);
   const tau = aero.spinDecayTauS === undefined ? DEFAULT_SPIN_DECAY_TAU_S : aero.spinDecayTauS;
   const spinDecayPerS =
     tau === null ? 0 : 1 / requireInRange('aero.spinDecayTauS', tau, LIMITS.spinDecayTauS[0], LIMITS.spinDecayTauS[1], 's');
@@ -98,9 +120,10 @@ export function resolveConditions(c: FlightConditions): Omit<FlightModel, 'axisX
     gravityMs2: STANDARD_GRAVITY_MS2,
     aeroK: (air.densityKgM3 * Math.PI * radiusM * radiusM) / (2 * massKg),
     radiusM,
-    reynoldsPerMs: (2 * radiusM) / air.kinematicViscosityM2S,
+    reynoldsPerMs: ((2 * radiusM) / air.kinematicViscosityM2S) * (GOFF_CARRE_RE_CENTRE / crisisRe),
     windXMs,
     windYMs,
+    windLogScale,
     spinDecayPerS,
     dragKind,
     dragConstant,
@@ -158,6 +181,7 @@ export function buildModel(conditions: ReturnType<typeof resolveConditions>, lau
     reynoldsPerMs: conditions.reynoldsPerMs,
     windXMs: conditions.windXMs,
     windYMs: conditions.windYMs,
+    windLogScale: conditions.windLogScale,
     spinDecayPerS: conditions.spinDecayPerS,
     dragKind: conditions.dragKind,
     dragConstant: conditions.dragConstant,
@@ -179,7 +203,7 @@ export function modelFromKick(input: KickInput): FlightModel {
 
 /**
  * Right-hand side of the equations of motion: writes d(state)/dt into `out`. No allocation, one square
- * root, and at most three transcendental calls (spin decay, crisis sigmoid, spin drag power).
+ * root, and at most four transcendental calls (spin decay, crisis sigmoid, spin drag power, wind profile).
  */
 export function derivative(m: FlightModel, t: number, s: ArrayLike<number>, out: { [i: number]: number }): void {
   const vx = s[3]!;
@@ -188,8 +212,16 @@ export function derivative(m: FlightModel, t: number, s: ArrayLike<number>, out:
   out[0] = vx;
   out[1] = vy;
   out[2] = vz;
-  const ux = vx - m.windXMs;
-  const uy = vy - m.windYMs;
+  let windX = m.windXMs;
+  let windY = m.windYMs;
+  if (m.windLogScale > 0) {
+    // Logarithmic profile at the height of the ball's centre (z is its underside's height above the grass).
+    const f = logHeightRatio(s[2]! + m.radiusM) * m.windLogScale;
+    windX *= f;
+    windY *= f;
+  }
+  const ux = vx - windX;
+  const uy = vy - windY;
   const uz = vz;
   const u2 = ux * ux + uy * uy + uz * uz;
   let ax = 0;
@@ -207,7 +239,8 @@ export function derivative(m: FlightModel, t: number, s: ArrayLike<number>, out:
     az -= drag * uz;
     if (spin > 0) {
       let cl: number;
-      if (m.liftKind === LIFT_POWER) cl = powerLiftCl(spinParameter);
+      if (m.liftKind === LIFT_ONSET) cl = onsetLiftCl(spinParameter);
+      else if (m.liftKind === LIFT_POWER) cl = powerLiftCl(spinParameter);
       else if (m.liftKind === LIFT_SATURATING) cl = saturatingLiftCl(spinParameter);
       else cl = m.liftConstant;
       // k C_L |u|² (ω̂ × û) = k C_L |u| (ω̂ × u)

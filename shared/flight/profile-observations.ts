@@ -16,8 +16,11 @@ import type { LoggedKick } from './profile-types';
 import type { BackspinStep, FlightConditions, KickOutcome, SidespinStep, Technique } from './types';
 import { requireInHalfOpen, requireInRange, requireInteger, requireOneOf } from './validate';
 
-const OUTCOMES: readonly KickOutcome[] = ['on_target', 'short', 'long', 'left', 'right', 'blocked', 'over'];
+import { OUTCOMES } from '../vocabulary';
+
 const DEG = Math.PI / 180;
+/** Half-width of the square with the area of a unit circle, √π / 2 ≈ 0.886 (first principles). */
+export const EQUAL_AREA_HALF_WIDTH = Math.sqrt(Math.PI) / 2;
 
 /** A censored observation: lo = hi is a point; infinite ends are one-sided bounds. */
 export interface Censored {
@@ -42,6 +45,12 @@ export interface PreparedKick {
   measuredSpeedMs: number | null;
   hangTimeS: number | null;
   conditions: FlightConditions;
+  /** Whether the launch angle was measured (device import, video): trusted, no elevation uncertainty. */
+  angleMeasured: boolean;
+  /** Whether the spin was measured (device) or solved from a stopwatch reading: no eye-logging uncertainty. */
+  spinMeasured: boolean;
+  backspinStep: BackspinStep;
+  sidespinStep: SidespinStep;
 }
 
 function optional(field: string, value: number | null | undefined, check: (f: string, v: number) => number): number | null {
@@ -90,7 +99,78 @@ export function prepareKick(kick: LoggedKick, index: number): PreparedKick {
     measuredSpeedMs,
     hangTimeS,
     conditions: kick.conditions ?? {},
+    angleMeasured: angle !== null,
+    spinMeasured: spin !== null,
+    backspinStep: backStep,
+    sidespinStep: sideStep,
   };
+}
+
+/** The unknown part of one repetition's launch, as standard deviations at launch-noise scale 1. */
+export interface LaunchUnknowns {
+  elevationSdDeg: number;
+  backspinSdRps: number;
+}
+
+/**
+ * How an unknown launch moves a repetition's speed evidence: Δ = ln V(carry, actual launch) − ln V(carry,
+ * assumed launch), where V is the inverse (speed for a carry). Its mean (second order in the spread) and
+ * variance, at launch-noise scale 1; the fit scales them by λ² (mean) and λ² (variance).
+ */
+export interface LaunchShift {
+  meanLog: number;
+  varLog: number;
+}
+
+/** Three-point Gauss–Hermite nodes for a normal variable: ±√3 σ with weight 1/6, 0 with weight 2/3 (Abramowitz & Stegun 25.4.46). */
+const GH_NODE = Math.sqrt(3);
+
+/**
+ * Moments of Δ for a repetition whose evidence is a carry of `carryM` (a bound or a point), integrated
+ * over its unknown elevation and backspin one dimension at a time by three-point Gauss–Hermite
+ * quadrature (cross terms left out). A shift where a node cannot reach the carry uses the inverse's
+ * clamp (1 or 60 m/s): large, as it should be, since such a launch cannot explain the log.
+ */
+export function launchShift(kick: PreparedKick, carryM: number, unknowns: LaunchUnknowns, bounds: SpeedBounds): LaunchShift {
+  if (!(carryM > 0.5)) return { meanLog: 0, varLog: 0 };
+  const base = Math.log(bounds.speedFor(kick, carryM));
+  let meanLog = 0;
+  let varLog = 0;
+  const add = (plus: PreparedKick, minus: PreparedKick): void => {
+    const dp = Math.log(bounds.speedFor(plus, carryM)) - base;
+    const dm = Math.log(bounds.speedFor(minus, carryM)) - base;
+    const m = (dp + dm) / 6;
+    meanLog += m;
+    varLog += Math.max(0, (dp * dp + dm * dm) / 6 - m * m);
+  };
+  if (unknowns.elevationSdDeg > 0) {
+    const h = GH_NODE * unknowns.elevationSdDeg;
+    const at = (e: number): PreparedKick => ({ ...kick, elevationDeg: Math.min(85, Math.max(1, e)) });
+    add(at(kick.elevationDeg + h), at(kick.elevationDeg - h));
+  }
+  if (unknowns.backspinSdRps > 0) {
+    const h = GH_NODE * unknowns.backspinSdRps;
+    add({ ...kick, backspinRps: kick.backspinRps + h }, { ...kick, backspinRps: kick.backspinRps - h });
+  }
+  return { meanLog, varLog };
+}
+
+/** The carry a repetition's speed evidence is read at (for its launch shift), or null when it has none. */
+export function evidenceCarryM(kick: PreparedKick): number | null {
+  if (kick.measuredSpeedMs !== null) return null;
+  if (kick.carryM !== null) return kick.carryM;
+  const d = kick.targetDistanceM;
+  const m = kick.targetRadiusM * Math.SQRT1_2;
+  switch (kick.outcome) {
+    case 'short':
+      return d - m > 0 ? d - m : null;
+    case 'long':
+      return d + m;
+    case 'blocked':
+      return null;
+    default:
+      return d;
+  }
 }
 
 /** Memoised carry → speed for repeated targets (a drill logs the same bounds again and again). */
@@ -147,6 +227,9 @@ export function speedObservation(kick: PreparedKick, bounds: SpeedBounds): Censo
   const m = r * Math.SQRT1_2;
   switch (kick.outcome) {
     case 'on_target':
+      // Inside a circle of radius r: the carry and lateral errors are each read as within the half-width of
+      // the square of equal area, r√π/2 (not r, which would credit the corners and widen the fitted spreads).
+      return { lo: bounds.speedFor(kick, d - EQUAL_AREA_HALF_WIDTH * r), hi: bounds.speedFor(kick, d + EQUAL_AREA_HALF_WIDTH * r) };
     case 'left':
     case 'right':
       return { lo: bounds.speedFor(kick, d - r), hi: bounds.speedFor(kick, d + r) };
@@ -172,7 +255,7 @@ export function aimObservation(kick: PreparedKick, speedMs: number): Censored | 
   const r = kick.targetRadiusM;
   let lateral: Censored | null = null;
   if (kick.lateralM !== null) lateral = { lo: kick.lateralM, hi: kick.lateralM };
-  else if (kick.outcome === 'on_target') lateral = { lo: -r, hi: r };
+  else if (kick.outcome === 'on_target') lateral = { lo: -EQUAL_AREA_HALF_WIDTH * r, hi: EQUAL_AREA_HALF_WIDTH * r };
   else if (kick.outcome === 'left') lateral = { lo: r * Math.SQRT1_2, hi: Number.POSITIVE_INFINITY };
   else if (kick.outcome === 'right') lateral = { lo: Number.NEGATIVE_INFINITY, hi: -r * Math.SQRT1_2 };
   if (lateral === null) return null;

@@ -62,7 +62,33 @@ export interface FitOptions {
   timing?: { biasS: number; sdS: number };
   /** At most this many timed repetitions (the first ones given) are solved (default 60). */
   maxTimed?: number;
+  /**
+   * The squad's ball size, which picks the priors and the speed cap (profile-priors.ts). Default: read
+   * from the first repetition's ball, else 5.
+   */
+  ballSize?: 3 | 4 | 5;
 }
+
+/**
+ * Stable codes of what a coach should know before trusting a profile; screens turn them into plain words
+ * (PROFILE_WARNING_TEXT). `speed_beyond_cap`: the logs ask for more launch speed than a kick can reach;
+ * `few_repetitions`: too few repetitions to say much; `reach_beyond_drilled`: reliable reach lies beyond the
+ * longest distance drilled, so it follows the model and prior rather than evidence; `prior_dominated`: the
+ * prior, not the logs, sets the speed figures; `contradictory_logs`: repetitions that cannot all be true.
+ */
+export type ProfileWarning = 'speed_beyond_cap' | 'few_repetitions' | 'reach_beyond_drilled' | 'prior_dominated' | 'contradictory_logs';
+
+/** Every warning code, in the order screens list them. */
+export const PROFILE_WARNINGS: readonly ProfileWarning[] = [
+  'contradictory_logs',
+  'speed_beyond_cap',
+  'few_repetitions',
+  'prior_dominated',
+  'reach_beyond_drilled',
+];
+
+/** Where a profile's elevation spread comes from. */
+export type ElevationSpreadSource = 'logged' | 'prior';
 
 /** A player's fitted launch distribution for one technique. JSON-serialisable. */
 export interface KickProfile {
@@ -91,16 +117,34 @@ export interface KickProfile {
   /** Mean launch elevation the fit assumed (measured angles, else the technique default), degrees. */
   elevationDeg: number;
   /**
-   * Spread of the launch elevations the fit saw, degrees. Each repetition is inverted with its own
-   * launch, so the speed and aim spreads are conditional on it; envelopes add this spread back. When
-   * every repetition used the same assumed angle it is 0, and that variation lives in the speed spread.
+   * Spread of launch elevation between kicks, degrees: what sampling, envelopes, reach curves and set
+   * pieces draw around `elevationDeg`. From the logged angles when at least three were measured
+   * (`elevationSdSource` 'logged'), else the technique's prior spread (ELEVATION_SD_PRIOR_DEG, common
+   * practice) scaled by `launchNoiseScale`. The speed spread is conditional on it (the fit integrates
+   * every repetition over the launch it may have had), so the two add rather than double count.
    */
   sdElevationDeg: number;
+  elevationSdSource: ElevationSpreadSource;
   backspinRps: number;
   sidespinRps: number;
-  /** Spread of the per-repetition backspin rates (logged steps or measured), rev/s; see sdElevationDeg. */
+  /**
+   * Spread of backspin between kicks, rev/s, as drawn: the larger of the spread of the logged rates and
+   * the eye-logging uncertainty (a step counts as ±1 step; measured or timed spins count as exact) scaled
+   * by `launchNoiseScale`. Likewise `sdSidespinRps`.
+   */
   sdBackspinRps: number;
   sdSidespinRps: number;
+  /**
+   * Share of the assumed launch uncertainty (prior elevation spread, eye-logged spin) the logs support,
+   * fitted in [0.05, 2] with a prior centred on 1: a tight record on a small target shrinks it.
+   */
+  launchNoiseScale: number;
+  /** The physiological launch-speed cap the fit and sampling respect, m/s (profile-priors.ts). */
+  speedCapMs: number;
+  /** Longest target distance among the repetitions, m (0 with none): reach beyond it is extrapolated. */
+  longestTargetM: number;
+  /** What a coach should know before trusting these figures (stable codes; see ProfileWarning). */
+  warnings: ProfileWarning[];
   observations: ProfileObservationCounts;
   /** The prior the fit used. */
   prior: ProfilePrior;

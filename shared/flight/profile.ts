@@ -5,30 +5,38 @@
  * `weightReps` repetitions). Reports how many repetitions it used and the uncertainty of the mean.
  */
 
-import { type AimLaunch, type AimedSpeedFit, intendedLog, intentionConditions, NeededSpeeds, softMinLog } from './aimed-speed';
+import { type AimLaunch, type AimedSpeedFit, intendedLog, intentionConditions, NeededSpeeds } from './aimed-speed';
 import { DEFAULT_ELEVATION_DEG } from './constants';
 import { DEFAULT_SOLVER_SETTINGS, integrateFlight } from './integrate';
 import { buildModel, resolveConditions, validateLaunch } from './model';
-import { aimObservation, type Censored, prepareKick, type PreparedKick, SpeedBounds, speedObservation } from './profile-observations';
 import {
-  CEILING_PRIOR_LOG_SD,
-  DEFAULT_CEILINGS_MS,
-  DEFAULT_PRIORS,
-  type FitOptions,
-  type KickProfile,
-  type LoggedKick,
-  type ProfilePrior,
-} from './profile-types';
+  aimObservation,
+  type Censored,
+  type LaunchUnknowns,
+  prepareKick,
+  type PreparedKick,
+  SpeedBounds,
+  speedObservation,
+} from './profile-observations';
+import {
+  backspinLogSdRps,
+  ballSizeOf,
+  CEILINGS_BY_BALL_MS,
+  ELEVATION_SD_PRIOR_DEG,
+  LAUNCH_SPEED_CAP_MS,
+  PRIORS_BY_BALL,
+  sidespinLogSdRps,
+} from './profile-priors';
+import { fitAimedSpeed, type SpeedEvidence, speedEvidence } from './profile-speed-fit';
+import { CEILING_PRIOR_LOG_SD, type FitOptions, type KickProfile, type LoggedKick, type ProfilePrior } from './profile-types';
+import { fitWarnings } from './profile-warnings';
 import { timedEvidence } from './profile-timed';
-import { inverseHessian, inverseHessian2, logNormalIntervalProbability, logNormalPdf, nelderMead } from './stats';
+import { inverseHessian2, logNormalIntervalProbability, logNormalPdf, nelderMead } from './stats';
 import type { FlightConditions, Technique } from './types';
 import { requireInHalfOpen, requireInRange } from './validate';
 
 const LOG_SD_MIN = Math.log(0.05);
 const LOG_SD_MAX = Math.log(30);
-/** Bounds of ln σ of the aimed-speed offset: 0.5 % … 100 % speed spread. */
-const LOG_SD_MIN_AIMED = Math.log(0.005);
-const LOG_SD_MAX_AIMED = Math.log(1);
 
 interface NormalFit {
   mean: number;
@@ -96,89 +104,6 @@ function sampleSd(values: readonly number[]): number {
   return Math.sqrt(values.reduce((a, v) => a + (v - m) * (v - m), 0) / (values.length - 1));
 }
 
-/** Ln of a speed bound; non-positive or infinite bounds stay open. */
-function logBound(v: number): number {
-  if (v === Number.POSITIVE_INFINITY) return v;
-  return v > 0 ? Math.log(v) : Number.NEGATIVE_INFINITY;
-}
-
-interface AimedFit {
-  fit: AimedSpeedFit;
-  /** ln of each repetition's intended speed at the fitted ceiling (NaN where it gave no speed). */
-  intendedLogs: number[];
-}
-
-/**
- * Maximum a posteriori fit of (μ, ln σ, ln ceiling) of the aimed-speed model (aimed-speed.ts) to the
- * repetitions' censored ln-speed observations. The speed each target needs is taken for the repetition's
- * own launch angle and spin: a player who lifts a long driven ball higher, or puts more backspin on it,
- * needs less speed for it, and that choice is not inconsistency. Priors: μ ~ N(0, σ₀²/n₀) (players aim at the target),
- * ln σ ~ N(ln σ₀, 1/(2n₀)), ln ceiling ~ N(ln c₀, CEILING_PRIOR_LOG_SD²).
- */
-function fitAimedSpeed(
-  prepared: readonly PreparedKick[],
-  speedObs: readonly (Censored | null)[],
-  prior: ProfilePrior,
-  ceilingPriorMs: number,
-  typicalTargetM: number,
-): AimedFit {
-  const sd0 = prior.sdSpeedMs / prior.meanSpeedMs;
-  const n0 = prior.weightReps;
-  const lnC0 = Math.log(ceilingPriorMs);
-  const needs = new NeededSpeeds();
-  const obs: { lo: number; hi: number; need: number; relSd: number }[] = [];
-  prepared.forEach((k, i) => {
-    const o = speedObs[i];
-    if (!o) return;
-    obs.push({ lo: logBound(o.lo), hi: logBound(o.hi), need: needs.neededMs(k.targetDistanceM, k, k.conditions), relSd: o.relSd ?? 0 });
-  });
-  const f = (theta: number[]): number => {
-    const [mu, logSd, logCeiling] = [theta[0]!, theta[1]!, theta[2]!];
-    if (logSd < LOG_SD_MIN_AIMED || logSd > LOG_SD_MAX_AIMED) return 1e12 * (1 + Math.abs(logSd));
-    if (logCeiling < Math.log(3) || logCeiling > Math.log(70)) return 1e12 * (1 + Math.abs(logCeiling));
-    const sd = Math.exp(logSd);
-    let nlp = 0;
-    for (const o of obs) {
-      const centre = softMinLog(Math.log(o.need), logCeiling) + mu;
-      if (o.lo === o.hi) {
-        // A point with its own measurement spread (a timed repetition): the spreads add in quadrature.
-        const s = o.relSd > 0 ? Math.sqrt(sd * sd + o.relSd * o.relSd) : sd;
-        nlp -= logNormalPdf((o.lo - centre) / s) - Math.log(s);
-      } else nlp -= logNormalIntervalProbability((o.lo - centre) / sd, (o.hi - centre) / sd);
-    }
-    const dm = mu / sd0;
-    const ds = logSd - Math.log(sd0);
-    const dc = (logCeiling - lnC0) / CEILING_PRIOR_LOG_SD;
-    return nlp + n0 * (0.5 * dm * dm + ds * ds) + 0.5 * dc * dc;
-  };
-  // Start from the median residual at the prior ceiling, which keeps Nelder–Mead in the basin.
-  const residuals = obs
-    .map((o) => {
-      const c = Number.isFinite(o.lo) && Number.isFinite(o.hi) ? 0.5 * (o.lo + o.hi) : Number.isFinite(o.lo) ? o.lo : o.hi;
-      return c - softMinLog(Math.log(o.need), lnC0);
-    })
-    .sort((a, b) => a - b);
-  const mu0 = residuals.length ? residuals[Math.floor(residuals.length / 2)]! * (residuals.length / (residuals.length + n0)) : 0;
-  let best = nelderMead(f, [mu0, Math.log(sd0), lnC0], [0.5 * sd0, 0.3, 0.1], { tolerance: 1e-12 });
-  best = nelderMead(f, best.x, [0.1 * sd0, 0.1, 0.05], { tolerance: 1e-13 });
-  const [mu, logSd, logCeiling] = [best.x[0]!, best.x[1]!, best.x[2]!];
-  const cov = inverseHessian(f, best.x, [1e-3 * sd0, 1e-3, 1e-3]);
-  const sd = Math.exp(logSd);
-  const intendedLogs = prepared.map((k) => softMinLog(Math.log(needs.neededMs(k.targetDistanceM, k, k.conditions)), logCeiling));
-  return {
-    fit: {
-      offsetLogMean: mu,
-      offsetLogSd: sd,
-      offsetLogMeanSe: Math.sqrt(cov[0]![0]!),
-      offsetLogSdSe: sd * Math.sqrt(cov[1]![1]!),
-      ceilingMs: Math.exp(logCeiling),
-      ceilingLogSe: Math.min(CEILING_PRIOR_LOG_SD, Math.sqrt(cov[2]![2]!)),
-      typicalTargetM,
-    },
-    intendedLogs,
-  };
-}
-
 function median(values: readonly number[]): number {
   const sorted = [...values].sort((a, b) => a - b);
   const n = sorted.length;
@@ -188,9 +113,10 @@ function median(values: readonly number[]): number {
 /**
  * Fit a player's launch profile for one technique from logged repetitions. All kicks must share one
  * technique; with no kicks the prior is returned as the profile (repetitions 0). The default prior is
- * the technique's entry in DEFAULT_PRIORS. Launch speed is fitted relative to the speed each
- * repetition's target needed, with a ceiling (aimed-speed.ts), so drills at different distances
- * do not inflate the spread.
+ * the technique's entry for the squad's ball size (profile-priors.ts). Launch speed is fitted relative to
+ * the speed each repetition's target needed, with a ceiling under the physiological cap (aimed-speed.ts,
+ * profile-speed-fit.ts), each repetition integrated over the launch angle and spin it may have had; the
+ * profile carries the launch spreads to draw and warnings (profile-warnings.ts).
  */
 export function fitProfile(
   kicks: readonly LoggedKick[],
@@ -201,32 +127,41 @@ export function fitProfile(
   const given = kicks.map((k, i) => prepareKick(k, i));
   const timed = timedEvidence(given, options);
   // A solved stopwatch reading replaces the backspin guessed by eye with the measured one.
-  const prepared = given.map((k, i) => (timed[i] ? { ...k, backspinRps: timed[i].backspinRps } : k));
+  const prepared = given.map((k, i) => (timed[i] ? { ...k, backspinRps: timed[i].backspinRps, spinMeasured: true } : k));
   const technique = prepared[0]?.technique ?? prior?.technique;
   if (technique === undefined) throw new RangeError('kicks is empty and the prior names no technique');
   prepared.forEach((k) => {
     if (k.technique !== technique)
       throw new RangeError(`kicks[${k.index}].technique must be ${technique} like the others (got ${k.technique})`);
   });
-  const usedPrior = validatePrior(prior ?? DEFAULT_PRIORS[technique]);
-  const ceilingPriorMs = usedPrior.ceilingMs ?? DEFAULT_CEILINGS_MS[technique];
+  const ballSize = options.ballSize ?? ballSizeOf(prepared[0]?.conditions.ball);
+  const capMs = LAUNCH_SPEED_CAP_MS[ballSize];
+  const usedPrior = validatePrior(prior ?? PRIORS_BY_BALL[ballSize][technique]);
+  const ceilingPriorMs = Math.min(capMs, usedPrior.ceilingMs ?? CEILINGS_BY_BALL_MS[ballSize][technique]);
   const launch = launchSummary(prepared, technique);
+  const unknownsOf = (k: PreparedKick): LaunchUnknowns => ({
+    elevationSdDeg: k.angleMeasured ? 0 : ELEVATION_SD_PRIOR_DEG[technique],
+    backspinSdRps: k.spinMeasured ? 0 : backspinLogSdRps(k.backspinStep),
+  });
 
   const bounds = new SpeedBounds();
+  const needs = new NeededSpeeds();
   const speedObs: (Censored | null)[] = prepared.map((k, i) => {
     const t = timed[i];
     return t ? { lo: t.speedMs, hi: t.speedMs, relSd: t.speedSdMs / t.speedMs } : speedObservation(k, bounds);
   });
-  const speedCount = speedObs.filter((o) => o !== null).length;
+  const evidence = speedEvidence(prepared, speedObs, unknownsOf, bounds, needs);
   const meanLaunch = { elevationDeg: launch.elevationDeg, backspinRps: launch.backspinRps, sidespinRps: launch.sidespinRps };
   const conditions0 = prepared[0]?.conditions ?? {};
+  const sd0 = usedPrior.sdSpeedMs / usedPrior.meanSpeedMs;
   let aimed: AimedSpeedFit;
-  let intendedLogs: number[];
+  let lambda = 1;
+  let evidenceProbability: number[] = [];
   let described: NormalFit;
-  if (speedCount === 0) {
+  let priorShare = 1;
+  if (evidence.length === 0) {
     // Nothing about speed: the prior, quoted at the distance its mean speed carries.
-    const typical = referenceCarry(usedPrior.meanSpeedMs, meanLaunch, conditions0);
-    const sd0 = usedPrior.sdSpeedMs / usedPrior.meanSpeedMs;
+    const typical = referenceCarry(Math.min(capMs, usedPrior.meanSpeedMs), meanLaunch, conditions0);
     aimed = {
       offsetLogMean: 0,
       offsetLogSd: sd0,
@@ -234,22 +169,26 @@ export function fitProfile(
       offsetLogSdSe: sd0 * Math.sqrt(1 / (2 * usedPrior.weightReps)),
       ceilingMs: ceilingPriorMs,
       ceilingLogSe: CEILING_PRIOR_LOG_SD,
+      ceilingFloorMs: 0,
       typicalTargetM: typical,
     };
-    intendedLogs = prepared.map(() => Math.log(usedPrior.meanSpeedMs));
+    const meanMs = Math.min(capMs, usedPrior.meanSpeedMs);
     described = {
-      mean: usedPrior.meanSpeedMs,
+      mean: meanMs,
       sd: usedPrior.sdSpeedMs,
       meanSe: usedPrior.sdSpeedMs / Math.sqrt(usedPrior.weightReps),
       sdSe: usedPrior.sdSpeedMs * Math.sqrt(1 / (2 * usedPrior.weightReps)),
     };
   } else {
     const typicalTargetM = median(prepared.map((k) => k.targetDistanceM));
-    const result = fitAimedSpeed(prepared, speedObs, usedPrior, ceilingPriorMs, typicalTargetM);
-    aimed = result.fit;
-    intendedLogs = result.intendedLogs;
-    const needTypical = new NeededSpeeds().neededMs(typicalTargetM, meanLaunch, conditions0);
-    const meanAtTypical = Math.exp(intendedLog(needTypical, aimed.ceilingMs) + aimed.offsetLogMean);
+    const result = fitAimedSpeed(evidence, usedPrior, ceilingPriorMs, capMs, typicalTargetM);
+    lambda = result.launchNoiseScale;
+    evidenceProbability = result.evidenceProbability;
+    aimed = { ...result.fit, ceilingFloorMs: ceilingFloorMs(evidence, result.fit) };
+    const priorPrecision = usedPrior.weightReps / (sd0 * sd0);
+    priorShare = Math.min(1, priorPrecision * aimed.offsetLogMeanSe * aimed.offsetLogMeanSe);
+    const needTypical = needs.neededMs(typicalTargetM, meanLaunch, conditions0);
+    const meanAtTypical = Math.min(capMs, Math.exp(intendedLog(needTypical, aimed.ceilingMs) + aimed.offsetLogMean));
     described = {
       mean: meanAtTypical,
       sd: meanAtTypical * aimed.offsetLogSd,
@@ -257,6 +196,9 @@ export function fitProfile(
       sdSe: meanAtTypical * aimed.offsetLogSdSe,
     };
   }
+  const intendedLogs = prepared.map((k) =>
+    evidence.length === 0 ? Math.log(described.mean) : intendedLog(needs.neededMs(k.targetDistanceM, k, k.conditions), aimed.ceilingMs),
+  );
 
   const aimObs = prepared.map((k, i) => {
     const s = speedObs[i];
@@ -278,6 +220,7 @@ export function fitProfile(
       if (o.lo === o.hi) return kind === 'point';
       return Number.isFinite(o.lo) && Number.isFinite(o.hi) ? kind === 'interval' : kind === 'bound';
     }).length;
+  const spreads = launchSpreads(prepared, technique, lambda);
 
   return {
     technique,
@@ -291,7 +234,21 @@ export function fitProfile(
     meanAzimuthDeg: aim.mean,
     sdAzimuthDeg: aim.sd,
     meanAzimuthSeDeg: aim.meanSe,
-    ...launch,
+    elevationDeg: launch.elevationDeg,
+    backspinRps: launch.backspinRps,
+    sidespinRps: launch.sidespinRps,
+    ...spreads,
+    launchNoiseScale: lambda,
+    speedCapMs: capMs,
+    longestTargetM: prepared.reduce((m, k) => Math.max(m, k.targetDistanceM), 0),
+    warnings: fitWarnings({
+      repetitions: used,
+      prepared,
+      evidenceLo: evidence.map((o) => o.lo),
+      evidenceProbability,
+      capMs,
+      priorShare,
+    }),
     observations: {
       speedPoints: count(speedObs, 'point'),
       speedIntervals: count(speedObs, 'interval'),
@@ -305,6 +262,22 @@ export function fitProfile(
   };
 }
 
+/**
+ * The speed a player has demonstrably reached, m/s: of the repetitions that got at least to their target
+ * (an interval or a lower bound, or a point), the upper quartile of their evidence centres, less one
+ * fitted spread (a lucky strike is not a ceiling), never above the fitted ceiling. The sampled ceiling is
+ * truncated below it: a player has at least reached what they hit.
+ */
+function ceilingFloorMs(evidence: readonly SpeedEvidence[], fit: AimedSpeedFit): number {
+  const reached = evidence
+    .filter((o) => Number.isFinite(o.lo))
+    .map((o) => (Number.isFinite(o.hi) ? 0.5 * (o.lo + o.hi) : o.lo))
+    .sort((a, b) => a - b);
+  if (reached.length === 0) return 0;
+  const upper = reached[Math.min(reached.length - 1, Math.floor(0.75 * reached.length))]!;
+  return Math.min(fit.ceilingMs, Math.exp(upper - fit.offsetLogSd));
+}
+
 /** Carry of a launch at `speedMs` in the intention conditions (still air, ISA sea level). */
 function referenceCarry(speedMs: number, launch: AimLaunch, conditions: FlightConditions): number {
   const model = buildModel(resolveConditions(intentionConditions(conditions)), validateLaunch({ speed: speedMs, ...launch }));
@@ -314,27 +287,47 @@ function referenceCarry(speedMs: number, launch: AimLaunch, conditions: FlightCo
 function launchSummary(
   prepared: readonly PreparedKick[],
   technique: Technique,
-): Pick<KickProfile, 'elevationDeg' | 'sdElevationDeg' | 'backspinRps' | 'sidespinRps' | 'sdBackspinRps' | 'sdSidespinRps'> {
-  if (prepared.length === 0) {
-    return {
-      elevationDeg: DEFAULT_ELEVATION_DEG[technique],
-      sdElevationDeg: 0,
-      backspinRps: 0,
-      sidespinRps: 0,
-      sdBackspinRps: 0,
-      sdSidespinRps: 0,
-    };
-  }
-  const spread = (values: number[]): number => (values.length >= 3 ? sampleSd(values) : 0);
-  const elevations = prepared.map((k) => k.elevationDeg);
-  const back = prepared.map((k) => k.backspinRps);
-  const side = prepared.map((k) => k.sidespinRps);
+): Pick<KickProfile, 'elevationDeg' | 'backspinRps' | 'sidespinRps'> {
+  if (prepared.length === 0) return { elevationDeg: DEFAULT_ELEVATION_DEG[technique], backspinRps: 0, sidespinRps: 0 };
   return {
-    elevationDeg: mean(elevations),
-    sdElevationDeg: spread(elevations),
-    backspinRps: mean(back),
-    sidespinRps: mean(side),
-    sdBackspinRps: spread(back),
-    sdSidespinRps: spread(side),
+    elevationDeg: mean(prepared.map((k) => k.elevationDeg)),
+    backspinRps: mean(prepared.map((k) => k.backspinRps)),
+    sidespinRps: mean(prepared.map((k) => k.sidespinRps)),
+  };
+}
+
+/**
+ * The launch spreads sampling draws (see KickProfile.sdElevationDeg and sdBackspinRps): measured angles
+ * (three or more) give the elevation spread, else the technique's prior scaled by λ; each spin spread is
+ * the larger of the logged rates' spread and the mean eye-logging uncertainty scaled by λ.
+ */
+function launchSpreads(
+  prepared: readonly PreparedKick[],
+  technique: Technique,
+  lambda: number,
+): Pick<KickProfile, 'sdElevationDeg' | 'elevationSdSource' | 'sdBackspinRps' | 'sdSidespinRps'> {
+  const spread = (values: number[]): number => (values.length >= 3 ? sampleSd(values) : 0);
+  const measured = prepared.filter((k) => k.angleMeasured).map((k) => k.elevationDeg);
+  const fromLogs = measured.length >= 3;
+  const eye = prepared.filter((k) => !k.spinMeasured);
+  const eyeShare = prepared.length ? eye.length / prepared.length : 1;
+  const meanOf = (values: number[], fallback: number): number => (values.length ? mean(values) : fallback);
+  const backEye =
+    eyeShare *
+    meanOf(
+      eye.map((k) => backspinLogSdRps(k.backspinStep)),
+      backspinLogSdRps(0),
+    );
+  const sideEye =
+    eyeShare *
+    meanOf(
+      eye.map((k) => sidespinLogSdRps(k.sidespinStep)),
+      sidespinLogSdRps(0),
+    );
+  return {
+    sdElevationDeg: fromLogs ? sampleSd(measured) : lambda * ELEVATION_SD_PRIOR_DEG[technique],
+    elevationSdSource: fromLogs ? 'logged' : 'prior',
+    sdBackspinRps: Math.max(spread(prepared.map((k) => k.backspinRps)), lambda * backEye),
+    sdSidespinRps: Math.max(spread(prepared.map((k) => k.sidespinRps)), lambda * sideEye),
   };
 }

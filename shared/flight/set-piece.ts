@@ -1,14 +1,24 @@
 /**
- * Set-piece check: for a free-kick position, the share of a player's envelope that clears a
- * wall at 9.15 m (IFAB Laws of the Game, Law 13) and crosses the goal line inside the posts and under
- * the bar of a 7.32 × 2.44 m goal (Law 1). Crossings are roots on odex's dense output, like landing.
+ * Set-piece check: for a free-kick position, the share of a player's kicks that clear a wall at 9.15 m
+ * (IFAB Laws of the Game, Law 13) and cross the goal line inside the posts and under the bar of a
+ * 7.32 × 2.44 m goal (Law 1). Each player takes the kick they would choose for this spot (set-piece-aim.ts)
+ * and their own spreads scatter it. Crossings are roots on odex's dense output, like landing.
  */
 
-import { GOAL_HEIGHT_M, GOAL_WIDTH_M, WALL_DISTANCE_M } from './constants';
-import { sampleLaunches } from './envelope';
-import { DEFAULT_SOLVER_SETTINGS, integrateFlight, type VerticalPlane } from './integrate';
-import { buildModel, resolveConditions } from './model';
+import { WALL_DISTANCE_M } from './constants';
+import type { VerticalPlane } from './integrate';
+import { resolveConditions } from './model';
 import type { KickProfile } from './profile-types';
+import { checkedProfile, drawLaunchNoise } from './sampling';
+import {
+  chooseKick,
+  deliveredLaunches,
+  flySample,
+  SAMPLE_OUTCOME,
+  type IntendedKick,
+  type SampleOutcome,
+  type SetPieceScene,
+} from './set-piece-aim';
 import { type DistributionSummary, summarise } from './stats';
 import type { FlightConditions } from './types';
 import { requireInHalfOpen, requireInRange } from './validate';
@@ -32,6 +42,11 @@ export interface SetPieceInput {
   conditions: FlightConditions;
   samples: number;
   seed: number;
+  /**
+   * The intended kick to check. Absent (the planner) = the kick the player would choose for this spot
+   * (set-piece-aim.ts): the speed, elevation and spin that maximise their own on-target share.
+   */
+  kick?: IntendedKick;
 }
 
 /** Shares of sampled kicks by what happened to them; they sum to 1 except `clearsWall`. */
@@ -63,6 +78,12 @@ export interface SetPieceResult {
   wallHeightM: number;
   /** Distance from the ball to the aim point on the goal line, m. */
   aimDistanceM: number;
+  /** The intended kick the samples scatter around (the player's choice, or the one given). */
+  kick: IntendedKick;
+  /** Whether `kick` was chosen by the search (false: it was given). */
+  kickChosen: boolean;
+  /** Forward simulations the search spent (0 when the kick was given). */
+  searchFlights: number;
   shares: SetPieceShares;
   /** Height of the ball's underside where it reached the wall (samples that did), m. */
   wallCrossingHeightM: DistributionSummary | null;
@@ -106,7 +127,7 @@ export function setPieceGeometry(ballX: number, ballY: number, aimYM: number): {
 
 const round3 = (v: number): number => Math.round(v * 1000) / 1000;
 
-/** Run the set-piece check: seeded Monte Carlo of the profile against wall and goal. */
+/** Run the set-piece check: the player's chosen kick for this spot, scattered by their spreads (seeded Monte Carlo). */
 export function setPieceCheck(input: SetPieceInput): SetPieceResult {
   return runSetPiece(input, null);
 }
@@ -117,8 +138,10 @@ export function setPieceCloud(input: SetPieceInput): SetPieceCloudResult {
   return { ...runSetPiece(input, cloud), cloud };
 }
 
-function runSetPiece(input: SetPieceInput, cloud: GoalMouthCloud | null): SetPieceResult {
-  if (input === null || typeof input !== 'object') throw new RangeError('set-piece input must be an object');
+/** Validated geometry and conditions of a free kick. */
+export function setPieceScene(input: Pick<SetPieceInput, 'ballX' | 'ballY' | 'wallHeightM' | 'aimYM' | 'conditions'>): SetPieceScene & {
+  ballX: number;
+} {
   const ballX = requireInHalfOpen('ballX', input.ballX, 0, 60, 'm');
   const ballY = requireInRange('ballY', input.ballY, -40, 40, 'm');
   const wallHeightM = requireInHalfOpen('wallHeightM', input.wallHeightM ?? DEFAULT_WALL_HEIGHT_M, 0, 3, 'm');
@@ -127,66 +150,77 @@ function runSetPiece(input: SetPieceInput, cloud: GoalMouthCloud | null): SetPie
   if (ballX - WALL_DISTANCE_M * Math.cos(psi) < 0.5) {
     throw new RangeError(`ballX: a wall ${WALL_DISTANCE_M} m from the ball would stand on or behind the goal line`);
   }
-  const conditions = resolveConditions(input.conditions ?? {});
-  const r = conditions.radiusM;
-  const launches = sampleLaunches(input.profile, input.samples, input.seed);
-  const counts = { onTarget: 0, blocked: 0, shortOfWall: 0, shortOfGoal: 0, wide: 0, over: 0 };
+  return { ballX, ballY, aimYM, phi, planes, wallHeightM, conditions: resolveConditions(input.conditions ?? {}) };
+}
+
+function checkedKick(k: IntendedKick): IntendedKick {
+  if (k === null || typeof k !== 'object') throw new RangeError('kick must be an object');
+  return {
+    speedMs: requireInHalfOpen('kick.speedMs', k.speedMs, 0, 60, 'm/s'),
+    elevationDeg: requireInHalfOpen('kick.elevationDeg', k.elevationDeg, 0, 90, '°'),
+    backspinRps: requireInRange('kick.backspinRps', k.backspinRps, -30, 30, 'rev/s'),
+    sidespinRps: requireInRange('kick.sidespinRps', k.sidespinRps, -30, 30, 'rev/s'),
+    aimOffDeg: requireInRange('kick.aimOffDeg', k.aimOffDeg, -45, 45, '°'),
+  };
+}
+
+function runSetPiece(input: SetPieceInput, cloud: GoalMouthCloud | null): SetPieceResult {
+  if (input === null || typeof input !== 'object') throw new RangeError('set-piece input must be an object');
+  const scene = setPieceScene(input);
+  const profile = checkedProfile(input.profile);
+  const noises = drawLaunchNoise(profile, input.samples, input.seed);
+  const choice = input.kick === undefined ? chooseKick(scene, profile, input.seed) : null;
+  const kick = choice ? choice.kick : checkedKick(input.kick!);
+  const r = scene.conditions.radiusM;
+  const counts = [0, 0, 0, 0, 0, 0];
   const wallHeights: number[] = [];
   const goalHeights: number[] = [];
-  for (const launch of launches) {
-    const f = integrateFlight(buildModel(conditions, launch), { planes, settings: DEFAULT_SOLVER_SETTINGS });
-    const wall = f.generalCrossings.find((c) => c.plane === 0);
-    const goal = f.generalCrossings.find((c) => c.plane === 1);
-    if (!wall) {
-      counts.shortOfWall++;
-      continue;
-    }
-    wallHeights.push(wall.z);
-    if (wall.z <= wallHeightM) {
-      counts.blocked++;
-      continue;
-    }
-    if (!goal) {
-      counts.shortOfGoal++;
-      continue;
-    }
-    goalHeights.push(goal.z + r);
-    const y = ballY + goal.x * Math.sin(phi) + goal.y * Math.cos(phi);
-    let kind: GoalCrossingKind;
-    if (Math.abs(y) + r >= GOAL_WIDTH_M / 2) {
-      counts.wide++;
-      kind = GOAL_CROSSING.wide;
-    } else if (goal.z + 2 * r >= GOAL_HEIGHT_M) {
-      counts.over++;
-      kind = GOAL_CROSSING.over;
-    } else {
-      counts.onTarget++;
-      kind = GOAL_CROSSING.in;
-    }
+  for (const launch of deliveredLaunches(profile, kick, noises)) {
+    const s = flySample(scene, launch);
+    counts[s.outcome]!++;
+    if (s.wallZ !== null) wallHeights.push(s.wallZ);
+    if (s.goalZ === null || s.goalY === null) continue;
+    goalHeights.push(s.goalZ + r);
     if (cloud) {
-      cloud.yM.push(round3(y));
-      cloud.zM.push(round3(goal.z + r));
-      cloud.kind.push(kind);
+      cloud.yM.push(round3(s.goalY));
+      cloud.zM.push(round3(s.goalZ + r));
+      cloud.kind.push(
+        s.outcome === SAMPLE_OUTCOME.onTarget
+          ? GOAL_CROSSING.in
+          : s.outcome === SAMPLE_OUTCOME.over
+            ? GOAL_CROSSING.over
+            : GOAL_CROSSING.wide,
+      );
     }
   }
-  const n = launches.length;
+  const n = noises.length;
+  const share = (o: SampleOutcome): number => counts[o]! / n;
   return {
     samples: n,
     seed: input.seed,
-    ballX,
-    ballY,
-    aimYM,
+    ballX: scene.ballX,
+    ballY: scene.ballY,
+    aimYM: scene.aimYM,
     wallDistanceM: WALL_DISTANCE_M,
-    wallHeightM,
-    aimDistanceM: Math.hypot(ballX, aimYM - ballY),
+    wallHeightM: scene.wallHeightM,
+    aimDistanceM: Math.hypot(scene.ballX, scene.aimYM - scene.ballY),
+    kick: {
+      speedMs: round3(kick.speedMs),
+      elevationDeg: round3(kick.elevationDeg),
+      backspinRps: round3(kick.backspinRps),
+      sidespinRps: round3(kick.sidespinRps),
+      aimOffDeg: round3(kick.aimOffDeg),
+    },
+    kickChosen: choice !== null,
+    searchFlights: choice ? choice.flights : 0,
     shares: {
-      onTarget: counts.onTarget / n,
-      clearsWall: (n - counts.shortOfWall - counts.blocked) / n,
-      blocked: counts.blocked / n,
-      shortOfWall: counts.shortOfWall / n,
-      shortOfGoal: counts.shortOfGoal / n,
-      wide: counts.wide / n,
-      over: counts.over / n,
+      onTarget: share(SAMPLE_OUTCOME.onTarget),
+      clearsWall: (n - counts[SAMPLE_OUTCOME.shortOfWall]! - counts[SAMPLE_OUTCOME.blocked]!) / n,
+      blocked: share(SAMPLE_OUTCOME.blocked),
+      shortOfWall: share(SAMPLE_OUTCOME.shortOfWall),
+      shortOfGoal: share(SAMPLE_OUTCOME.shortOfGoal),
+      wide: share(SAMPLE_OUTCOME.wide),
+      over: share(SAMPLE_OUTCOME.over),
     },
     wallCrossingHeightM: wallHeights.length > 0 ? summarise(wallHeights) : null,
     goalCrossingHeightM: goalHeights.length > 0 ? summarise(goalHeights) : null,

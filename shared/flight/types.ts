@@ -4,17 +4,13 @@
  * its height at rest, so z = 0 is ground contact, the ball's underside is at z and its top at z + 2r.
  */
 
-/** Kicking technique of a repetition. */
-export type Technique = 'driven' | 'lofted' | 'chipped' | 'curled';
+import type { Outcome } from '../vocabulary';
+
+/** Technique, spin steps: the product's vocabulary (docs/design.md §3), defined once. */
+export type { BackspinStep, SidespinStep, Technique } from '../vocabulary';
 
 /** Outcome of a repetition as logged on Pitchside. */
-export type KickOutcome = 'on_target' | 'short' | 'long' | 'left' | 'right' | 'blocked' | 'over';
-
-/** Seven-step backspin scale: + = backspin, − = topspin. */
-export type BackspinStep = -3 | -2 | -1 | 0 | 1 | 2 | 3;
-
-/** Five-step sidespin scale: + = curls left. */
-export type SidespinStep = -2 | -1 | 0 | 1 | 2;
+export type KickOutcome = Outcome;
 
 /** Ball mass and radius. */
 export interface BallSpec {
@@ -35,17 +31,27 @@ export interface AirSpec {
   pressureHpa?: number;
 }
 
-/** Uniform horizontal wind. `fromDeg`: 0 = from the target (headwind), 90 = from the left, 180 = tailwind. */
+/**
+ * Horizontal wind. `fromDeg`: 0 = from the target (headwind), 90 = from the left, 180 = tailwind.
+ * `speedMs` is the wind at `referenceHeightM` above the grass: 10 m for a weather-service value (the WMO
+ * standard anemometer height), head height (~1.8 m, common practice) for a coach's estimate. The model
+ * scales it to the ball's height with a logarithmic profile over grass (see wind-profile.ts). Absent =
+ * the same wind at every height (what-ifs and tests that give the wind at the ball).
+ */
 export interface WindSpec {
   speedMs: number;
   fromDeg: number;
+  referenceHeightM?: number;
 }
 
 /** Drag coefficient model: Goff & Carré 2010 fits with the crisis in Reynolds number, or a constant. */
 export type DragModel = 'goff-carre' | { constant: number };
 
-/** Lift coefficient model: power fit, saturating form, or a constant (applied only with spin). */
-export type LiftModel = 'power' | 'saturating' | { constant: number };
+/**
+ * Lift coefficient model: `onset` (default: linear through zero, the measured power fit above S ≈ 0.1),
+ * the bare power fit, the saturating form, or a constant (applied only with spin).
+ */
+export type LiftModel = 'onset' | 'power' | 'saturating' | { constant: number };
 
 /** Aerodynamic settings; published coefficients disagree, so these are settings, not constants. */
 export interface AeroSpec {
@@ -53,6 +59,12 @@ export interface AeroSpec {
   lift?: LiftModel;
   /** Spin-decay time constant in seconds; `null` = no decay. */
   spinDecayTauS?: number | null;
+  /**
+   * Reynolds number at the centre of this ball's drag crisis (default GOFF_CARRE_RE_CENTRE ≈ 1.83 × 10⁵,
+   * the Goff & Carré 2010 ball). Balls differ: Asai et al. 2007 (Sports Engineering 10:101) report
+   * critical Reynolds numbers of 2.2–3.0 × 10⁵. The whole crisis moves with it.
+   */
+  dragCrisisRe?: number;
 }
 
 /** Conditions shared by every kick of an envelope or set-piece check. `{}` = defaults. */

@@ -57,6 +57,8 @@ export const LIMITS = {
   relativeHumidityPct: [0, 100],
   pressureHpa: [500, 1100],
   windSpeedMs: [0, 40],
+  windHeightM: [0.5, 100],
+  dragCrisisRe: [1e5, 5e5],
   dragConstant: [0, 2],
   liftConstant: [-1.5, 1.5],
   spinDecayTauS: [0.5, 1e6],

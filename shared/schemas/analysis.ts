@@ -2,7 +2,7 @@
  * Response shapes of the analysis endpoints (Player file, Squad week, planner), shared so the
  * client and the server cannot drift apart.
  */
-import type { KickProfile } from '../flight/profile-types';
+import type { KickProfile, ProfileWarning } from '../flight/profile-types';
 import type { Outcome, Technique } from './sync';
 
 /** Which carry the figures use: as logged, or normalised to still air at ISA sea level, 15 °C. */
@@ -116,7 +116,15 @@ export interface SquadWeekPlayer {
   bestTechnique: Technique | null;
   byTechnique: { technique: Technique; reps: number; hitRate: number; medianCarryM: number | null }[];
   /** Current reliable reach per technique (from the cached profile). */
-  reach: { technique: Technique; reliableReachM: number | null; reachRadiusM: number; repetitions: number; pending: boolean }[];
+  reach: {
+    technique: Technique;
+    reliableReachM: number | null;
+    reachRadiusM: number;
+    repetitions: number;
+    pending: boolean;
+    /** The cached profile's warning codes (PROFILE_WARNING_TEXT gives the words). */
+    warnings: ProfileWarning[];
+  }[];
   calibration: CalibrationPoint[];
   /** Sessions this week in which the player passed the club's repetition limit. */
   loadFlags: { sessionId: string; startedAt: string; reps: number; limit: number }[];

@@ -1,3 +1,5 @@
+import type { Foot } from '../vocabulary';
+
 /** A squad as `GET /api/squads` lists it (scoped to the caller). */
 export interface SquadSummary {
   id: string;
@@ -30,7 +32,7 @@ export interface PlayerSummary {
   squadName: string;
   displayName: string;
   shirtNumber: number | null;
-  dominantFoot: 'left' | 'right';
+  dominantFoot: Foot;
   /** Whether the player is under 18 (academy youth data rules apply). */
   isMinor: boolean;
 }

@@ -1,5 +1,5 @@
 /**
- * The sync contract (DESIGN §5), one definition for the client and the server.
+ * The sync contract (docs/design.md §5), one definition for the client and the server.
  *
  *  - The client writes to IndexedDB and its outbox first; `POST /api/sync/push` sends outbox
  *    mutations in batches of at most `MAX_PUSH_MUTATIONS`, each with its own UUID.
@@ -11,16 +11,14 @@
  *    order; the client keeps `cursor` and asks again while `hasMore`.
  */
 import * as z from 'zod';
+import { FEET, OUTCOMES, TECHNIQUES } from '../vocabulary';
 
 /** Most mutations one push may carry. */
 export const MAX_PUSH_MUTATIONS = 500;
 /** Most changes one pull returns (default 500). */
 export const MAX_PULL_LIMIT = 2000;
 
-export const TECHNIQUES = ['driven', 'lofted', 'chipped', 'curled'] as const;
-export type Technique = (typeof TECHNIQUES)[number];
-export const OUTCOMES = ['on_target', 'short', 'long', 'left', 'right', 'blocked', 'over'] as const;
-export type Outcome = (typeof OUTCOMES)[number];
+export { OUTCOMES, TECHNIQUES, type Outcome, type Technique } from '../vocabulary';
 export const SYNC_ENTITIES = ['training_session', 'drill', 'kick'] as const;
 export type SyncEntity = (typeof SYNC_ENTITIES)[number];
 
@@ -117,7 +115,7 @@ export const kickDataSchema = z.strictObject({
   drillId: uuid('drillId').nullish(),
   playerId: uuid('playerId'),
   technique: z.enum(TECHNIQUES, { error: `technique must be one of ${TECHNIQUES.join(', ')}` }),
-  foot: z.enum(['left', 'right'], { error: 'foot must be left or right' }),
+  foot: z.enum(FEET, { error: 'foot must be left or right' }),
   backspinStep: step('backspinStep', 3),
   sidespinStep: step('sidespinStep', 2),
   targetDistanceM: num('targetDistanceM', 1, MAX_PITCH_LENGTH_M, 'm'),

@@ -1,7 +1,13 @@
 import { randomUUID } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import request from 'supertest';
-import { stillAirCarryM, type SessionConditions, type StoredKick } from '../../api/analysis/flight-inputs';
+import {
+  conditionsOf,
+  stillAirCarryM,
+  windReferenceHeightM,
+  type SessionConditions,
+  type StoredKick,
+} from '../../api/analysis/flight-inputs';
 import { backfillStillAirCarry, clearSessionStillAirCarry, StillAirRefresher } from '../../api/analysis/still-air';
 import { kicks, playerProfiles } from '../../api/db/schema';
 import { DEMO_ACCOUNTS, DEMO_SQUAD_IDS, demoPeriod } from '../../seed/scenario';
@@ -53,6 +59,19 @@ describe('still-air carry', () => {
   });
   it('gives null without a carry', () => {
     expect(stillAirCarryM({ ...KICK, carryM: null }, STILL)).toBeNull();
+  });
+  it('reads a weather-service wind at 10 m and a coach’s at head height', () => {
+    // WMO-No. 8: the weather service's wind is a 10 m value; a coach's estimate is felt at head height (common practice).
+    expect(windReferenceHeightM(JSON.stringify({ windSpeedMs: 'weather' }))).toBe(10);
+    expect(windReferenceHeightM(JSON.stringify({ windSpeedMs: 'coach' }))).toBeCloseTo(1.8, 9);
+    expect(windReferenceHeightM(null)).toBeCloseTo(1.8, 9);
+    expect(windReferenceHeightM('{not json')).toBeCloseTo(1.8, 9);
+    const weather = { ...STILL, windSpeedMs: 6, windFromDeg: 0, conditionsSourceJson: JSON.stringify({ windSpeedMs: 'weather' }) };
+    expect(conditionsOf(weather).wind).toEqual({ speedMs: 6, fromDeg: 0, referenceHeightM: 10 });
+    // Logarithmic wind profile: 6 m/s at 10 m is weaker at the ball than 6 m/s at head height, so the carry needs less correction.
+    const coach = { ...weather, conditionsSourceJson: JSON.stringify({ windSpeedMs: 'coach' }) };
+    expect(stillAirCarryM(KICK, weather)!).toBeLessThan(stillAirCarryM(KICK, coach)!);
+    expect(stillAirCarryM(KICK, weather)!).toBeGreaterThan(35);
   });
 });
 

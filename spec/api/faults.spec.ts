@@ -148,7 +148,7 @@ describe('faults: crashes and a locked database', () => {
     console.log(
       `push SIGKILL: ${midWrite ? 'inside the write transaction' : 'outside it'}, answered first: ${answered}, kicks after the crash: ${kicksAfterCrash}`,
     );
-    // All or nothing: one transaction per batch (DESIGN §5). Killed inside it, nothing of it survives.
+    // All or nothing: one transaction per batch (docs/design.md §5). Killed inside it, nothing of it survives.
     expect([0, 499]).toContain(kicksAfterCrash);
     if (midWrite && !answered) expect(kicksAfterCrash).toBe(0);
     await restart();

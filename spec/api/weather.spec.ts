@@ -1,7 +1,7 @@
 /**
  * Weather-service conversions (shared/weather.ts) and the Open-Meteo client against Loftline's local
  * fake over real HTTP. Hand-computed cases: compass bearings run clockwise from north, the flight
- * model's relative directions counter-clockwise from the target (DESIGN §6: y to the kicker's left).
+ * model's relative directions counter-clockwise from the target (docs/design.md §6: y to the kicker's left).
  */
 import { resolveConditions } from '../../shared/flight/model';
 import { kmhToMs, relativeWindFromDeg, relativeWindName, windComponents } from '../../shared/weather';

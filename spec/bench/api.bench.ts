@@ -13,7 +13,7 @@
  * Then it retries any batch that got no answer, replays a sample (all must be `duplicate`), stops the
  * server and checks in the database that every pushed kick is stored exactly once.
  *
- * Targets (issue 8, on a 2-core machine): ≥ 5,000 kicks/s sustained push with p99 ≤ 250 ms per batch;
+ * Targets (on a 2-core machine): ≥ 5,000 kicks/s sustained push with p99 ≤ 250 ms per batch;
  * Squad week p95 ≤ 100 ms; zero lost or duplicated kicks. Bounded: each phase runs `--seconds=` (default
  * 20 for push, half that for the others); loopback only.
  */

@@ -6,7 +6,6 @@ import type { Page } from 'playwright-core';
 import { launchContext } from './support/browser';
 import { startE2eServer, type E2eServer } from './support/server';
 
-const PASSWORD = 'loftline-demo';
 const FIXTURES = resolve('spec/e2e/fixtures');
 
 const signIn = signInThroughUi;

@@ -9,7 +9,7 @@ import { existsSync, readFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { gzipSync } from 'node:zlib';
 
-/** Issue #8 "Hardening": initial JavaScript at most 250 kB gzip (1 kB = 1,000 bytes, as Angular counts). */
+/** Budget: initial JavaScript at most 250 kB gzip (1 kB = 1,000 bytes, as Angular counts). */
 const INITIAL_GZIP_LIMIT_BYTES = 250_000;
 
 const BROWSER_DIR = resolve('dist/loftline/browser');

@@ -13,7 +13,6 @@ import { launchContext } from './support/browser';
 import { profilesFitted } from './support/profiles';
 import { startE2eServer, type E2eServer } from './support/server';
 
-const PASSWORD = 'loftline-demo';
 const HEAD_COACH = 'head.coach@kestrel-vale.test';
 const SHOTS = join(tmpdir(), 'loftline-e2e-shots');
 

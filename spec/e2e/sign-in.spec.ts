@@ -1,9 +1,6 @@
 import { signInThroughUi } from './support/sign-in';
-import type { Page } from 'playwright-core';
 import { launchContext } from './support/browser';
 import { startE2eServer, type E2eServer } from './support/server';
-
-const PASSWORD = 'loftline-demo';
 
 const signIn = signInThroughUi;
 

@@ -117,6 +117,8 @@ describe('reach curve (kicks aimed at each distance)', () => {
       meanAzimuthDeg: 0,
       meanAzimuthSeDeg: 0,
       sdBackspinRps: 0,
+      sdSidespinRps: 0,
+      sdElevationDeg: 0,
       aimedSpeed: { ...loftedProfile(0).aimedSpeed, offsetLogSd: 0, offsetLogMeanSe: 0, ceilingLogSe: 0, ceilingMs: 60 },
     };
     for (const d of [12, 25, 38, 51]) {

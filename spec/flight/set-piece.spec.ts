@@ -23,7 +23,10 @@ function curled(over: Partial<KickProfile>): KickProfile {
   };
 }
 
+const base = curled({});
 const exact: Partial<KickProfile> = {
+  // A ceiling far above the kicks and no speed error: every sample is the intended kick.
+  aimedSpeed: { ...base.aimedSpeed, offsetLogMean: 0, offsetLogSd: 0, offsetLogMeanSe: 0, ceilingMs: 60, ceilingLogSe: 0 },
   sdSpeedMs: 0,
   meanSpeedSeMs: 0,
   sdAzimuthDeg: 0,
@@ -48,14 +51,16 @@ describe('setPieceCheck', () => {
   it('finds the wall and goal line where a single kick crosses them', () => {
     // Zero-spread profile: every sample is the same kick, so the check must agree with simulateKick's planes.
     const profile = curled({ ...exact, backspinRps: 2 });
-    const kick = { speed: profile.meanSpeedMs, elevationDeg: profile.elevationDeg, backspinRps: 2 };
+    const intended = { speedMs: 24, elevationDeg: 20, backspinRps: 2, sidespinRps: 0, aimOffDeg: 0 };
+    const kick = { speed: 24, elevationDeg: 20, backspinRps: 2 };
     const radius = BALL_SIZES[5].radiusM;
     for (const [ballX, ballY] of [
       [20, 0],
       [19, 9],
     ] as const) {
       const along = Math.hypot(ballX, ballY);
-      const r = setPieceCheck({ ballX, ballY, aimYM: 0, profile, conditions: {}, samples: 20, seed: 1 });
+      const r = setPieceCheck({ ballX, ballY, aimYM: 0, profile, conditions: {}, samples: 20, seed: 1, kick: intended });
+      expect(r.kickChosen).toBeFalse();
       const f = simulateKick({ ...kick, planes: [WALL_DISTANCE_M, along] });
       expect(r.wallCrossingHeightM!.p10).toBeCloseTo(f.crossings[0]!.z, 9);
       expect(r.wallCrossingHeightM!.p90).toBeCloseTo(f.crossings[0]!.z, 9);
@@ -68,18 +73,21 @@ describe('setPieceCheck', () => {
     const low = setPieceCheck({
       ballX: 22,
       ballY: 0,
-      profile: curled({ meanSpeedMs: 28, elevationDeg: 8 }),
+      profile: curled({}),
+      kick: { speedMs: 28, elevationDeg: 8, backspinRps: 0, sidespinRps: 0, aimOffDeg: 0 },
       conditions: {},
       samples: 200,
       seed: 3,
     });
     expect(low.shares.blocked).toBeGreaterThan(0.9);
     const profile = curled({});
+    const kick = { speedMs: 24, elevationDeg: 20, backspinRps: 0, sidespinRps: 4, aimOffDeg: -5 };
     const lowWall = setPieceCheck({
       ballX: 22,
       ballY: 0,
       wallHeightM: 1.8,
       profile,
+      kick,
       conditions: {},
       samples: 300,
       seed: 4,
@@ -89,6 +97,7 @@ describe('setPieceCheck', () => {
       ballY: 0,
       wallHeightM: 2.3,
       profile,
+      kick,
       conditions: {},
       samples: 300,
       seed: 4,
@@ -96,12 +105,13 @@ describe('setPieceCheck', () => {
     expect(highWall.shares.clearsWall).toBeLessThan(lowWall.shares.clearsWall);
   });
 
-  it('puts some of a suitable free kick on target and is reproducible', () => {
+  it('puts some of a given free kick on target and is reproducible', () => {
     // Common practice (no source): a 24 m/s ball at 20° from 22 m goes over the wall and often over the bar too.
-    const a = setPieceCheck({ ballX: 22, ballY: 0, profile: curled({}), conditions: {}, samples: 300, seed: 11 });
+    const kick = { speedMs: 24, elevationDeg: 20, backspinRps: 0, sidespinRps: 4, aimOffDeg: -5 };
+    const a = setPieceCheck({ ballX: 22, ballY: 0, profile: curled({}), kick, conditions: {}, samples: 300, seed: 11 });
     expect(a.shares.onTarget).toBeGreaterThan(0.05);
     expect(a.shares.over).toBeGreaterThan(0.05);
-    expect(setPieceCheck({ ballX: 22, ballY: 0, profile: curled({}), conditions: {}, samples: 300, seed: 11 })).toEqual(a);
+    expect(setPieceCheck({ ballX: 22, ballY: 0, profile: curled({}), kick, conditions: {}, samples: 300, seed: 11 })).toEqual(a);
   });
 
   it('sends a ball aimed beyond the post wide', () => {
@@ -109,7 +119,8 @@ describe('setPieceCheck', () => {
       ballX: 25,
       ballY: 0,
       aimYM: 7,
-      profile: curled({ ...exact, elevationDeg: 17 }),
+      profile: curled({ ...exact }),
+      kick: { speedMs: 24, elevationDeg: 17, backspinRps: 0, sidespinRps: 0, aimOffDeg: 0 },
       conditions: {},
       samples: 10,
       seed: 2,

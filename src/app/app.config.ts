@@ -11,7 +11,7 @@ import { MatIconRegistry } from '@angular/material/icon';
 import { provideRouter, withComponentInputBinding } from '@angular/router';
 import { provideServiceWorker } from '@angular/service-worker';
 import { routes } from './app.routes';
-import { authInterceptor } from './core/auth-interceptor';
+import { authInterceptor } from './core/auth/auth-interceptor';
 
 /**
  * Application-wide providers: zoneless change detection (signals drive every view), the

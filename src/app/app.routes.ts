@@ -1,7 +1,7 @@
 import { Routes } from '@angular/router';
-import { requireAdmin } from './admin/admin-guard';
-import { requireSignedIn, requireSignedOut } from './core/auth-guard';
-import { requireStaff } from './core/staff-guard';
+import { requireAdmin } from './core/auth/admin-guard';
+import { requireSignedIn, requireSignedOut } from './core/auth/auth-guard';
+import { requireStaff } from './core/auth/staff-guard';
 import { requireGuardian } from './guardian/guardian-guard';
 import { guardianLanding } from './home/guardian-landing';
 import { requireSandboxAccess } from './sandbox/sandbox-access';
@@ -102,7 +102,12 @@ export const routes: Routes = [
       {
         path: 'imports',
         canMatch: [requireStaff],
-        loadChildren: () => import('./imports/imports.routes').then((m) => m.IMPORTS_ROUTES),
+        // The app's routes are the one place that composes features: the data-requests screen is a
+        // tab of the imports page but its own feature.
+        loadChildren: () =>
+          import('./imports/imports.routes').then((m) =>
+            m.importsRoutes(() => import('./data-requests/data-requests').then((d) => d.DataRequests)),
+          ),
       },
     ],
   },

@@ -8,7 +8,7 @@ import { MatNavListHarness } from '@angular/material/list/testing';
 import { MatTabGroupHarness } from '@angular/material/tabs/testing';
 import { Router, provideRouter, withComponentInputBinding } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
-import { dateTimeLabel } from '../guardian/date-labels';
+import { dateTimeLabel } from '../core/date-labels';
 import { CapturedMail } from './captured-mail';
 import type { CapturedMailMessage, CapturedMailSummary } from './captured-mail-api';
 

@@ -7,7 +7,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
 import { Subject, startWith, switchMap } from 'rxjs';
 import { LOADING, toLoadState } from '../core/load-state';
-import { dateTimeLabel } from '../guardian/date-labels';
+import { dateTimeLabel } from '../core/date-labels';
 import { LoadFailure } from '../ui/load-failure';
 import { CapturedMailApi } from './captured-mail-api';
 import { MailReader } from './mail-reader';

@@ -12,7 +12,7 @@ import { MatInputHarness } from '@angular/material/input/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import { MatTableHarness } from '@angular/material/table/testing';
 import type { PlayerSummary } from '../../../shared/schemas/squads';
-import { SPEC_CONSENT_TEXT, specConsentedLink, specLink } from '../guardian/spec-fixtures';
+import { SPEC_CONSENT_TEXT, specConsentedLink, specLink } from '../core/guardians/spec-fixtures';
 import type { AdminUser } from './admin-api';
 import { GuardianLinks } from './guardian-links';
 

@@ -17,7 +17,7 @@ import { describeApiError } from '../core/api-error';
 import { LOADING, LoadState, toLoadState } from '../core/load-state';
 import { SquadApi } from '../core/squad-api';
 import { zodValidator } from '../core/zod-validator';
-import { dateTimeLabel } from '../guardian/date-labels';
+import { dateTimeLabel } from '../core/date-labels';
 import { LoadFailure } from '../ui/load-failure';
 import { AdminApi, type AdminUser, type InviteRequest } from './admin-api';
 import { applyServerErrors } from './server-errors';

@@ -6,7 +6,7 @@ import { MatTabsModule } from '@angular/material/tabs';
 import { DomSanitizer, SafeHtml } from '@angular/platform-browser';
 import { Subject, combineLatest, startWith, switchMap } from 'rxjs';
 import { LOADING, toLoadState } from '../core/load-state';
-import { dateTimeLabel } from '../guardian/date-labels';
+import { dateTimeLabel } from '../core/date-labels';
 import { LoadFailure } from '../ui/load-failure';
 import { CapturedMailApi, type CapturedMailMessage } from './captured-mail-api';
 import { framedMailHtml, hasInlineImages, splitMailText } from './mail-text';

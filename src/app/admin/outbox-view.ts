@@ -7,10 +7,10 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTableModule } from '@angular/material/table';
 import { Subscription } from 'rxjs';
 import { LOADING, LoadState, toLoadState } from '../core/load-state';
-import { dateTimeLabel } from '../guardian/date-labels';
+import { dateTimeLabel } from '../core/date-labels';
 import { LoadFailure } from '../ui/load-failure';
 import { AdminApi, type OutboxMail, type OutboxStatus } from './admin-api';
-import { DigestRun } from './digest-run';
+import { DigestRun } from '../ui/digest-run';
 
 /** Which mails the table shows. */
 type OutboxFilter = OutboxStatus | 'all';

@@ -10,8 +10,8 @@ import { MatInputHarness } from '@angular/material/input/testing';
 import { Router, provideRouter, withComponentInputBinding } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
 import type { AuthTokens } from '../../../shared/schemas/auth';
-import { authInterceptor } from '../core/auth-interceptor';
-import { AuthSession } from '../core/auth-session';
+import { authInterceptor } from '../core/auth/auth-interceptor';
+import { AuthSession } from '../core/auth/auth-session';
 import { BROWSER_STORAGE, MemoryStorage } from '../core/browser-storage';
 import { AcceptInvite } from './accept-invite';
 

@@ -9,12 +9,12 @@ import { Subject, finalize, of, startWith, switchMap, tap } from 'rxjs';
 import { ROLE_LABELS } from '../../../shared/roles';
 import type { AuthTokens } from '../../../shared/schemas/auth';
 import { ApiProblem, describeApiError } from '../core/api-error';
-import { AuthSession } from '../core/auth-session';
+import { AuthSession } from '../core/auth/auth-session';
 import { LOADING, LoadState, toLoadState } from '../core/load-state';
 import { LoadFailure } from '../ui/load-failure';
 import { AccountApi, type InviteView } from './account-api';
 import { NewPasswordFields, newPasswordGroup } from './new-password-fields';
-import { PublicPanel } from './public-panel';
+import { PublicPanel } from '../ui/public-panel';
 
 /** Error codes that mean the invitation link itself cannot be used (no retry helps). */
 const DEAD_INVITE_CODES = ['invite_expired', 'invite_used', 'invite_invalid'];

@@ -10,7 +10,7 @@ import { loginRequestSchema } from '../../../shared/schemas/auth';
 import { describeApiError } from '../core/api-error';
 import { zodValidator } from '../core/zod-validator';
 import { AccountApi } from './account-api';
-import { PublicPanel } from './public-panel';
+import { PublicPanel } from '../ui/public-panel';
 
 /**
  * The one message shown after asking for a reset link, whatever the server knows about the

@@ -7,7 +7,7 @@ import { finalize } from 'rxjs';
 import { describeApiError } from '../core/api-error';
 import { AccountApi } from './account-api';
 import { NewPasswordFields, newPasswordGroup } from './new-password-fields';
-import { PublicPanel } from './public-panel';
+import { PublicPanel } from '../ui/public-panel';
 
 /** Error codes that mean the reset link itself is spent or wrong: only a new link helps. */
 const DEAD_RESET_CODES = ['reset_expired', 'reset_used', 'reset_invalid'];

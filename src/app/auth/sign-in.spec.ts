@@ -11,7 +11,7 @@ import { Router, provideRouter, withComponentInputBinding } from '@angular/route
 import { RouterTestingHarness } from '@angular/router/testing';
 import type { AuthTokens } from '../../../shared/schemas/auth';
 import { UNREACHABLE_MESSAGE } from '../core/api-error';
-import { AuthSession } from '../core/auth-session';
+import { AuthSession } from '../core/auth/auth-session';
 import { BROWSER_STORAGE, MemoryStorage } from '../core/browser-storage';
 import { SignIn } from './sign-in';
 

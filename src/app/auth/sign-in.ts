@@ -9,8 +9,8 @@ import { Router, RouterLink } from '@angular/router';
 import { finalize } from 'rxjs';
 import { loginRequestSchema } from '../../../shared/schemas/auth';
 import { describeApiError } from '../core/api-error';
-import { safeReturnUrl } from '../core/auth-guard';
-import { AuthSession } from '../core/auth-session';
+import { safeReturnUrl } from '../core/auth/auth-guard';
+import { AuthSession } from '../core/auth/auth-session';
 import { zodValidator } from '../core/zod-validator';
 import { LoftlineMark } from '../ui/loftline-mark';
 

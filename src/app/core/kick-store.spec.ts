@@ -8,7 +8,7 @@ import { KickStore, type NewKick } from './kick-store';
 import { LOFTLINE_DB, LoftlineDb, type LocalKick } from './loftline-db';
 import { SessionStore } from './session-store';
 import { SPEC_COACH, SPEC_IDS, freshDb, signedInStorage } from './spec-support';
-import { settlePush, takeBatch } from './sync-apply';
+import { settlePush, takeBatch } from './sync/sync-apply';
 
 describe('KickStore and SessionStore (real IndexedDB)', () => {
   let db: LoftlineDb;

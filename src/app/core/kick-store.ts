@@ -3,11 +3,11 @@ import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { Dexie, liveQuery } from 'dexie';
 import { from, of, switchMap } from 'rxjs';
 import { kickDataSchema, type KickData } from '../../../shared/schemas/sync';
-import { AuthSession } from './auth-session';
+import { AuthSession } from './auth/auth-session';
 import { InvalidEntryError, validateEntry } from './entry-validation';
-import { LocalWrites } from './local-writes';
+import { LocalWrites } from './sync/local-writes';
 import { type LocalKick, LOFTLINE_DB, newId } from './loftline-db';
-import { mutationData, recordChange } from './outbox';
+import { mutationData, recordChange } from './sync/outbox';
 
 /** What Pitchside knows when a repetition is logged (the store adds id and time). */
 export type NewKick = Omit<KickData, 'id' | 'recordedAt' | 'updatedAt'>;

@@ -2,7 +2,7 @@ import { HttpClient } from '@angular/common/http';
 import { Injectable, computed, inject, signal } from '@angular/core';
 import { Subscription } from 'rxjs';
 import type { MeResponse } from '../../../shared/schemas/auth';
-import { AuthSession } from './auth-session';
+import { AuthSession } from './auth/auth-session';
 import { LOADING, LoadState, toLoadState } from './load-state';
 
 /**

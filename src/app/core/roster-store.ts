@@ -3,10 +3,10 @@ import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-i
 import { liveQuery } from 'dexie';
 import { firstValueFrom, from, of, switchMap } from 'rxjs';
 import { describeApiError } from './api-error';
-import { AuthSession } from './auth-session';
+import { AuthSession } from './auth/auth-session';
 import { type CachedPlayer, type CachedSquad, LOFTLINE_DB } from './loftline-db';
 import { SquadApi } from './squad-api';
-import { SyncQueue } from './sync-queue';
+import { SyncQueue } from './sync/sync-queue';
 
 /** How old the cached roster may get before a successful sync round refreshes it. */
 const ROSTER_MAX_AGE_MS = 10 * 60_000;

@@ -3,11 +3,11 @@ import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { liveQuery } from 'dexie';
 import { from, of, switchMap } from 'rxjs';
 import { drillDataSchema, sessionDataSchema, type DrillData, type SessionData } from '../../../shared/schemas/sync';
-import { AuthSession } from './auth-session';
+import { AuthSession } from './auth/auth-session';
 import { InvalidEntryError, validateEntry } from './entry-validation';
-import { LocalWrites } from './local-writes';
+import { LocalWrites } from './sync/local-writes';
 import { type LocalDrill, type LocalSession, LOFTLINE_DB, newId } from './loftline-db';
-import { mutationData, recordChange } from './outbox';
+import { mutationData, recordChange } from './sync/outbox';
 
 /** What the coach enters to start a session (the rest is filled in here). */
 export type NewSession = Omit<SessionData, 'id' | 'startedAt' | 'updatedAt'>;

@@ -1,5 +1,5 @@
 import type { SessionUser } from '../../../shared/schemas/auth';
-import { SESSION_STORAGE_KEY } from './auth-session';
+import { SESSION_STORAGE_KEY } from './auth/auth-session';
 import { MemoryStorage } from './browser-storage';
 import { LoftlineDb, newId } from './loftline-db';
 
@@ -30,7 +30,7 @@ export function signedInStorage(user: SessionUser): MemoryStorage {
 }
 
 /** Polls until `check` holds (IndexedDB and the queue work asynchronously). */
-export async function until(what: string, check: () => boolean | Promise<boolean>, timeoutMs = 3000): Promise<void> {
+export async function until(what: string, check: () => boolean | Promise<boolean>, timeoutMs = 10000): Promise<void> {
   const deadline = Date.now() + timeoutMs;
   while (!(await check())) {
     if (Date.now() > deadline) {

@@ -11,8 +11,8 @@ import { MatRadioButtonHarness } from '@angular/material/radio/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import type { PlayerSummary, SquadSummary } from '../../../shared/schemas/squads';
 import { SPEC_IDS, until } from '../core/spec-support';
-import { FileDownload } from '../imports/file-download';
-import { textOf } from '../imports/import-spec-support';
+import { FileDownload } from '../core/file-download';
+import { textOf } from '../ui/testing/file-input-support';
 import { DataRequests } from './data-requests';
 
 const SQUADS: SquadSummary[] = [{ id: SPEC_IDS.squad, name: 'U16', ageGroup: 'U16', ballSize: 5, playerCount: 2 }];

@@ -13,8 +13,8 @@ import type { PlayerSummary } from '../../../shared/schemas/squads';
 import { type ApiProblem, describeApiError } from '../core/api-error';
 import { LOADING, type LoadState, toLoadState } from '../core/load-state';
 import { SquadApi } from '../core/squad-api';
-import { ExportApi } from '../imports/export-api';
-import { FileDownload } from '../imports/file-download';
+import { ExportApi } from '../core/export-api';
+import { FileDownload } from '../core/file-download';
 import { LoadFailure } from '../ui/load-failure';
 import { ErasureApi, type ErasureMode } from './erasure-api';
 

@@ -103,7 +103,9 @@ describe('setPieceCloud', () => {
 
 describe('aimLineFlight', () => {
   it('puts the wall 9.15 m and the goal line ballX away for a central kick aimed at the middle', () => {
-    const f = aimLineFlight({ ballX: 24, ballY: 0, profile: curler(), conditions: {} });
+    const kick = { speedMs: 24, elevationDeg: 19, backspinRps: 3, sidespinRps: 4, aimOffDeg: 0 };
+    const f = aimLineFlight({ ballX: 24, ballY: 0, conditions: {} }, kick);
+    expect(f.kick).toEqual(kick);
     // IFAB Laws of the Game, Law 13: the wall at 9.15 m.
     expect(f.wallAlongAimM).toBeCloseTo(WALL_DISTANCE_M, 9);
     expect(f.goalAlongAimM).toBeCloseTo(24, 9);
@@ -122,7 +124,10 @@ describe('aimLineFlight', () => {
   });
 
   it('lengthens both distances along an oblique aim line', () => {
-    const f = aimLineFlight({ ballX: 20, ballY: 10, aimYM: 3, profile: curler(), conditions: {} });
+    const f = aimLineFlight(
+      { ballX: 20, ballY: 10, aimYM: 3, conditions: {} },
+      { speedMs: 24, elevationDeg: 19, backspinRps: 3, sidespinRps: 4, aimOffDeg: -5 },
+    );
     expect(f.goalAlongAimM).toBeCloseTo(Math.hypot(20, 7), 9);
     expect(f.wallAlongAimM).toBeGreaterThan(WALL_DISTANCE_M);
   });
@@ -139,5 +144,8 @@ describe('setPieceRank', () => {
     expect(ranked[1]!.result).toEqual(
       setPieceCloud({ ballX: 22, ballY: 0, profile: players[1]!.profile, conditions: {}, samples: 120, seed: 4 }),
     );
+    // The side view flies the kick each player chose for the spot.
+    expect(ranked[0]!.meanKick.kick).toEqual(ranked[0]!.result.kick);
+    expect(ranked[1]!.meanKick.kick).toEqual(ranked[1]!.result.kick);
   });
 });

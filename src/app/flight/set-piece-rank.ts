@@ -1,8 +1,8 @@
 /**
  * The set-piece planner's worker jobs: a squad ranking that runs shared/flight's `setPieceCloud` for
  * every player at one spot with the same seed (common random numbers, so players differ only by their
- * profiles), and the mean kick along the aim line for the side view. Plain TypeScript with no DOM so it
- * runs in the flight worker.
+ * profiles); each player takes the kick they would choose for the spot, and the side view flies that
+ * intended kick along the aim line. Plain TypeScript with no DOM so it runs in the flight worker.
  */
 
 import {
@@ -11,6 +11,7 @@ import {
   setPieceGeometry,
   simulateKick,
   type FlightConditions,
+  type IntendedKick,
   type KickProfile,
   type PathPoint,
   type SetPieceCloudResult,
@@ -22,8 +23,10 @@ export type { GoalCrossingKind, GoalMouthCloud, SetPieceCloudResult } from '../.
 
 const round3 = (v: number): number => Math.round(v * 1000) / 1000;
 
-/** The planner's side view: the profile's mean launch along the aim line, with wall and goal distances. */
+/** The planner's side view: the player's chosen kick (no spread) along the aim line, with wall and goal distances. */
 export interface AimLineFlight {
+  /** The intended kick flown: speed, elevation, spins and the aim-off for curl. */
+  kick: IntendedKick;
   /** Path samples, x along the aim from the ball, z height of the ball's centre. */
   path: Pick<PathPoint, 'x' | 'z'>[];
   /** Where the wall crosses the aim line, m from the ball. */
@@ -56,20 +59,19 @@ export interface SetPieceRankEntry {
   meanKick: AimLineFlight;
 }
 
-/** The profile's mean launch flown along the aim line (the planner's side view). */
-export function aimLineFlight(input: Omit<SetPieceInput, 'samples' | 'seed'>): AimLineFlight {
+/** An intended kick flown along the aim line (the planner's side view). */
+export function aimLineFlight(input: Omit<SetPieceInput, 'samples' | 'seed' | 'kick' | 'profile'>, kick: IntendedKick): AimLineFlight {
   const aimYM = input.aimYM ?? 0;
   const { phi, psi } = setPieceGeometry(input.ballX, input.ballY, aimYM);
   const wallAlongAimM = WALL_DISTANCE_M / Math.cos(phi - psi);
   const goalAlongAimM = input.ballX / Math.cos(phi);
-  const p = input.profile;
   const flight = simulateKick({
     ...input.conditions,
-    speed: p.meanSpeedMs,
-    elevationDeg: p.elevationDeg,
-    azimuthDeg: p.meanAzimuthDeg,
-    backspinRps: p.backspinRps,
-    sidespinRps: p.sidespinRps,
+    speed: kick.speedMs,
+    elevationDeg: kick.elevationDeg,
+    azimuthDeg: kick.aimOffDeg,
+    backspinRps: kick.backspinRps,
+    sidespinRps: kick.sidespinRps,
     planes: [wallAlongAimM, goalAlongAimM],
     path: true,
   });
@@ -78,6 +80,7 @@ export function aimLineFlight(input: Omit<SetPieceInput, 'samples' | 'seed'>): A
     return c ? round3(c.z) : null;
   };
   return {
+    kick,
     path: flight.path.map((q) => ({ x: round3(q.x), z: round3(q.z) })),
     wallAlongAimM,
     goalAlongAimM,
@@ -98,13 +101,9 @@ export function setPieceRank(input: SetPieceRankInput): SetPieceRankEntry[] {
       ballY: input.ballY,
       wallHeightM: input.wallHeightM,
       aimYM: input.aimYM,
-      profile,
       conditions: input.conditions,
     };
-    return {
-      id,
-      result: setPieceCloud({ ...spot, samples: input.samples, seed: input.seed }),
-      meanKick: aimLineFlight(spot),
-    };
+    const result = setPieceCloud({ ...spot, profile, samples: input.samples, seed: input.seed });
+    return { id, result, meanKick: aimLineFlight(spot, result.kick) };
   });
 }

@@ -5,7 +5,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Subject, combineLatest, startWith, switchMap } from 'rxjs';
 import { LOADING, toLoadState } from '../core/load-state';
 import { LoadFailure } from '../ui/load-failure';
-import { GuardianApi } from './guardian-api';
+import { GuardianApi } from '../core/guardians/guardian-api';
 import { WeeklyTrendChart } from './weekly-trend-chart';
 
 /**

@@ -1,4 +1,4 @@
-import type { ChildWeek } from './guardian-api';
+import type { ChildWeek } from '../core/guardians/guardian-api';
 
 /** Formats a share (0..1) as a whole percentage, "62 %". */
 export function percentLabel(share: number): string {

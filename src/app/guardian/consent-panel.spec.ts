@@ -10,8 +10,8 @@ import { MATERIAL_ANIMATIONS } from '@angular/material/core';
 import { MatDialogHarness } from '@angular/material/dialog/testing';
 import { MatSlideToggleHarness } from '@angular/material/slide-toggle/testing';
 import { ConsentPanel } from './consent-panel';
-import type { ConsentText, GuardianLinkView } from './guardian-api';
-import { SPEC_CONSENT_TEXT, specConsentedLink, specLink } from './spec-fixtures';
+import type { ConsentText, GuardianLinkView } from '../core/guardians/guardian-api';
+import { SPEC_CONSENT_TEXT, specConsentedLink, specLink } from '../core/guardians/spec-fixtures';
 
 /** Plays Guardian home's part: holds the link and takes the panel's updates. */
 @Component({

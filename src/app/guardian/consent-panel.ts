@@ -7,9 +7,9 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatSlideToggleChange, MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { Observable, filter, finalize, switchMap } from 'rxjs';
 import { describeApiError } from '../core/api-error';
-import { ConfirmDialog, type ConfirmDialogData } from './confirm-dialog';
-import { consentSentence, consentStatus } from './consent-state';
-import { type ConsentText, GuardianApi, type GuardianLinkView } from './guardian-api';
+import { ConfirmDialog, type ConfirmDialogData } from '../ui/confirm-dialog';
+import { consentSentence, consentStatus } from '../core/guardians/consent-state';
+import { type ConsentText, GuardianApi, type GuardianLinkView } from '../core/guardians/guardian-api';
 
 /** What the panel is waiting for the server to do. */
 type PendingAction = 'consent' | 'withdraw' | 'digest';

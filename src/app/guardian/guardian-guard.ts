@@ -1,6 +1,6 @@
 import { inject } from '@angular/core';
 import { CanMatchFn, Router } from '@angular/router';
-import { AuthSession } from '../core/auth-session';
+import { AuthSession } from '../core/auth/auth-session';
 
 /**
  * Lets guardians into Guardian home and sends everyone else home. The server scopes every

@@ -11,9 +11,9 @@ import type { SessionUser } from '../../../shared/schemas/auth';
 import { UNREACHABLE_MESSAGE } from '../core/api-error';
 import { BROWSER_STORAGE } from '../core/browser-storage';
 import { signedInStorage } from '../core/spec-support';
-import type { ChildSummary } from './guardian-api';
+import type { ChildSummary } from '../core/guardians/guardian-api';
 import { GuardianHome } from './guardian-home';
-import { SPEC_CONSENT_TEXT, specConsentedLink, specLink } from './spec-fixtures';
+import { SPEC_CONSENT_TEXT, specConsentedLink, specLink } from '../core/guardians/spec-fixtures';
 
 const guardian: SessionUser = {
   id: '0b8c5a0e-8d1f-4a52-9d0e-6f3b0b6a1c02',

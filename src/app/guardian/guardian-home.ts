@@ -4,12 +4,12 @@ import { MatCardModule } from '@angular/material/card';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Subscription } from 'rxjs';
-import { AuthSession } from '../core/auth-session';
+import { AuthSession } from '../core/auth/auth-session';
 import { LOADING, LoadState, toLoadState } from '../core/load-state';
 import { LoadFailure } from '../ui/load-failure';
 import { ChildSummaryCard } from './child-summary-card';
 import { ConsentPanel } from './consent-panel';
-import { type ConsentText, GuardianApi, type GuardianLinkView } from './guardian-api';
+import { type ConsentText, GuardianApi, type GuardianLinkView } from '../core/guardians/guardian-api';
 
 /**
  * Guardian home (`/guardian`), the landing page of a guardian account: each linked child's

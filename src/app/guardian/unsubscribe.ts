@@ -4,8 +4,8 @@ import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
 import { finalize } from 'rxjs';
 import { describeApiError } from '../core/api-error';
-import { PublicPanel } from '../auth/public-panel';
-import { DigestApi } from './digest-api';
+import { PublicPanel } from '../ui/public-panel';
+import { DigestApi } from '../core/guardians/digest-api';
 
 /**
  * The page behind the unsubscribe link in every Family digest (`/unsubscribe?token=`). It asks

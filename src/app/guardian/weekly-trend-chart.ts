@@ -12,7 +12,7 @@ import { axisBottom, axisLeft, axisRight, line, max, scaleBand, scaleLinear, sel
 import { weekLabel } from '../ui/charts/chart-format';
 import { drawWidth, injectChartWidth } from '../ui/charts/chart-width';
 import { describeTrend, percentLabel } from './child-trend';
-import type { ChildWeek } from './guardian-api';
+import type { ChildWeek } from '../core/guardians/guardian-api';
 
 const HEIGHT_PX = 168;
 const MARGIN = { top: 10, right: 40, bottom: 24, left: 32 };

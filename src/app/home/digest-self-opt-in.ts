@@ -22,7 +22,7 @@ export class DigestSelfOptInApi {
 
 /**
  * For a player aged 18 or over: whether their linked guardians may receive the Family digest
- * about them. Off by default — an adult decides for themselves (DESIGN §10).
+ * about them. Off by default — an adult decides for themselves (docs/design.md §10).
  */
 @Component({
   selector: 'll-digest-self-opt-in',

@@ -1,6 +1,6 @@
 import { inject } from '@angular/core';
 import { CanActivateFn, Router } from '@angular/router';
-import { AuthSession } from '../core/auth-session';
+import { AuthSession } from '../core/auth/auth-session';
 
 /**
  * Sends guardians from Home to Guardian home, which is their landing page: everything a

@@ -11,7 +11,7 @@ import type { Role } from '../../../shared/roles';
 import type { MeResponse, SessionUser } from '../../../shared/schemas/auth';
 import type { PlayerSummary, SquadSummary } from '../../../shared/schemas/squads';
 import { UNREACHABLE_MESSAGE } from '../core/api-error';
-import { SESSION_STORAGE_KEY } from '../core/auth-session';
+import { SESSION_STORAGE_KEY } from '../core/auth/auth-session';
 import { BROWSER_STORAGE, MemoryStorage } from '../core/browser-storage';
 import { Home } from './home';
 

@@ -7,7 +7,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Observable, Subject, map, of, startWith, switchMap } from 'rxjs';
 import { ROLE_LABELS, isStaffRole, type Role } from '../../../shared/roles';
 import type { PlayerSummary, SquadSummary } from '../../../shared/schemas/squads';
-import { AuthSession } from '../core/auth-session';
+import { AuthSession } from '../core/auth/auth-session';
 import { LOADING, LoadState, toLoadState } from '../core/load-state';
 import { ProfileStore } from '../core/profile-store';
 import { SquadApi } from '../core/squad-api';

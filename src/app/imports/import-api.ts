@@ -4,7 +4,7 @@ import { Observable, filter, map } from 'rxjs';
 import type { ImportAnswer, KickMapping, KicksSummary, RosterSummary, UploadEvent } from './import-types';
 
 /**
- * The two CSV uploads of issue 7: the club roster (admin) and a measuring device's kicks (staff).
+ * The two CSV uploads (docs/design.md §8): the club roster (admin) and a measuring device's kicks (staff).
  * Both are previewed first (`dryRun=true`: the server reads and checks every row, writes nothing)
  * and then committed all-or-nothing with the same file. Each call reports upload progress, so a
  * large file on a weak connection shows how far it has got instead of a frozen screen.

@@ -5,7 +5,7 @@ import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { MatButtonToggleHarness } from '@angular/material/button-toggle/testing';
 import { MatPaginatorHarness } from '@angular/material/paginator/testing';
 import { MatTableHarness } from '@angular/material/table/testing';
-import { textOf } from './import-spec-support';
+import { textOf } from '../ui/testing/file-input-support';
 import { ImportPreview } from './import-preview';
 import type { ImportRowError } from './import-types';
 import type { LocalCsv } from './local-csv';

@@ -1,7 +1,7 @@
 import type { Technique } from '../../../shared/schemas/sync';
 
 /*
- * The import contract as the client sees it (issue 7): what `POST /api/imports/roster` and
+ * The import contract as the client sees it: what `POST /api/imports/roster` and
  * `POST /api/imports/kicks` take and answer. Written down here, next to the screens that use it,
  * because the answers are plain JSON and the screens must not guess at their shape.
  */

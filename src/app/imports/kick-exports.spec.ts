@@ -11,8 +11,8 @@ import { MatSelectHarness } from '@angular/material/select/testing';
 import type { PlayerSummary, SquadSummary } from '../../../shared/schemas/squads';
 import { SPEC_IDS, until } from '../core/spec-support';
 import { EXPORT_CLOCK } from './export-dates';
-import { FileDownload } from './file-download';
-import { textOf } from './import-spec-support';
+import { FileDownload } from '../core/file-download';
+import { textOf } from '../ui/testing/file-input-support';
 import { KickExports, countRecords } from './kick-exports';
 
 const SQUADS: SquadSummary[] = [{ id: SPEC_IDS.squad, name: 'U16', ageGroup: 'U16', ballSize: 5, playerCount: 2 }];

@@ -13,8 +13,8 @@ import { LOADING, type LoadState, toLoadState } from '../core/load-state';
 import { SquadApi } from '../core/squad-api';
 import type { PlayerSummary } from '../../../shared/schemas/squads';
 import { LoadFailure } from '../ui/load-failure';
-import { ExportApi, type KickExportQuery } from './export-api';
-import { FileDownload } from './file-download';
+import { ExportApi, type KickExportQuery } from '../core/export-api';
+import { FileDownload } from '../core/file-download';
 import { EXPORT_CLOCK, daysBefore, localDate } from './export-dates';
 import { kilobytes } from './upload-progress';
 

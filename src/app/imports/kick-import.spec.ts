@@ -16,7 +16,7 @@ import { BROWSER_STORAGE, MemoryStorage } from '../core/browser-storage';
 import { SPEC_IDS, until } from '../core/spec-support';
 import { DEVICE_MAPPINGS_KEY } from './device-mappings';
 import { ImportApi } from './import-api';
-import { badCellTexts, chooseFile, csvFile, nextUpload, textOf } from './import-spec-support';
+import { badCellTexts, chooseFile, csvFile, nextUpload, textOf } from '../ui/testing/file-input-support';
 import type { ImportAnswer, KickMapping, KicksSummary } from './import-types';
 import { KickImport } from './kick-import';
 

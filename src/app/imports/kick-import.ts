@@ -13,7 +13,7 @@ import { Subject, map, startWith, switchMap } from 'rxjs';
 import type { Technique } from '../../../shared/schemas/sync';
 import { LOADING, toLoadState } from '../core/load-state';
 import { SquadApi } from '../core/squad-api';
-import { TECHNIQUE_LABELS, TECHNIQUE_ORDER } from '../ui/charts/kick-labels';
+import { TECHNIQUES, TECHNIQUE_LABELS } from '../../../shared/vocabulary';
 import { LoadFailure } from '../ui/load-failure';
 import { METRIC_UNITS, guessColumns, guessUnits } from './column-guess';
 import { ColumnMapping } from './column-mapping';
@@ -68,7 +68,7 @@ export class KickImport {
   private readonly retries = new Subject<void>();
 
   protected readonly steps = ['Drill and file', 'Columns', 'Check the rows', 'Imported'];
-  protected readonly techniques = TECHNIQUE_ORDER;
+  protected readonly techniques = TECHNIQUES;
   protected readonly techniqueLabels = TECHNIQUE_LABELS;
   protected readonly problems = problemsSentence;
   protected readonly squads = toSignal(

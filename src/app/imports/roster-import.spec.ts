@@ -9,9 +9,9 @@ import { MatButtonToggleHarness } from '@angular/material/button-toggle/testing'
 import { MatProgressBarHarness } from '@angular/material/progress-bar/testing';
 import { MatTableHarness } from '@angular/material/table/testing';
 import { until } from '../core/spec-support';
-import { FileDownload } from './file-download';
+import { FileDownload } from '../core/file-download';
 import { ImportApi } from './import-api';
-import { badCellTexts, chooseFile, csvFile, nextUpload, textOf } from './import-spec-support';
+import { badCellTexts, chooseFile, csvFile, nextUpload, textOf } from '../ui/testing/file-input-support';
 import type { ImportAnswer, RosterSummary } from './import-types';
 import { RosterImport } from './roster-import';
 

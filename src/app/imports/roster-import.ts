@@ -2,7 +2,7 @@ import { toCsv } from '../../../shared/csv';
 import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
-import { FileDownload } from './file-download';
+import { FileDownload } from '../core/file-download';
 import { FilePicker } from './file-picker';
 import { ImportApi } from './import-api';
 import { ImportPreview, type PreviewColumn } from './import-preview';

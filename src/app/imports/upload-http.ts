@@ -1,6 +1,6 @@
 import { HttpBackend, HttpXhrBackend, provideHttpClient, withInterceptors } from '@angular/common/http';
 import type { EnvironmentProviders, Provider } from '@angular/core';
-import { authInterceptor } from '../core/auth-interceptor';
+import { authInterceptor } from '../core/auth/auth-interceptor';
 
 /**
  * An `HttpClient` for the import routes that sends through XMLHttpRequest instead of `fetch`.

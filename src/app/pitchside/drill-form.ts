@@ -10,7 +10,7 @@ import type { LocalDrill } from '../core/loftline-db';
 import type { NewDrill } from '../core/session-store';
 import { zodValidator } from '../core/zod-validator';
 import { StepControl } from './step-control';
-import { TECHNIQUE_LABELS, TECHNIQUE_ORDER, backspinLabel, sidespinLabel } from './pitchside-labels';
+import { TECHNIQUES, TECHNIQUE_LABELS, backspinLabel, sidespinLabel } from '../../../shared/vocabulary';
 
 /**
  * Sets up a drill: technique, target distance and radius, and the spin the coach asks for
@@ -133,7 +133,7 @@ export class DrillForm implements OnInit {
   /** Emits when the coach closes the form. */
   readonly cancelled = output<void>();
 
-  protected readonly techniques = TECHNIQUE_ORDER;
+  protected readonly techniques = TECHNIQUES;
   protected readonly techniqueLabels = TECHNIQUE_LABELS;
   protected readonly backspinLabel = backspinLabel;
   protected readonly sidespinLabel = sidespinLabel;

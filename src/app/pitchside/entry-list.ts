@@ -4,7 +4,7 @@ import { MatIconModule } from '@angular/material/icon';
 import type { KickCorrection } from '../core/kick-store';
 import type { CachedPlayer, LocalKick, OutboxEntry } from '../core/loftline-db';
 import { KickEditor } from './kick-editor';
-import { OUTCOME_LABELS, TECHNIQUE_LABELS, backspinLabel } from './pitchside-labels';
+import { OUTCOME_LABELS, TECHNIQUE_LABELS, backspinLabel } from '../../../shared/vocabulary';
 
 /** A correction of one entry, as the list reports it. */
 export interface EntryCorrection {

@@ -9,7 +9,8 @@ import { kickDataSchema, type Outcome } from '../../../shared/schemas/sync';
 import type { KickCorrection } from '../core/kick-store';
 import type { CachedPlayer, LocalKick } from '../core/loftline-db';
 import { metresValidator, optionalMetres } from './metres-field';
-import { OUTCOME_LABELS, OUTCOME_ORDER, backspinLabel, sidespinLabel } from './pitchside-labels';
+import { PAD_OUTCOMES } from './pitchside-labels';
+import { OUTCOME_LABELS, backspinLabel, sidespinLabel } from '../../../shared/vocabulary';
 import { StepControl } from './step-control';
 
 /**
@@ -141,7 +142,7 @@ export class KickEditor implements OnInit {
   /** Emits when the coach closes the editor without saving. */
   readonly cancelled = output<void>();
 
-  protected readonly outcomes = OUTCOME_ORDER;
+  protected readonly outcomes = PAD_OUTCOMES;
   protected readonly outcomeLabels = OUTCOME_LABELS;
   protected readonly backspinLabel = backspinLabel;
   protected readonly sidespinLabel = sidespinLabel;

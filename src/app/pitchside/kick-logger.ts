@@ -14,7 +14,7 @@ import { KickStore } from '../core/kick-store';
 import type { LocalDrill, LocalSession } from '../core/loftline-db';
 import { RosterStore } from '../core/roster-store';
 import { SessionStore, type NewDrill } from '../core/session-store';
-import { SyncIssues } from '../core/sync-issues';
+import { SyncIssues } from '../core/sync/sync-issues';
 import { DrillForm } from './drill-form';
 import { EntryList, type EntryCorrection } from './entry-list';
 import { HangTimer } from './hang-timer';
@@ -22,7 +22,7 @@ import { DEFAULT_REP_LIMIT_PER_SESSION, isOverLoadLimit, loadCautionText } from 
 import { describeLocalError } from './local-error';
 import { metresValidator, optionalMetres } from './metres-field';
 import { OutcomePad } from './outcome-pad';
-import { OUTCOME_LABELS, TECHNIQUE_LABELS, backspinLabel, sidespinLabel } from './pitchside-labels';
+import { OUTCOME_LABELS, TECHNIQUE_LABELS, backspinLabel, sidespinLabel } from '../../../shared/vocabulary';
 import { PlayerChips } from './player-chips';
 import { StepControl } from './step-control';
 import { StopwatchDrills } from './stopwatch-drills';

@@ -1,6 +1,6 @@
 /**
  * Repetitions per player per session above which Pitchside shows the kicking-load caution
- * (DESIGN §10: repeated maximal kicking strains hips and groin).
+ * (docs/design.md §10: repeated maximal kicking strains hips and groin).
  *
  * TODO(sync/API owner): the club sets its own limit (`clubs.rep_limit_per_session` on the
  * server, 40 in the demo club), but no endpoint exposes it to the app yet; until one does,

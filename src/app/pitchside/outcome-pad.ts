@@ -1,7 +1,8 @@
 import { ChangeDetectionStrategy, Component, input, output } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import type { Outcome } from '../../../shared/schemas/sync';
-import { OUTCOME_LABELS, OUTCOME_ORDER } from './pitchside-labels';
+import { PAD_OUTCOMES } from './pitchside-labels';
+import { OUTCOME_LABELS } from '../../../shared/vocabulary';
 
 /**
  * The outcome buttons at the bottom of Pitchside, in the thumb's reach: one tap saves the
@@ -57,6 +58,6 @@ export class OutcomePad {
   /** Emits the outcome the coach tapped. */
   readonly picked = output<Outcome>();
 
-  protected readonly outcomes = OUTCOME_ORDER;
+  protected readonly outcomes = PAD_OUTCOMES;
   protected readonly labels = OUTCOME_LABELS;
 }

@@ -1,61 +1,13 @@
-import type { Outcome, Technique } from '../../../shared/schemas/sync';
+import type { Outcome } from '../../../shared/vocabulary';
 
 /*
- * Pitchside's words for the values the sync schema stores, in one place so the pad, the
- * entry list and the editor all say the same thing. Types come from the shared schema; the
- * values are repeated here (not imported) to keep zod out of the code every screen loads.
+ * Pitchside's own words and layouts. The vocabulary (techniques, outcomes, spin scales and their
+ * labels) is defined once in `shared/vocabulary.ts`; what lives here is how Pitchside lays it out
+ * and the coach's wind words.
  */
 
 /** Outcomes in pad order: the three along the target line first (the usual results), then the misses. */
-export const OUTCOME_ORDER: readonly Outcome[] = ['short', 'on_target', 'long', 'left', 'right', 'blocked', 'over'];
-
-/** Label of each outcome. */
-export const OUTCOME_LABELS: Record<Outcome, string> = {
-  on_target: 'On target',
-  short: 'Short',
-  long: 'Long',
-  left: 'Left',
-  right: 'Right',
-  blocked: 'Blocked',
-  over: 'Over',
-};
-
-/** Techniques in the order coaches usually run them. */
-export const TECHNIQUE_ORDER: readonly Technique[] = ['driven', 'lofted', 'chipped', 'curled'];
-
-/** Label of each technique. */
-export const TECHNIQUE_LABELS: Record<Technique, string> = {
-  driven: 'Driven',
-  lofted: 'Lofted',
-  chipped: 'Chipped',
-  curled: 'Curled',
-};
-
-/** The seven-step backspin scale (DESIGN §3), + = backspin, − = topspin. */
-export function backspinLabel(step: number): string {
-  const labels: Record<number, string> = {
-    3: 'heavy backspin',
-    2: 'backspin',
-    1: 'light backspin',
-    0: 'no spin',
-    [-1]: 'light topspin',
-    [-2]: 'topspin',
-    [-3]: 'heavy topspin',
-  };
-  return labels[step] ?? `${step}`;
-}
-
-/** The five-step sidespin scale (DESIGN §3), + = curls to the left. */
-export function sidespinLabel(step: number): string {
-  const labels: Record<number, string> = {
-    2: 'strong left curl',
-    1: 'left curl',
-    0: 'no curl',
-    [-1]: 'right curl',
-    [-2]: 'strong right curl',
-  };
-  return labels[step] ?? `${step}`;
-}
+export const PAD_OUTCOMES: readonly Outcome[] = ['short', 'on_target', 'long', 'left', 'right', 'blocked', 'over'];
 
 /** Where the wind comes from, relative to the main kicking direction. */
 export type WindDirection = 'calm' | 'headwind' | 'tailwind' | 'from_left' | 'from_right';

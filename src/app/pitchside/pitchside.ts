@@ -5,7 +5,7 @@ import { RouterLink } from '@angular/router';
 import { DrillSuggestion } from '../core/drill-suggestion';
 import { RosterStore } from '../core/roster-store';
 import { SessionStore } from '../core/session-store';
-import { SyncQueue } from '../core/sync-queue';
+import { SyncQueue } from '../core/sync/sync-queue';
 import { KickLogger } from './kick-logger';
 import { windLabel } from './pitchside-labels';
 import { SessionStart } from './session-start';

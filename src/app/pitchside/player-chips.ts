@@ -7,7 +7,7 @@ import { isOverLoadLimit } from './kicking-load';
 /**
  * The squad as a grid of big chips — shirt number, name and this session's repetition count —
  * so the first tap of a log picks the kicker. A chip turns amber with a warning mark once the
- * player passes the club's repetition limit (DESIGN §10).
+ * player passes the club's repetition limit (docs/design.md §10).
  */
 @Component({
   selector: 'll-player-chips',

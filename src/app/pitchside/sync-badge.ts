@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input, output } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import { SyncQueue } from '../core/sync-queue';
+import { SyncQueue } from '../core/sync/sync-queue';
 
 /**
  * The always-visible sync state on Pitchside: online or offline, and how many entries the

@@ -10,7 +10,7 @@ import { BROWSER_STORAGE } from '../core/browser-storage';
 import { KickStore } from '../core/kick-store';
 import { type CachedPlayer, LOFTLINE_DB, type LocalKick, type LoftlineDb } from '../core/loftline-db';
 import { SPEC_COACH, SPEC_IDS, freshDb, signedInStorage, until } from '../core/spec-support';
-import { settlePush, takeBatch } from '../core/sync-apply';
+import { settlePush, takeBatch } from '../core/sync/sync-apply';
 import { Connectivity } from '../core/connectivity';
 import { SyncPanel } from './sync-panel';
 

@@ -3,9 +3,9 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import type { CachedPlayer, ConflictNotice, OutboxEntry } from '../core/loftline-db';
 import { StorageStatus } from '../core/storage-status';
-import { SyncIssues } from '../core/sync-issues';
-import { SyncQueue } from '../core/sync-queue';
-import { OUTCOME_LABELS } from './pitchside-labels';
+import { SyncIssues } from '../core/sync/sync-issues';
+import { SyncQueue } from '../core/sync/sync-queue';
+import { OUTCOME_LABELS } from '../../../shared/vocabulary';
 import type { Outcome } from '../../../shared/schemas/sync';
 
 /** Words for the fields a conflict can name. */

@@ -124,9 +124,15 @@ export function resultsCacheKey(squadId: string, technique: Technique, spot: Pla
 }
 
 /**
- * What a cached ranking was computed from: each player's profile version. A cached ranking is reused only
- * when this matches, so a refreshed profile is never hidden behind an old result.
+ * How rankings are computed; part of the fingerprint, so rankings kept on a device by an older planner
+ * (each player's usual ball, no chosen kick) are recomputed rather than shown.
+ */
+export const RANKING_METHOD = 'chosen-kick-1';
+
+/**
+ * What a cached ranking was computed from: the ranking method and each player's profile version. A cached
+ * ranking is reused only when this matches, so a refreshed profile is never hidden behind an old result.
  */
 export function profilesFingerprint(profiles: SquadProfilesResponse): string {
-  return profiles.players.map((p) => `${p.playerId}@${p.computedAt ?? '-'}#${p.repetitions}`).join('|');
+  return [RANKING_METHOD, ...profiles.players.map((p) => `${p.playerId}@${p.computedAt ?? '-'}#${p.repetitions}`)].join('|');
 }

@@ -3,7 +3,7 @@
  * one place so the charts' text alternatives, the table and the headings say the same thing.
  */
 
-import { WALL_DISTANCE_M, type SetPieceShares } from '../../../shared/flight';
+import { WALL_DISTANCE_M, type IntendedKick, type SetPieceShares } from '../../../shared/flight';
 import type { PlannerSpot, RankedPlayer } from './planner-rank';
 
 /** A share as a whole percentage, e.g. 0.384 → "38 %". */
@@ -44,5 +44,24 @@ export function describeResult(p: RankedPlayer): string {
     `${playerName(p)}, ${p.result.samples} simulated kicks: ${percent(s.onTarget)} in under the bar, ` +
     `${percent(s.over)} over the bar, ${percent(s.wide)} wide, ${percent(s.blocked)} blocked by the wall, ` +
     `${percent(shortShare(s))} short.`
+  );
+}
+
+/** Spin in words with its rate, e.g. "3.0 rev/s topspin". */
+function spinText(rps: number, positive: string, negative: string): string {
+  if (Math.abs(rps) < 0.05) return `no ${positive}`;
+  return `${Math.abs(rps).toFixed(1)} rev/s ${rps > 0 ? positive : negative}`;
+}
+
+/**
+ * The kick a player would choose for the spot, in words: launch speed, elevation, spins and the aim-off
+ * for curl, e.g. "22.8 m/s at 22°, 3.0 rev/s topspin, 4.5 rev/s curl to the left, aimed 6.7° right".
+ */
+export function chosenKickText(k: IntendedKick): string {
+  const aim =
+    Math.abs(k.aimOffDeg) < 0.05 ? 'aimed straight' : `aimed ${Math.abs(k.aimOffDeg).toFixed(1)}° ${k.aimOffDeg > 0 ? 'left' : 'right'}`;
+  return (
+    `${k.speedMs.toFixed(1)} m/s at ${Math.round(k.elevationDeg)}°, ${spinText(k.backspinRps, 'backspin', 'topspin')}, ` +
+    `${spinText(k.sidespinRps, 'curl to the left', 'curl to the right').replace('no curl to the left', 'no curl')}, ${aim}`
   );
 }

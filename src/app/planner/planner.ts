@@ -12,7 +12,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
 import { map } from 'rxjs';
 import { GOAL_WIDTH_M, TECHNIQUES, type Technique } from '../../../shared/flight';
-import { AnalysisCache } from '../core/analysis-cache';
+import { AnalysisCache } from '../core/analysis/analysis-cache';
 import { LoadFailure } from '../ui/load-failure';
 import { SliderField } from '../ui/slider-field';
 import { TrajectoryChart, type TrajectoryLandmarks, type TrajectoryTrace } from '../ui/trajectory-chart';
@@ -20,7 +20,7 @@ import { GoalMouthView } from './goal-mouth-view';
 import { PLANNER_CACHE } from './planner-cache';
 import type { RankedPlayer } from './planner-rank';
 import { PLANNER_SAMPLES, PlannerStore } from './planner-store';
-import { describeResult, describeSpot, percent, playerName, shortShare } from './planner-text';
+import { chosenKickText, describeResult, describeSpot, percent, playerName, shortShare } from './planner-text';
 import { SetPiecePitch } from './set-piece-pitch';
 
 /** Columns of the ranking on a phone, and the extra ones from this width on. */
@@ -100,6 +100,10 @@ export class Planner {
     const k = this.selected()?.meanKick;
     return k ? { wallAtM: k.wallAlongAimM, wallHeightM: this.store.spot().wallHeightM, goalAtM: k.goalAlongAimM } : {};
   });
+  protected readonly chosenKick = computed(() => {
+    const k = this.selected()?.meanKick;
+    return k ? `Kick chosen for this spot: ${chosenKickText(k.kick)}.` : '';
+  });
   protected readonly sideSummary = computed(() => {
     const p = this.selected();
     const k = p?.meanKick;
@@ -107,7 +111,7 @@ export class Planner {
     const wall = k.wallHeightOfBallM === null ? 'lands before the wall' : `passes the wall at ${k.wallHeightOfBallM.toFixed(2)} m`;
     const goal =
       k.goalHeightOfBallM === null ? 'lands before the goal line' : `crosses the goal line at ${k.goalHeightOfBallM.toFixed(2)} m`;
-    return `Side view along the aim of ${playerName(p)}'s typical kick: ${wall} and ${goal}; carry ${k.carryM.toFixed(1)} m.`;
+    return `Side view along the aim of the kick ${playerName(p)} would choose here (${chosenKickText(k.kick)}): ${wall} and ${goal}; carry ${k.carryM.toFixed(1)} m.`;
   });
 
   protected readonly percent = percent;

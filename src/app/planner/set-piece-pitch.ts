@@ -20,7 +20,7 @@ import { describeSpot } from './planner-text';
 
 /** Drawn width of a wall of four to five players, m (common practice; the model treats the wall as wide enough). */
 const WALL_DRAWN_WIDTH_M = 2.6;
-/** Touch target around the ball, px: at least 48 px across (DESIGN §9). */
+/** Touch target around the ball, px: at least 48 px across (docs/design.md §9). */
 const BALL_TARGET_RADIUS_PX = 26;
 /** Keyboard steps, m. */
 const STEP_M = 0.5;

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import type { SpinEstimateSkip, SpinEstimatesResponse, TechniqueSpinEstimate } from '../../../shared/schemas/analysis';
-import { TECHNIQUE_LABELS } from '../ui/charts/kick-labels';
+import { TECHNIQUE_LABELS } from '../../../shared/vocabulary';
 
 const SKIP_WORDS: Record<SpinEstimateSkip, string> = {
   no_carry: 'no carry logged (and not on target)',

@@ -11,9 +11,9 @@ import type {
 import type { MeResponse } from '../../../shared/schemas/auth';
 import type { PlayerSummary, SquadSummary } from '../../../shared/schemas/squads';
 import type { Technique } from '../../../shared/schemas/sync';
-import { AuthSession } from '../core/auth-session';
+import { AuthSession } from '../core/auth/auth-session';
 import { SquadApi } from '../core/squad-api';
-import { ANSWER_STORE, type Answer, type AnswerKind, cachedAnswer } from './cached-answer';
+import { ANSWER_STORE, type Answer, type AnswerKind, cachedAnswer } from '../core/analysis/cached-answer';
 
 /** How many recent kicks the Player file loads for its table (the server allows up to 1000). */
 export const RECENT_KICKS_LIMIT = 500;

@@ -1,4 +1,4 @@
-import { kick, progressWeek } from './analysis-spec-fixtures';
+import { kick, progressWeek } from '../core/analysis/spec-fixtures';
 import { busiestTechnique, drillTargets, outcomeWeeks, progressPoints, weeksOf, wilsonInterval } from './player-file-view';
 
 describe('wilsonInterval', () => {

@@ -22,8 +22,8 @@ import {
   kick,
   profileEntry,
   progressWeek,
-} from './analysis-spec-fixtures';
-import { ANSWER_STORE, MemoryAnswerStore } from './cached-answer';
+} from '../core/analysis/spec-fixtures';
+import { ANSWER_STORE, MemoryAnswerStore } from '../core/analysis/cached-answer';
 import { PlayerFile } from './player-file';
 
 const ADA = FIXTURE_IDS.playerAda;
@@ -124,7 +124,7 @@ describe('PlayerFile', () => {
     expect(count('ll-progress-chart circle.ll-progress__point')).toBe(3);
     expect(count('ll-outcome-mix-chart rect.ll-outcome__segment')).toBe(9);
     // The envelope comes from the flight worker: 1000 landings, the two drill targets and the next target.
-    await until('the envelope', () => count('ll-reach-diagram circle.ll-reach__landing') === 1000, 15000);
+    await until('the envelope', () => count('ll-reach-diagram circle.ll-reach__landing') === 1000, 25000);
     await fixture.whenStable();
     expect(count('ll-reach-diagram circle.ll-reach__target--drill')).toBe(2);
     expect(count('ll-reach-diagram circle.ll-reach__target--next')).toBe(1);
@@ -170,7 +170,7 @@ describe('PlayerFile', () => {
     expect(text()).toContain('normalised through the flight model to still air at ISA sea level, 15 °C, no wind');
     expect(text()).toContain('Still-air carry');
     expect(count('ll-progress-chart circle.ll-progress__point')).toBe(1);
-    await until('the envelope', () => count('ll-reach-diagram circle.ll-reach__landing') === 1000, 15000);
+    await until('the envelope', () => count('ll-reach-diagram circle.ll-reach__landing') === 1000, 25000);
   });
 
   it('follows the technique chosen', async () => {
@@ -189,7 +189,7 @@ describe('PlayerFile', () => {
     await fixture.whenStable();
     backend.expectOne('/api/me').flush({ user, club: { id: FIXTURE_IDS.club, name: 'Kestrel' }, playerId: ADA, childPlayerIds: [] });
     await answerAll();
-    await until('the envelope', () => count('ll-reach-diagram circle.ll-reach__landing') === 1000, 15000);
+    await until('the envelope', () => count('ll-reach-diagram circle.ll-reach__landing') === 1000, 25000);
     await fixture.whenStable();
     expect(text()).toContain('Ada Okafor');
     expect(count('ll-reach-table a[href^="/pitchside"]')).toBe(0);
@@ -217,7 +217,7 @@ describe('PlayerFile', () => {
     const answers = new MemoryAnswerStore();
     open(fixtureUser('head_coach'), ADA, answers);
     await answerAll();
-    await until('the envelope', () => count('ll-reach-diagram circle.ll-reach__landing') === 1000, 15000);
+    await until('the envelope', () => count('ll-reach-diagram circle.ll-reach__landing') === 1000, 25000);
     backend.verify();
     fixture.destroy();
     TestBed.resetTestingModule();
@@ -245,7 +245,7 @@ describe('PlayerFile', () => {
     expect(text()).toContain('The server cannot be reached: showing what this device saved, last updated');
     expect(count('ll-progress-chart circle.ll-progress__point')).toBe(3);
     // The envelope comes from the device's cache, so it is there at once.
-    await until('the cached envelope', () => count('ll-reach-diagram circle.ll-reach__landing') === 1000, 3000);
+    await until('the cached envelope', () => count('ll-reach-diagram circle.ll-reach__landing') === 1000, 10000);
     expect(store.count('envelope')).toBe(3);
   });
 });

@@ -8,16 +8,16 @@ import { RouterLink } from '@angular/router';
 import { Observable, Subject, combineLatest, map, merge, of, scan, startWith, switchMap } from 'rxjs';
 import { isStaffRole } from '../../../shared/roles';
 import type { Technique } from '../../../shared/schemas/sync';
-import { AuthSession } from '../core/auth-session';
+import { AuthSession } from '../core/auth/auth-session';
 import { LOADING, type LoadState } from '../core/load-state';
 import { LoadFailure } from '../ui/load-failure';
-import { TECHNIQUE_LABELS, TECHNIQUE_ORDER } from '../ui/charts/kick-labels';
-import { isNotFound, oldestCachedAt, readyValue, toAnswerState, updatedLabel } from './answer-state';
-import { CarryBasisChoice } from './carry-basis-choice';
+import { TECHNIQUES, TECHNIQUE_LABELS } from '../../../shared/vocabulary';
+import { isNotFound, oldestCachedAt, readyValue, toAnswerState, updatedLabel } from '../core/analysis/answer-state';
+import { CarryBasisChoice } from '../ui/carry-basis-choice';
 import { PlayerFileApi } from './player-file-api';
 import { busiestTechnique } from './player-file-view';
 import { ProgressPanel } from './progress-panel';
-import { ReachEnvelopes } from './reach-envelopes';
+import { ReachEnvelopes } from '../core/analysis/reach-envelopes';
 import { ReachPanel } from './reach-panel';
 import { ReachTable } from './reach-table';
 import { HangTimeSpin } from './hang-time-spin';
@@ -63,7 +63,7 @@ export class PlayerFile {
   readonly id = input.required<string>();
 
   protected readonly carry = inject(CarryBasisChoice);
-  protected readonly techniques = TECHNIQUE_ORDER;
+  protected readonly techniques = TECHNIQUES;
   protected readonly techniqueLabels = TECHNIQUE_LABELS;
   protected readonly isStaff = computed(() => {
     const role = this.session.role();
@@ -160,7 +160,7 @@ export class PlayerFile {
   }
 
   private loadingReaches(): TechniqueReach[] {
-    return TECHNIQUE_ORDER.map((technique) => ({ technique, status: 'loading' as const }));
+    return TECHNIQUES.map((technique) => ({ technique, status: 'loading' as const }));
   }
 
   /** Each technique's profile, then its envelope in the worker; rows update as each arrives. */
@@ -186,7 +186,7 @@ export class PlayerFile {
           return { technique, status: 'loading' };
         }),
       );
-    return merge(...TECHNIQUE_ORDER.map(one)).pipe(
+    return merge(...TECHNIQUES.map(one)).pipe(
       scan((all, reach) => all.map((r) => (r.technique === reach.technique ? reach : r)), this.loadingReaches()),
     );
   }

@@ -3,7 +3,7 @@ import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import type { CarryBasis, ProgressWeek } from '../../../shared/schemas/analysis';
 import type { Technique } from '../../../shared/schemas/sync';
 import { formatValue, weekLabel } from '../ui/charts/chart-format';
-import { TECHNIQUE_LABELS } from '../ui/charts/kick-labels';
+import { TECHNIQUE_LABELS } from '../../../shared/vocabulary';
 import { OutcomeMixChart } from '../ui/charts/outcome-mix-chart';
 import { ProgressChart } from '../ui/charts/progress-chart';
 import { type ProgressMetric, outcomeWeeks, progressPoints } from './player-file-view';

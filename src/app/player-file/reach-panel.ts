@@ -1,8 +1,8 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { curveHitProbability } from '../../../shared/flight';
+import { curveHitProbability, PROFILE_WARNING_TEXT, reachWarnings } from '../../../shared/flight';
 import type { PlayerKick } from '../../../shared/schemas/analysis';
-import { TECHNIQUE_LABELS } from '../ui/charts/kick-labels';
+import { TECHNIQUE_LABELS } from '../../../shared/vocabulary';
 import { ReachDiagram, type ReachTarget } from '../ui/charts/reach-diagram';
 import { drillTargets } from './player-file-view';
 import { type TechniqueReach, reachHeadline, reachUncertainty } from './technique-reach';
@@ -44,6 +44,13 @@ import { type TechniqueReach, reachHeadline, reachUncertainty } from './techniqu
           <span class="reach-panel__detail">{{ uncertainty() }}</span>
         }
       </div>
+      @if (warnings().length) {
+        <ul class="reach-panel__warnings" aria-label="Before trusting these figures">
+          @for (warning of warnings(); track warning) {
+            <li>{{ warning }}</li>
+          }
+        </ul>
+      }
       @if (r.status === 'computing') {
         <mat-progress-bar mode="indeterminate" aria-label="Computing the reach envelope" />
         <p class="reach-panel__note">Computing the envelope…</p>
@@ -87,6 +94,12 @@ import { type TechniqueReach, reachHeadline, reachUncertainty } from './techniqu
     .reach-panel__note {
       margin: 8px 0 0;
     }
+    .reach-panel__warnings {
+      margin: 0 0 8px;
+      padding-left: 20px;
+      font: var(--mat-sys-body-small);
+      color: var(--mat-sys-error);
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -103,6 +116,22 @@ export class ReachPanel {
   protected readonly headline = computed(() => {
     const r = this.reach();
     return r ? reachHeadline(r) : '–';
+  });
+  /**
+   * The profile's warnings in plain words; reach beyond the distances drilled is judged against the reach
+   * shown (computed here for the chosen radius), so it cannot disagree with the headline.
+   */
+  protected readonly warnings = computed<string[]>(() => {
+    const r = this.reach();
+    if (r === null || r.status === 'loading' || r.status === 'error' || r.status === 'empty') {
+      return [];
+    }
+    const profile = r.entry.profile;
+    if (!profile) {
+      return [];
+    }
+    const codes = r.status === 'ready' ? reachWarnings(profile, r.analysis.reliableReachM) : (profile.warnings ?? []);
+    return codes.map((c) => PROFILE_WARNING_TEXT[c]);
   });
   protected readonly uncertainty = computed(() => {
     const r = this.reach();

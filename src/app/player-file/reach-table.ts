@@ -3,8 +3,8 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
-import { TECHNIQUE_LABELS } from '../ui/charts/kick-labels';
-import { describeNextTarget, drillLink } from './next-target';
+import { TECHNIQUE_LABELS } from '../../../shared/vocabulary';
+import { describeNextTarget, drillLink } from '../core/analysis/next-target';
 import { type TechniqueReach, reachHeadline, reachUncertainty } from './technique-reach';
 
 /** One row as the table shows it. */

@@ -8,7 +8,7 @@ import { MatSortHarness } from '@angular/material/sort/testing';
 import { MatTableHarness } from '@angular/material/table/testing';
 import type { PlayerKick } from '../../../shared/schemas/analysis';
 import type { Outcome } from '../../../shared/schemas/sync';
-import { kick } from './analysis-spec-fixtures';
+import { kick } from '../core/analysis/spec-fixtures';
 import { RecentKicks } from './recent-kicks';
 
 /** 23 kicks: carries 20.0, 20.5, … (kick 0 has none), outcomes cycling, two techniques. */

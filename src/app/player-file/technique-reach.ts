@@ -1,7 +1,7 @@
 import type { ProfileEntry } from '../../../shared/schemas/analysis';
 import type { Technique } from '../../../shared/schemas/sync';
 import { formatRange } from '../ui/charts/chart-format';
-import type { ReachAnalysis } from './reach-envelopes';
+import type { ReachAnalysis } from '../core/analysis/reach-envelopes';
 
 /** Where one technique's reach stands on the Player file. */
 export type TechniqueReach =

@@ -1,7 +1,7 @@
 import { inject } from '@angular/core';
 import { CanMatchFn, Router } from '@angular/router';
 import { STAFF_ROLES, type Role } from '../../../shared/roles';
-import { AuthSession } from '../core/auth-session';
+import { AuthSession } from '../core/auth/auth-session';
 
 /** Who may open the Flight sandbox: club staff and players (it computes locally and reads no one's data). */
 export const SANDBOX_ROLES: readonly Role[] = [...STAFF_ROLES, 'player'];

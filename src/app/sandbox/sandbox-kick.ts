@@ -4,7 +4,16 @@
  * results table shows for a computed flight. Pure functions, no Angular, so they are tested directly.
  */
 
-import { BALL_SIZES, GOAL_HEIGHT_M, GOAL_WIDTH_M, LIMITS, WALL_DISTANCE_M, type Flight, type KickInput } from '../../../shared/flight';
+import {
+  BALL_SIZES,
+  COACH_WIND_HEIGHT_M,
+  GOAL_HEIGHT_M,
+  GOAL_WIDTH_M,
+  LIMITS,
+  WALL_DISTANCE_M,
+  type Flight,
+  type KickInput,
+} from '../../../shared/flight';
 
 /** Ball sizes a club trains with (IFAB Laws of the Game, Law 2 for size 5; 3 and 4 common practice). */
 export type SandboxBallSize = 3 | 4 | 5;
@@ -19,6 +28,7 @@ export interface SandboxKick {
   backspinRps: number;
   /** + = curls left. */
   sidespinRps: number;
+  /** Wind as a coach would judge it, at head height (COACH_WIND_HEIGHT_M); the model scales it to the ball's height. */
   windSpeedMs: number;
   /** Where the wind comes from: 0 = from the target (headwind), 90 = from the left, 180 = tailwind. */
   windFromDeg: number;
@@ -91,7 +101,17 @@ export const LAUNCH_FIELDS: readonly FieldSpec<SandboxNumberField>[] = [
 
 /** Conditions fields in screen order. */
 export const CONDITION_FIELDS: readonly FieldSpec<SandboxNumberField>[] = [
-  { key: 'windSpeedMs', label: 'Wind', unit: 'm/s', sliderMin: 0, sliderMax: 15, min: 0, max: LIMITS.windSpeedMs[1], step: 0.5 },
+  {
+    key: 'windSpeedMs',
+    label: 'Wind',
+    unit: 'm/s',
+    sliderMin: 0,
+    sliderMax: 15,
+    min: 0,
+    max: LIMITS.windSpeedMs[1],
+    step: 0.5,
+    hint: 'as felt at head height; weaker near the grass',
+  },
   {
     key: 'windFromDeg',
     label: 'Wind from',
@@ -178,7 +198,7 @@ export function toKickInput(kick: SandboxKick, goalDistanceM: number): KickInput
     sidespinRps: kick.sidespinRps,
     ball: { massKg: ball.massKg, radiusM: ball.radiusM },
     air: { temperatureC: kick.temperatureC, altitudeM: kick.altitudeM, relativeHumidityPct: kick.humidityPct },
-    wind: { speedMs: kick.windSpeedMs, fromDeg: kick.windFromDeg },
+    wind: { speedMs: kick.windSpeedMs, fromDeg: kick.windFromDeg, referenceHeightM: COACH_WIND_HEIGHT_M },
     planes: [WALL_DISTANCE_M, goalDistanceM],
     path: true,
   };

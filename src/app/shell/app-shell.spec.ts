@@ -13,12 +13,12 @@ import { MatToolbarHarness } from '@angular/material/toolbar/testing';
 import { Router, provideRouter } from '@angular/router';
 import { of } from 'rxjs';
 import type { SessionUser } from '../../../shared/schemas/auth';
-import { AuthSession, SESSION_STORAGE_KEY } from '../core/auth-session';
+import { AuthSession, SESSION_STORAGE_KEY } from '../core/auth/auth-session';
 import { BROWSER_STORAGE, MemoryStorage } from '../core/browser-storage';
 import { LOFTLINE_DB, type LoftlineDb } from '../core/loftline-db';
 import { NAV_ITEMS, navItemsFor } from '../core/nav-items';
 import { freshDb, until } from '../core/spec-support';
-import { SyncQueue } from '../core/sync-queue';
+import { SyncQueue } from '../core/sync/sync-queue';
 import { THEME_STORAGE_KEY } from '../core/theme-preference';
 import { AppShell } from './app-shell';
 

@@ -11,7 +11,7 @@ export function loadLine(player: Pick<SquadWeekPlayer, 'displayName' | 'loadFlag
 }
 
 /**
- * The kicking-load caution of Squad week (DESIGN §10): which players passed the club's repetition
+ * The kicking-load caution of Squad week (docs/design.md §10): which players passed the club's repetition
  * limit in a session this week. Repeated hard kicking strains hips and groin; Loftline only counts,
  * and leaves rest and load to the club's medical staff.
  */

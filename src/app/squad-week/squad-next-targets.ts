@@ -3,7 +3,7 @@ import { Observable, catchError, concat, from, map, mergeMap, of, scan, startWit
 import type { ProfileEntry } from '../../../shared/schemas/analysis';
 import type { Technique } from '../../../shared/schemas/sync';
 import { describeApiError } from '../core/api-error';
-import { ReachEnvelopes } from '../player-file/reach-envelopes';
+import { ReachEnvelopes } from '../core/analysis/reach-envelopes';
 import { SquadWeekApi } from './squad-week-api';
 import type { NextTargetState, NextTargets } from './squad-week-rows';
 

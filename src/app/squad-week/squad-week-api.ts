@@ -4,9 +4,9 @@ import { Observable, throwError } from 'rxjs';
 import type { CarryBasis, SquadProfilesResponse, SquadWeek } from '../../../shared/schemas/analysis';
 import type { SquadSummary } from '../../../shared/schemas/squads';
 import type { Technique } from '../../../shared/schemas/sync';
-import { AuthSession } from '../core/auth-session';
+import { AuthSession } from '../core/auth/auth-session';
 import { SquadApi } from '../core/squad-api';
-import { ANSWER_STORE, type Answer, type AnswerKind, cachedAnswer } from '../player-file/cached-answer';
+import { ANSWER_STORE, type Answer, type AnswerKind, cachedAnswer } from '../core/analysis/cached-answer';
 
 const ISO_DATE = /^\d{4}-\d{2}-\d{2}$/;
 

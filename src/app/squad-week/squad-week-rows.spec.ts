@@ -1,5 +1,6 @@
-import { FIXTURE_IDS, fixtureWeek } from '../player-file/analysis-spec-fixtures';
+import { PROFILE_WARNING_TEXT } from '../../../shared/flight';
 import { toCsv } from '../../../shared/csv';
+import { FIXTURE_IDS, fixtureWeek } from '../core/analysis/spec-fixtures';
 import { busiestTechniqueOfWeek, changeMark, csvFileName, squadRows, squadWeekCsv } from './squad-week-rows';
 
 describe('Squad week rows', () => {
@@ -22,6 +23,14 @@ describe('Squad week rows', () => {
     expect(rows[2]!.techniqueHitRate).toBeNull();
     expect(rows[2]!.next).toEqual({ status: 'unavailable', reason: 'no repetitions' });
     expect(squadRows(fixtureWeek(), 'driven', next)[0]!.techniqueReps).toBe(0);
+  });
+
+  it('turns the profile’s warning codes into plain words beside the reach', () => {
+    const week = fixtureWeek();
+    week.players[0]!.reach[0]!.warnings = ['few_repetitions', 'reach_beyond_drilled'];
+    const rows = squadRows(week, 'lofted', next);
+    expect(rows[0]!.reachWarnings).toEqual([PROFILE_WARNING_TEXT.few_repetitions, PROFILE_WARNING_TEXT.reach_beyond_drilled]);
+    expect(rows[1]!.reachWarnings).toEqual([]);
   });
 
   it('words week-on-week change in whole points', () => {

@@ -1,7 +1,8 @@
+import { PROFILE_WARNING_TEXT } from '../../../shared/flight';
 import type { CarryBasis, SquadWeek, SquadWeekPlayer } from '../../../shared/schemas/analysis';
 import type { Technique } from '../../../shared/schemas/sync';
-import type { NextTargetResult } from '../player-file/next-target';
-import { TECHNIQUE_LABELS } from '../ui/charts/kick-labels';
+import type { NextTargetResult } from '../core/analysis/next-target';
+import { TECHNIQUE_LABELS } from '../../../shared/vocabulary';
 import { toCsv, type CsvCell } from '../../../shared/csv';
 
 /** Where a player's next target for the chosen technique stands. */
@@ -33,6 +34,8 @@ export interface SquadRow {
   readonly reachRadiusM: number | null;
   readonly reachRepetitions: number;
   readonly reachPending: boolean;
+  /** Plain words of the profile's warnings (what a coach should know before trusting the reach). */
+  readonly reachWarnings: readonly string[];
   readonly next: NextTargetState;
   /** Sessions this week in which the player passed the club's repetition limit. */
   readonly loadFlags: number;
@@ -83,6 +86,7 @@ function row(p: SquadWeekPlayer, technique: Technique, next: NextTargetState): S
     reachRadiusM: reach?.reachRadiusM ?? null,
     reachRepetitions: reach?.repetitions ?? 0,
     reachPending: reach?.pending ?? false,
+    reachWarnings: (reach?.warnings ?? []).map((w) => PROFILE_WARNING_TEXT[w]),
     next,
     loadFlags: p.loadFlags.length,
   };

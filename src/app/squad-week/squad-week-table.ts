@@ -11,8 +11,8 @@ import { MatTooltipModule } from '@angular/material/tooltip';
 import { RouterLink } from '@angular/router';
 import type { CarryBasis } from '../../../shared/schemas/analysis';
 import type { Technique } from '../../../shared/schemas/sync';
-import { describeNextTarget, drillLink } from '../player-file/next-target';
-import { TECHNIQUE_LABELS } from '../ui/charts/kick-labels';
+import { describeNextTarget, drillLink } from '../core/analysis/next-target';
+import { TECHNIQUE_LABELS } from '../../../shared/vocabulary';
 import { type SquadRow, changeMark, csvFileName, squadWeekCsv } from './squad-week-rows';
 import { TextDownload } from './text-download';
 

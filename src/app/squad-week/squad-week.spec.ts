@@ -14,8 +14,8 @@ import { RouterTestingHarness } from '@angular/router/testing';
 import type { CarryBasis } from '../../../shared/schemas/analysis';
 import { BROWSER_STORAGE } from '../core/browser-storage';
 import { signedInStorage, until } from '../core/spec-support';
-import { FIXTURE_IDS, FIXTURE_SQUAD, fixtureProfile, fixtureUser, fixtureWeek, profileEntry } from '../player-file/analysis-spec-fixtures';
-import { ANSWER_STORE, MemoryAnswerStore } from '../player-file/cached-answer';
+import { FIXTURE_IDS, FIXTURE_SQUAD, fixtureProfile, fixtureUser, fixtureWeek, profileEntry } from '../core/analysis/spec-fixtures';
+import { ANSWER_STORE, MemoryAnswerStore } from '../core/analysis/cached-answer';
 import { SquadWeek } from './squad-week';
 import { TextDownload } from './text-download';
 import { REVIEW_CLOCK } from './week-dates';
@@ -138,7 +138,7 @@ describe('SquadWeek', () => {
   it('suggests next targets with one tap into Pitchside', async () => {
     await open();
     await answerSquadAndWeek();
-    await until('next targets', () => count('a[href^="/pitchside"]') === 2, 15000);
+    await until('next targets', () => count('a[href^="/pitchside"]') === 2, 25000);
     const link = new URL((harness.fixture.nativeElement as HTMLElement).querySelector<HTMLAnchorElement>('a[href^="/pitchside"]')!.href);
     expect(link.searchParams.get('drillTechnique')).toBe('lofted');
     expect(link.searchParams.get('drillRadiusM')).toBe('3');
@@ -159,7 +159,7 @@ describe('SquadWeek', () => {
     await harness.fixture.whenStable();
     expect(text()).toContain('Lofted still-air carry');
     expect(text()).toContain('normalised through the flight model to still air');
-    await until('next targets', () => count('a[href^="/pitchside"]') === 2, 15000);
+    await until('next targets', () => count('a[href^="/pitchside"]') === 2, 25000);
   });
 
   it('refuses a week in the future and opens the one asked for in the address', async () => {

@@ -1,5 +1,5 @@
-import { DigestRun } from '../admin/digest-run';
-import { AuthSession } from '../core/auth-session';
+import { DigestRun } from '../ui/digest-run';
+import { AuthSession } from '../core/auth/auth-session';
 import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
@@ -13,11 +13,11 @@ import { Subject, combineLatest, of, startWith, switchMap } from 'rxjs';
 import type { Technique } from '../../../shared/schemas/sync';
 import { LOADING, type LoadState } from '../core/load-state';
 import type { SquadWeek as SquadWeekAnswer } from '../../../shared/schemas/analysis';
-import type { Answer } from '../player-file/cached-answer';
-import { oldestCachedAt, readyValue, toAnswerState, updatedLabel } from '../player-file/answer-state';
-import { CarryBasisChoice } from '../player-file/carry-basis-choice';
+import type { Answer } from '../core/analysis/cached-answer';
+import { oldestCachedAt, readyValue, toAnswerState, updatedLabel } from '../core/analysis/answer-state';
+import { CarryBasisChoice } from '../ui/carry-basis-choice';
 import { CalibrationChart, type CalibrationMark } from '../ui/charts/calibration-chart';
-import { TECHNIQUE_LABELS, TECHNIQUE_ORDER, isTechnique } from '../ui/charts/kick-labels';
+import { TECHNIQUES, TECHNIQUE_LABELS, isTechnique } from '../../../shared/vocabulary';
 import { ZoneRateChart } from '../ui/charts/zone-rate-chart';
 import { LoadFailure } from '../ui/load-failure';
 import { LoadCaution } from './load-caution';
@@ -77,7 +77,7 @@ export class SquadWeek {
   readonly technique = input<string | undefined>(undefined);
 
   protected readonly carry = inject(CarryBasisChoice);
-  protected readonly techniques = TECHNIQUE_ORDER;
+  protected readonly techniques = TECHNIQUES;
   protected readonly techniqueLabels = TECHNIQUE_LABELS;
   /** The current ISO week: the latest that can be reviewed. */
   protected readonly latestWeek = mondayOf(inject(REVIEW_CLOCK)());
@@ -155,7 +155,10 @@ export class SquadWeek {
     const reps = marks.reduce((n, m) => n + m.reps, 0);
     const predicted = marks.reduce((n, m) => n + m.predicted * m.reps, 0) / reps;
     const observed = marks.reduce((n, m) => n + m.observed * m.reps, 0) / reps;
-    return `${marks.length} players: predicted ${Math.round(predicted * 100)} % hits on average, observed ${Math.round(observed * 100)} %.`;
+    return (
+      `${marks.length} players, ${reps} repetitions: predicted ${Math.round(predicted * 100)} % hits ` +
+      `(${(predicted * reps).toFixed(1)}), observed ${Math.round(observed * 100)} % (${Math.round(observed * reps)}).`
+    );
   });
 
   protected readonly cacheNote = computed(() => {

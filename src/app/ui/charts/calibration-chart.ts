@@ -85,8 +85,9 @@ export class CalibrationChart {
       id: m.id,
       label: m.label,
       reps: m.reps,
-      predicted: `${Math.round(m.predicted * 100)} %`,
-      observed: `${Math.round(m.observed * 100)} %`,
+      // Counts beside the rates: a 100 % from three kicks is not a 100 % from thirty.
+      predicted: `${Math.round(m.predicted * 100)} % (${(m.predicted * m.reps).toFixed(1)} of ${m.reps})`,
+      observed: `${Math.round(m.observed * 100)} % (${Math.round(m.observed * m.reps)} of ${m.reps})`,
     })),
   );
 

@@ -12,7 +12,7 @@ import { axisBottom, axisLeft, scaleBand, scaleLinear, select } from 'd3';
 import type { Outcome } from '../../../../shared/schemas/sync';
 import { weekLabel } from './chart-format';
 import { drawWidth, injectChartWidth } from './chart-width';
-import { OUTCOME_LABELS, OUTCOME_ORDER } from './kick-labels';
+import { OUTCOMES, OUTCOME_LABELS } from '../../../../shared/vocabulary';
 
 /** One week of outcomes: how many repetitions, and the share (0..1) of each outcome. */
 export interface OutcomeWeek {
@@ -89,7 +89,7 @@ export class OutcomeMixChart {
   /** One sentence read by screen readers in place of the drawing. */
   readonly summary = input.required<string>();
 
-  protected readonly outcomes = OUTCOME_ORDER;
+  protected readonly outcomes = OUTCOMES;
   protected readonly labels = OUTCOME_LABELS;
   private readonly svg = viewChild.required<ElementRef<SVGSVGElement>>('svg');
   private readonly width = injectChartWidth();
@@ -99,7 +99,7 @@ export class OutcomeMixChart {
       weekStart: w.weekStart,
       week: weekLabel(w.weekStart),
       reps: w.reps,
-      cells: OUTCOME_ORDER.map((o) => `${Math.round((w.share[o] ?? 0) * 100)} %`),
+      cells: OUTCOMES.map((o) => `${Math.round((w.share[o] ?? 0) * 100)} %`),
     })),
   );
 
@@ -132,7 +132,7 @@ export class OutcomeMixChart {
     const segments: Segment[] = [];
     for (const w of weeks) {
       let start = 0;
-      for (const outcome of OUTCOME_ORDER) {
+      for (const outcome of OUTCOMES) {
         const share = w.share[outcome] ?? 0;
         if (share > 0) {
           segments.push({ weekStart: w.weekStart, outcome, start, share, reps: w.reps });

@@ -1,0 +1,48 @@
+/**
+ * Wind at the ball's height. A weather service reports wind 10 m above open ground and a coach feels it
+ * at head height, but a driven ball spends its flight within a few metres of the grass, where the wind is
+ * weaker. In the surface layer of a neutral atmosphere the mean wind grows with the logarithm of height:
+ *
+ *   u(z) = u_ref · ln(z / z₀) / ln(z_ref / z₀)
+ *
+ * (the logarithmic wind profile; e.g. Stull 1988, An Introduction to Boundary Layer Meteorology, §9.7).
+ * Near the grass the law diverges, so the height is floored smoothly: z is replaced by √(z² + z_min²),
+ * which equals z well above z_min and tends to z_min at the ground, keeping the right-hand side smooth
+ * for the extrapolation integrator. Stability (sun-warmed or night-cooled ground) bends the profile; a
+ * neutral one is the usual assumption for a windy afternoon (common practice).
+ */
+
+/**
+ * Roughness length of a grass pitch, m: the "open" class (flat terrain, grass, few isolated obstacles) of
+ * the Davenport classification as revised by Wieringa (WMO Guide to Meteorological Instruments, WMO-No. 8,
+ * Annex on roughness; tabulated in Stull's Meteorology for Scientists and Engineers), z₀ = 0.03 m.
+ */
+export const GRASS_ROUGHNESS_LENGTH_M = 0.03;
+
+/**
+ * Height below which the profile is held (smoothly) at its value there, m: ten roughness lengths, below
+ * which the log law no longer describes the flow among the grass and the ball's own wake (common practice).
+ */
+export const WIND_PROFILE_MIN_HEIGHT_M = 10 * GRASS_ROUGHNESS_LENGTH_M;
+
+/** Anemometer height of a weather-service wind, m (WMO-No. 8: standard exposure 10 m above open ground). */
+export const WEATHER_WIND_HEIGHT_M = 10;
+
+/** Height at which a coach's wind estimate applies, m: felt at head height (common practice). */
+export const COACH_WIND_HEIGHT_M = 1.8;
+
+const Z0_SQUARED = GRASS_ROUGHNESS_LENGTH_M * GRASS_ROUGHNESS_LENGTH_M;
+const MIN_HEIGHT_SQUARED = WIND_PROFILE_MIN_HEIGHT_M * WIND_PROFILE_MIN_HEIGHT_M;
+
+/** ln of the floored height over z₀: ½ ln((z² + z_min²)/z₀²). */
+export function logHeightRatio(heightM: number): number {
+  return 0.5 * Math.log((heightM * heightM + MIN_HEIGHT_SQUARED) / Z0_SQUARED);
+}
+
+/**
+ * Factor by which the wind at `referenceHeightM` is multiplied at `heightM` above the grass (1 at the
+ * reference height itself).
+ */
+export function windHeightFactor(heightM: number, referenceHeightM: number): number {
+  return logHeightRatio(heightM) / logHeightRatio(referenceHeightM);
+}
