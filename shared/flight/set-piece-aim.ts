@@ -26,7 +26,7 @@ import { GOAL_HEIGHT_M, GOAL_WIDTH_M } from './constants';
 import { DEFAULT_SOLVER_SETTINGS, integrateFlight, type VerticalPlane } from './integrate';
 import { buildModel, type resolveConditions } from './model';
 import type { KickProfile } from './profile-types';
-import { drawLaunchNoise, predictiveSpeedLogSd, type LaunchNoise, type SampledLaunch } from './sampling';
+import { drawLaunchNoise, predictiveSpeedLogSd, speedCapOf, type LaunchNoise, type SampledLaunch } from './sampling';
 import type { Technique } from './types';
 
 const DEG = Math.PI / 180;
@@ -145,16 +145,17 @@ function clamp(v: number, lo: number, hi: number): number {
 
 /**
  * The launches a player delivers when intending `kick`: speed as the aimed-speed model has it (intended,
- * capped smoothly by the drawn ceiling, times the fitted offset and spread), the aim-off plus their aim
- * bias and spread, and elevation and spins scattered by their spreads around the intended values.
+ * capped smoothly by the sample's ceiling from its one-sided posterior, times the fitted offset and spread,
+ * never beyond the physiological cap), the aim-off plus their aim bias and spread, and elevation and spins
+ * scattered by the profile's spreads (the launch uncertainty of the fit) around the intended values.
  */
 export function deliveredLaunches(p: KickProfile, kick: IntendedKick, noises: readonly LaunchNoise[]): SampledLaunch[] {
   const a = p.aimedSpeed;
   const sdLog = predictiveSpeedLogSd(p);
   const lnIntended = Math.log(kick.speedMs);
+  const lnCap = Math.log(Math.min(MAX_SPEED_MS, speedCapOf(p)));
   return noises.map((n) => {
-    const lnCeiling = Math.log(a.ceilingMs) + a.ceilingLogSe * n.zCeiling;
-    const lnSpeed = Math.min(Math.log(MAX_SPEED_MS), softMinLog(lnIntended, lnCeiling) + a.offsetLogMean + sdLog * n.zSpeed);
+    const lnSpeed = Math.min(lnCap, softMinLog(lnIntended, n.lnCeiling) + a.offsetLogMean + sdLog * n.zSpeed);
     return {
       speed: Math.exp(lnSpeed),
       elevationDeg: clamp(kick.elevationDeg + (n.launch.elevationDeg - p.elevationDeg), 0.5, 89.5),
@@ -189,7 +190,7 @@ class ChoiceSearch {
     private readonly noises: readonly LaunchNoise[],
   ) {
     this.r = scene.conditions.radiusM;
-    this.lnCeiling = Math.log(Math.min(MAX_SPEED_MS, p.aimedSpeed.ceilingMs));
+    this.lnCeiling = Math.log(Math.min(MAX_SPEED_MS, speedCapOf(p), p.aimedSpeed.ceilingMs));
   }
 
   /** Fly the noise-free intended ball (azimuth `aimOffDeg`). */

@@ -30,10 +30,13 @@ describe('set pieces aimed for the kick at hand', () => {
   it('gives players with the same perfect record nearly the same share whatever distance they drilled at', () => {
     // First principles: skill, not drill geometry, decides a free kick. Three players 20/20 on 2 m targets at
     // 20, 25 and 30 m; flying each one's usual ball gave 1 %, 82 % and 14 % from the same central 20 m kick.
+    // What remains is what the drills prove: a 2 m target at 20 m bounds the aim spread less tightly than one
+    // at 30 m, and a player who only drilled at 20 m has shown a ceiling of only ~19.4 m/s (profile model 3's
+    // one-sided ceiling), so their share is a few points lower — honestly, not by geometry.
     const shares = byDrill.map((r) => r.shares.onTarget);
-    expect(Math.max(...shares) - Math.min(...shares)).toBeLessThan(0.04);
+    expect(Math.max(...shares) - Math.min(...shares)).toBeLessThan(0.08);
     // A perfect record over a 2 m wall from 20 m should put most of them in.
-    for (const s of shares) expect(s).toBeGreaterThan(0.6);
+    for (const s of shares) expect(s).toBeGreaterThan(0.85);
   });
 
   it('chooses a kick inside the technique’s range and under the player’s ceiling', () => {

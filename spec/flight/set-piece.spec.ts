@@ -62,9 +62,10 @@ describe('setPieceCheck', () => {
       const r = setPieceCheck({ ballX, ballY, aimYM: 0, profile, conditions: {}, samples: 20, seed: 1, kick: intended });
       expect(r.kickChosen).toBeFalse();
       const f = simulateKick({ ...kick, planes: [WALL_DISTANCE_M, along] });
-      expect(r.wallCrossingHeightM!.p10).toBeCloseTo(f.crossings[0]!.z, 9);
-      expect(r.wallCrossingHeightM!.p90).toBeCloseTo(f.crossings[0]!.z, 9);
-      expect(r.goalCrossingHeightM!.p50).toBeCloseTo(f.crossings[1]!.z + radius, 9);
+      // To a micrometre: the smooth cap at the 35 m/s physiological cap takes ~4e-6 % off a 24 m/s ball.
+      expect(r.wallCrossingHeightM!.p10).toBeCloseTo(f.crossings[0]!.z, 5);
+      expect(r.wallCrossingHeightM!.p90).toBeCloseTo(f.crossings[0]!.z, 5);
+      expect(r.goalCrossingHeightM!.p50).toBeCloseTo(f.crossings[1]!.z + radius, 5);
     }
   });
 

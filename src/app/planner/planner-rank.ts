@@ -3,7 +3,7 @@
  * the keys under which profiles and results are kept offline. No Angular, so each is tested directly.
  */
 
-import { WALL_DISTANCE_M, type SetPieceShares, type Technique } from '../../../shared/flight';
+import { PROFILE_WARNING_TEXT, WALL_DISTANCE_M, type SetPieceShares, type Technique } from '../../../shared/flight';
 import type { SquadProfilesResponse } from '../../../shared/schemas/analysis';
 import type { AimLineFlight, SetPieceCloudResult, SetPieceRankEntry } from '../flight/set-piece-rank';
 import { DEFAULT_PITCH, type PitchPoint } from '../ui/pitch-markings';
@@ -78,6 +78,8 @@ export interface RankedPlayer {
   readonly shares: SetPieceShares | null;
   readonly result: SetPieceCloudResult | null;
   readonly meanKick: AimLineFlight | null;
+  /** The profile's warnings in plain words (thin or contradictory data), shown beside the player's share. */
+  readonly warnings: readonly string[];
 }
 
 /**
@@ -98,6 +100,7 @@ export function rankSetPiece(profiles: SquadProfilesResponse, entries: readonly 
       shares: entry?.result.shares ?? null,
       result: entry?.result ?? null,
       meanKick: entry?.meanKick ?? null,
+      warnings: (p.profile?.warnings ?? []).map((code) => PROFILE_WARNING_TEXT[code] ?? code),
     };
   });
   const byName = (a: { displayName: string }, b: { displayName: string }): number => a.displayName.localeCompare(b.displayName);
