@@ -7,14 +7,19 @@
  */
 
 /**
- * C0 controls other than tab and line breaks (a quoted CSV field may hold those, and they display as what
- * they are), C1 controls, the bidi embeddings and overrides (U+202A–U+202E) and isolates (U+2066–U+2069).
+ * Whether a code point may not appear in a name: C0 controls other than tab and line breaks (a quoted
+ * CSV field may hold those, and they display as what they are), DEL and the C1 controls, the bidi
+ * embeddings and overrides (U+202A–U+202E) and isolates (U+2066–U+2069).
  */
-const UNSAFE_IN_NAMES = /[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f-\u009f\u202a-\u202e\u2066-\u2069]/;
+function unsafeInName(code: number): boolean {
+  if (code === 0x09 || code === 0x0a || code === 0x0d) return false;
+  return code <= 0x1f || (code >= 0x7f && code <= 0x9f) || (code >= 0x202a && code <= 0x202e) || (code >= 0x2066 && code <= 0x2069);
+}
 
 /** Whether a name holds a control or bidi-override character. */
 export function hasUnsafeNameCharacters(name: string): boolean {
-  return UNSAFE_IN_NAMES.test(name);
+  for (let i = 0; i < name.length; i++) if (unsafeInName(name.charCodeAt(i))) return true;
+  return false;
 }
 
 /** The message for a refused name. */
