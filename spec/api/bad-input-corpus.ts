@@ -681,6 +681,41 @@ export function buildMutationCorpus(c: CorpusContext): MutationCase[] {
       mutation: envelope({ ...drill, id: randomUUID(), label: HUGE }, 'drill'),
       field: 'data.label',
     },
+    // Issue 15: the flight model's domain, unknown fields, unknown condition keys, dates out of bounds.
+    ...(
+      [
+        ['carryM', 0],
+        ['measuredSpeedMs', 0],
+        ['launchAngleDeg', 0],
+        ['launchAngleDeg', -8],
+        ['lateralM', 61],
+        ['measuredSpinRps', -1],
+      ] as const
+    ).map(([field, value]) => ({
+      label: `kick: ${field} ${value}, outside the model's domain`,
+      mutation: envelope({ ...kick, id: randomUUID(), [field]: value }, 'kick'),
+      field: `data.${field}`,
+    })),
+    {
+      label: 'kick: an unknown field',
+      mutation: envelope({ ...kick, id: randomUUID(), carryMeters: 30 }, 'kick'),
+      field: 'data.carryMeters',
+    },
+    {
+      label: 'kick: recorded in the year 0000',
+      mutation: envelope({ ...kick, id: randomUUID(), recordedAt: '0000-01-01T00:00:00Z' }, 'kick'),
+      field: 'data.recordedAt',
+    },
+    {
+      label: 'session: conditionsSource with an unknown key',
+      mutation: envelope({ ...session, id: randomUUID(), conditionsSource: { junk: 'coach' } }, 'training_session'),
+      field: 'data.conditionsSource.junk',
+    },
+    {
+      label: 'session: ends in the year 9999',
+      mutation: envelope({ ...session, id: randomUUID(), endedAt: '9999-12-31T23:59:59Z' }, 'training_session'),
+      field: 'data.endedAt',
+    },
   );
   return out;
 }
