@@ -21,6 +21,7 @@ import { guardiansRouter } from './guardians/guardians.router';
 import { devMailRouter } from './mail/dev-mail.router';
 import { erasureRouter } from './exports/erasure.router';
 import { exportsRouter } from './exports/exports.router';
+import { ImportRunner } from './imports/import-runner';
 import { importsRouter } from './imports/imports.router';
 import { Mailer } from './mail/mailer';
 import { AuthService } from './auth/auth.service';
@@ -29,6 +30,7 @@ import { authRouter } from './auth/auth.router';
 import { createAuthMiddleware } from './auth/passport';
 import type { AppConfig } from './config';
 import type { Db } from './db/client';
+import { cachedStatement } from './db/statements';
 import { errorMiddleware, NotFound } from './errors';
 import { refuseUnsafeJson } from './json-guard';
 import { redactRequest } from './logger';
@@ -48,8 +50,10 @@ export interface AppDeps {
   profiles?: ProfileCache;
   /** Outgoing mail; without one, mail is queued in the outbox but not sent. */
   mailer?: Mailer;
-  /** Whether the local fake SMTP server is the transport (enables `/api/dev/mail`). */
+  /** Whether the local fake SMTP server is the transport (enables `/api/dev/mail`, never in production). */
   devMail?: boolean;
+  /** Runs imports on a worker thread; created here when not given (the server passes one it closes). */
+  imports?: ImportRunner;
   /** The digest job (the server passes the one its scheduler uses). */
   digests?: DigestJob;
   /**
@@ -87,7 +91,7 @@ export function createApp(deps: AppDeps): Express {
   );
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  app.set('trust proxy', config.trustProxy);
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -115,8 +119,18 @@ export function createApp(deps: AppDeps): Express {
     next();
   });
   api.use(express.json({ limit: JSON_BODY_LIMIT }), refuseUnsafeJson);
+  // Liveness: the process answers. Readiness: it can also read the database (a load balancer routes to it).
   api.get('/health', (_req, res) => {
     res.json({ ok: true });
+  });
+  api.get('/ready', (req, res) => {
+    try {
+      cachedStatement(db.$client, 'SELECT COUNT(*) AS n FROM change_counter').get();
+      res.json({ ready: true });
+    } catch (err) {
+      req.log.error({ err }, 'not ready: the database cannot be read');
+      res.status(503).json({ ready: false, error: { code: 'database_unavailable', message: 'The database cannot be read' } });
+    }
   });
   const auth = new AuthService(db, config);
   const accounts = new AccountsService(db, config, mailer);
@@ -134,10 +148,11 @@ export function createApp(deps: AppDeps): Express {
   api.use('/guardians', guardiansRouter(new GuardiansService(db)));
   api.use('/admin/players', erasureRouter(db));
   api.use('/admin', adminRouter(db, accounts));
-  api.use('/imports', importsRouter(db));
+  api.use('/imports', importsRouter(deps.imports ?? new ImportRunner(db, config.dbPath)));
   api.use('/exports', exportsRouter(db));
   api.use('/digests', digestsRouter(digests));
-  if (deps.devMail) api.use('/dev/mail', devMailRouter(db));
+  // Captured mail holds sign-in links: the viewer exists only outside production, whatever the caller asks.
+  if (deps.devMail && config.env !== 'production') api.use('/dev/mail', devMailRouter(db));
   api.use(() => {
     throw new NotFound('No such API route');
   });

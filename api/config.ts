@@ -26,7 +26,31 @@ const envSchema = z.object({
     .optional(),
   WEATHER_API_KEY: z.string().min(1).optional(),
   LOFTLINE_WEATHER_FAKE_PORT: z.coerce.number().int().min(0).max(65535).default(0),
+  LOFTLINE_TRUST_PROXY: z
+    .string()
+    .trim()
+    .min(1)
+    .refine((v) => trustProxyOf(v) !== undefined, {
+      error: 'must be true, false, a number of proxy hops, or a comma-separated list of addresses/subnets (e.g. loopback, 10.0.0.0/8)',
+    })
+    .default('loopback'),
 });
+
+/** Express's named subnets and an IPv4/IPv6 address with an optional prefix length. */
+const PROXY_ADDRESS = /^(loopback|linklocal|uniquelocal|[0-9a-f.:]+(\/\d{1,3})?)$/i;
+
+/**
+ * Reads `LOFTLINE_TRUST_PROXY` into Express's `trust proxy` setting: `true`/`false`, a hop count, or a list
+ * of trusted proxy addresses. Undefined when the text is none of these.
+ */
+export function trustProxyOf(text: string): boolean | number | string[] | undefined {
+  const v = text.trim().toLowerCase();
+  if (v === 'true') return true;
+  if (v === 'false') return false;
+  if (/^\d{1,2}$/.test(v)) return Number(v);
+  const list = v.split(',').map((p) => p.trim());
+  return list.length > 0 && list.every((p) => PROXY_ADDRESS.test(p)) ? list : undefined;
+}
 
 /** The server's validated configuration. */
 export interface AppConfig {
@@ -74,6 +98,12 @@ export interface AppConfig {
   weatherApiKey: string | null;
   /** Loopback port of the local fake weather service (0 = any free port). */
   weatherFakePort: number;
+  /**
+   * Express's `trust proxy`: which hops in front of the server may set `X-Forwarded-For` (the client
+   * address used by the sign-in throttles). Default `['loopback']`, a reverse proxy on the same machine;
+   * behind a load balancer set its address or hop count, never `true` on a server reachable directly.
+   */
+  trustProxy: boolean | number | string[];
   /** How long the server waits for the service before answering "unavailable" (never blocks a session start). */
   weatherTimeoutMs: number;
   /** How long one answer is reused for the same ground. */
@@ -127,6 +157,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Part
     weatherOff: e.WEATHER_URL === 'off',
     weatherApiKey: e.WEATHER_API_KEY ?? null,
     weatherFakePort: e.LOFTLINE_WEATHER_FAKE_PORT,
+    trustProxy: trustProxyOf(e.LOFTLINE_TRUST_PROXY) ?? ['loopback'],
     weatherTimeoutMs: 2000,
     weatherCacheTtlS: 10 * 60,
     ...overrides,

@@ -137,7 +137,8 @@ export const errorMiddleware: ErrorRequestHandler = (err: unknown, req, res, _ne
     return;
   }
   if (bp && bp.type === 'entity.too.large') {
-    res.status(400).json({
+    // 413 Content Too Large (RFC 9110 §15.5.14): the status a proxy in front would send for the same body.
+    res.status(413).json({
       error: {
         code: 'body_too_large',
         message: `The request body is larger than the ${bp.limit ?? ''} byte limit`.replace('  ', ' '),

@@ -1,8 +1,9 @@
 /**
- * Starts Loftline: opens and migrates the database, loads the demo scenario into an empty
- * one, starts the local fake mail and weather servers (when no real ones are configured) and listens.
+ * Starts Loftline: claims its port, opens and migrates the database, loads the demo scenario into an
+ * empty one (never in production), starts the local fake mail and weather servers (outside production,
+ * when no real ones are configured) and the background jobs, then serves.
  */
-import type { Server } from 'node:http';
+import { createServer, type RequestListener, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { isDatabaseEmpty, seedDemo } from '../seed/scenario';
 import { backfillStillAirCarry, StillAirRefresher } from './analysis/still-air';
@@ -14,6 +15,7 @@ import { createLogger } from './logger';
 import { scheduleDigests } from './digests/scheduler';
 import { DigestJob } from './digests/digests.service';
 import { startFakeSmtp, type FakeSmtp } from './mail/fake-smtp';
+import { ImportRunner } from './imports/import-runner';
 import { Mailer } from './mail/mailer';
 import { startFakeWeather, type FakeWeather } from './weather/fake-weather';
 import { OpenMeteoClient } from './weather/open-meteo-client';
@@ -33,17 +35,84 @@ export interface RunningServer {
 
 /** Options for `startServer`. */
 export interface StartOptions {
-  /** Whether to load the demo scenario when the database is empty (default true). */
+  /** Whether to load the demo scenario when the database is empty (default true; never in production). */
   seedIfEmpty?: boolean;
 }
 
-/** Starts the whole server on `config.port`. */
+/** The port (or address and port) is taken by another process; the message is what the operator reads. */
+export class PortInUseError extends Error {
+  constructor(
+    readonly port: number,
+    host: string | null,
+  ) {
+    super(`port ${port} is already in use${host ? ` on ${host}` : ''}: stop the other process or set PORT to a free port`);
+  }
+}
+
+/**
+ * Claims the port before anything else happens: a second server started by mistake on a busy port says so
+ * and stops without having touched the database. Requests that arrive while start-up continues wait for
+ * the app (`attach`).
+ */
+async function listenFirst(config: AppConfig): Promise<{ server: Server; attach(app: RequestListener): void; fail(err: unknown): void }> {
+  let deliver!: (app: RequestListener) => void;
+  let refuse!: (err: unknown) => void;
+  const ready = new Promise<RequestListener>((done, reject) => {
+    deliver = done;
+    refuse = reject;
+  });
+  // Only the server's own handler waits: a failed start-up closes the server and the process exits.
+  ready.catch(() => undefined);
+  const server = createServer((req, res) => {
+    void ready.then(
+      (app) => app(req, res),
+      () => res.destroy(),
+    );
+  });
+  await new Promise<void>((done, reject) => {
+    server.once('error', (err: NodeJS.ErrnoException) =>
+      reject(err.code === 'EADDRINUSE' ? new PortInUseError(config.port, config.host) : err),
+    );
+    if (config.host) server.listen(config.port, config.host, () => done());
+    else server.listen(config.port, () => done());
+  });
+  return { server, attach: deliver, fail: refuse };
+}
+
+/**
+ * Starts the whole server on `config.port`: listens first (see `listenFirst`), then opens the database and
+ * starts the background work.
+ */
 export async function startServer(config: AppConfig, options: StartOptions = {}): Promise<RunningServer> {
+  const { server, attach, fail } = await listenFirst(config);
+  try {
+    return await startOn(server, attach, config, options);
+  } catch (err) {
+    fail(err);
+    await new Promise<void>((done) => server.close(() => done()));
+    throw err;
+  }
+}
+
+async function startOn(
+  server: Server,
+  attach: (app: RequestListener) => void,
+  config: AppConfig,
+  options: StartOptions,
+): Promise<RunningServer> {
   const logger = createLogger(config);
   const db = openDatabase(config.dbPath);
-  if ((options.seedIfEmpty ?? true) && isDatabaseEmpty(db)) {
-    const summary = seedDemo(db);
-    logger.info({ summary }, 'loaded the demo scenario into the empty database');
+  if (isDatabaseEmpty(db)) {
+    // The demo's accounts share a published password: a production server never loads them.
+    if (config.env === 'production') {
+      logger.warn(
+        'the database has no club yet: create the first club and its administrator with ' +
+          'npm run club:create -- --name "<club>" --admin <e-mail> (it prints a one-time link to set a password)',
+      );
+    } else if (options.seedIfEmpty ?? true) {
+      const summary = seedDemo(db);
+      logger.info({ summary }, 'loaded the demo scenario into the empty database');
+    }
   }
   const normalised = backfillStillAirCarry(db);
   if (normalised) logger.info({ kicks: normalised }, 'normalised logged carries to still air');
@@ -52,7 +121,14 @@ export async function startServer(config: AppConfig, options: StartOptions = {})
   const profiles = new ProfileCache(db, config.dbPath);
   profiles.start();
   let smtp: FakeSmtp | null = null;
-  if (!config.smtpUrl) {
+  if (!config.smtpUrl && config.env === 'production') {
+    // Captured mail is readable in the app: a production server never captures; mail waits for SMTP_URL.
+    const warning =
+      'NO SMTP_URL IN PRODUCTION: no mail is sent. Invitations, password resets and digests wait in the outbox ' +
+      '(mail_outbox) and go out once SMTP_URL names a mail server and the server restarts.';
+    logger.error(warning);
+    console.error(`\n*** ${warning} ***\n`);
+  } else if (!config.smtpUrl) {
     try {
       smtp = await startFakeSmtp(db, config.smtpPort);
       logger.info(
@@ -82,11 +158,9 @@ export async function startServer(config: AppConfig, options: StartOptions = {})
   }
   const weatherUrl = config.weatherUrl ?? fakeWeather?.url ?? null;
   const weather = weatherUrl ? new OpenMeteoClient(weatherUrl, { apiKey: config.weatherApiKey, timeoutMs: config.weatherTimeoutMs }) : null;
-  const app = createApp({ db, config, logger, profiles, mailer, digests, devMail: smtp !== null, weather });
-  const server: Server = await new Promise((resolveServer, reject) => {
-    const s = config.host ? app.listen(config.port, config.host, () => resolveServer(s)) : app.listen(config.port, () => resolveServer(s));
-    s.once('error', reject);
-  });
+  const imports = new ImportRunner(db, config.dbPath);
+  const app = createApp({ db, config, logger, profiles, mailer, digests, devMail: smtp !== null, weather, imports });
+  attach(app);
   // Keep idle connections longer than a load balancer's usual 60 s idle timeout, and longer than any event-loop
   // stall (a write waiting out SQLite's 5 s busy timeout): at Node's default of 5 s such a stall makes the server
   // close kept-alive sockets that already carry the next request, and the client sees a reset instead of an answer.
@@ -106,6 +180,7 @@ export async function startServer(config: AppConfig, options: StartOptions = {})
       clearInterval(retry);
       mailer.close();
       await new Promise<void>((done) => server.close(() => done()));
+      await imports.close();
       await smtp?.close();
       await fakeWeather?.close();
       db.$client.close();

@@ -91,6 +91,13 @@ function main(argv: readonly string[]): number {
   }
   const reset = argv.includes('--reset');
   const config = loadConfig();
+  if (config.env === 'production') {
+    console.error(
+      'NODE_ENV is production: the demo club and its published password are never loaded into a production database. ' +
+        'Create your club with npm run club:create -- --name "<club>" --admin <e-mail>.',
+    );
+    return 1;
+  }
   const dbPath = config.dbPath;
   if (dbPath === ':memory:') {
     console.error('LOFTLINE_DB is ":memory:"; an in-memory database vanishes when this script ends, so there is nothing to seed.');

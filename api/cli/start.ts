@@ -3,7 +3,7 @@
  * than its sources (not with `--api-only`), then starts the server.
  */
 import { ConfigError, loadConfig } from '../config';
-import { startServer } from '../server';
+import { PortInUseError, startServer } from '../server';
 import { buildClient, clientBuildIsStale } from './client-build';
 
 async function main(): Promise<void> {
@@ -11,6 +11,8 @@ async function main(): Promise<void> {
   const config = loadConfig();
   if (!apiOnly && clientBuildIsStale()) buildClient();
   const server = await startServer(config);
+  // A parent process (the test and benchmark harness) that started us with PORT=0 learns the real port here.
+  process.send?.({ loftline: 'listening', port: server.port });
   const stop = (): void => {
     void server.close().then(() => process.exit(0));
   };
@@ -19,6 +21,6 @@ async function main(): Promise<void> {
 }
 
 main().catch((err: unknown) => {
-  console.error(err instanceof ConfigError ? err.message : err);
+  console.error(err instanceof ConfigError || err instanceof PortInUseError ? err.message : err);
   process.exit(1);
 });

@@ -6,13 +6,11 @@ import type { NextFunction, Request, Response } from 'express';
 import { Router } from 'express';
 import multer from 'multer';
 import { requireRole } from '../auth/passport';
-import type { Db } from '../db/client';
 import { HttpError, Invalid } from '../errors';
 import { unsafeJsonPath } from '../json-guard';
 import { scopeOf } from '../scope/scope.middleware';
 import { MAX_UPLOAD_BYTES } from './csv';
-import { importKicks } from './kicks-import.service';
-import { importRoster } from './roster.service';
+import type { ImportRunner } from './import-runner';
 
 const upload = multer({
   storage: multer.memoryStorage(),
@@ -37,9 +35,13 @@ function receiveFile(req: Request, res: Response, next: NextFunction): void {
           ? `The file is larger than ${MAX_UPLOAD_BYTES / 1024 / 1024} MB`
           : `The upload was refused: ${err.message}`;
       return next(
-        new HttpError(400, err.code === 'LIMIT_FILE_SIZE' ? 'file_too_large' : 'upload_invalid', message, [
-          { field: err.field ?? 'file', message },
-        ]),
+        // 413 Content Too Large (RFC 9110 §15.5.14) for a file over the limit, as for any oversized body.
+        new HttpError(
+          err.code === 'LIMIT_FILE_SIZE' ? 413 : 400,
+          err.code === 'LIMIT_FILE_SIZE' ? 'file_too_large' : 'upload_invalid',
+          message,
+          [{ field: err.field ?? 'file', message }],
+        ),
       );
     }
     next(err);
@@ -58,14 +60,14 @@ function dryRunOf(req: Request): boolean {
   throw new Invalid('dryRun must be true or false', [{ field: 'dryRun', message: 'must be true or false' }]);
 }
 
-/** Builds the imports router (behind authentication and scope). */
-export function importsRouter(db: Db): Router {
+/** Builds the imports router (behind authentication and scope); the imports themselves run on `runner`'s worker thread. */
+export function importsRouter(runner: ImportRunner): Router {
   const router = Router();
-  router.post('/roster', requireRole('admin'), receiveFile, (req, res) => {
-    const result = importRoster(db, scopeOf(req).user, fileOf(req), dryRunOf(req));
+  router.post('/roster', requireRole('admin'), receiveFile, async (req, res) => {
+    const result = await runner.roster(scopeOf(req).user, fileOf(req), dryRunOf(req));
     res.status(result.dryRun || result.alreadyImported ? 200 : 201).json(result);
   });
-  router.post('/kicks', requireRole('admin', 'head_coach', 'assistant_coach'), receiveFile, (req, res) => {
+  router.post('/kicks', requireRole('admin', 'head_coach', 'assistant_coach'), receiveFile, async (req, res) => {
     const body = req.body as Record<string, unknown>;
     let mapping: unknown;
     try {
@@ -75,7 +77,7 @@ export function importsRouter(db: Db): Router {
     }
     const unsafe = unsafeJsonPath(mapping);
     if (unsafe) throw new Invalid(`The mapping is refused — ${unsafe.field}: ${unsafe.message}`, [unsafe]);
-    const result = importKicks(db, scopeOf(req), fileOf(req), mapping, dryRunOf(req));
+    const result = await runner.kicks(scopeOf(req).user, fileOf(req), mapping, dryRunOf(req));
     res.status(result.dryRun || result.alreadyImported ? 200 : 201).json(result);
   });
   return router;

@@ -12,7 +12,7 @@ import { DEFAULT_ELEVATION_DEG, SPIN_STEP_RPS, simulateKick, type BackspinStep }
 import { parseLocalDateTime } from '../../shared/dates';
 import { domainWords, inDomain, KICK_DOMAIN, TECHNIQUES, type DomainRange, type Outcome } from '../../shared/schemas/sync';
 import { ballOf } from '../analysis/flight-inputs';
-import { nextChangeSeq, type Db } from '../db/client';
+import { nextChangeSeq, withChangeSeqBlock, type Db } from '../db/client';
 import { cachedStatement } from '../db/statements';
 import { clubs, drills, players, squads, trainingSessions, uploads } from '../db/schema';
 import { Forbidden, Invalid, parseOrThrow } from '../errors';
@@ -128,15 +128,24 @@ export function importKicks(
     const n = Number(decimalComma ? v.replace(',', '.') : v);
     return Number.isFinite(n) ? n : 'bad';
   };
+  // Players by shirt number and by name, built once (the first match wins, as a scan of the roster would).
+  const byShirt = new Map<number, (typeof roster)[number]>();
+  const byName = new Map<string, (typeof roster)[number]>();
+  for (const p of roster) {
+    if (p.shirtNumber !== null && !byShirt.has(p.shirtNumber)) byShirt.set(p.shirtNumber, p);
+    if (!byName.has(p.displayName.toLowerCase())) byName.set(p.displayName.toLowerCase(), p);
+  }
   const errors: RowError[] = [];
   const rows: KickRow[] = [];
   const hash = createHash('sha256').update(file.buffer).update(JSON.stringify(mapping)).digest('hex');
   for (const { row, values } of table.rows) {
-    const err = (col: string, message: string) => errors.push({ row, column: col, message });
+    let rowHasError = false;
+    const err = (col: string, message: string) => {
+      rowHasError = true;
+      errors.push({ row, column: col, message });
+    };
     const who = values[cols.player.toLowerCase()]?.trim() ?? '';
-    const player = /^\d+$/.test(who)
-      ? roster.find((p) => p.shirtNumber === Number(who))
-      : roster.find((p) => p.displayName.toLowerCase() === who.toLowerCase());
+    const player = /^\d+$/.test(who) ? byShirt.get(Number(who)) : byName.get(who.toLowerCase());
     if (!player) err(cols.player, `No player with shirt number or name "${who}" in ${squad.name}`);
     const read = (key: keyof typeof cols, convert: (n: number) => number, range: DomainRange, label: string): number | null => {
       const name = cols[key];
@@ -166,7 +175,7 @@ export function importKicks(
       if (t === null) err(cols.time, 'Time is not a date and time (e.g. 2026-11-30 18:05:10)');
       else recordedAt = t.toISOString();
     }
-    if (!player || errors.some((e) => e.row === row)) continue;
+    if (!player || rowHasError) continue;
     let modelled = carryM;
     if (modelled === null && speedMs !== null) {
       // No carry from the device: fly the measured launch in still ISA air with the flight model.
@@ -232,88 +241,90 @@ export function importKicks(
   const uploadId = randomUUID();
   // IMMEDIATE: wait for the write lock up front rather than fail mid-way when another connection commits first.
   const summary = db.transaction(
-    (): KicksSummary => {
-      const fresh = rows.filter((r) => !existing(r.id));
-      let sessionId: string | null = null;
-      if (fresh.length) {
-        sessionId = naturalKeyId(`session|${hash}`);
-        const startedAt = fresh.map((r) => r.recordedAt).sort()[0]!;
-        const user = scope.user.id;
-        db.insert(trainingSessions)
-          .values({
-            id: sessionId,
-            clubId: squad.clubId,
-            squadId: squad.id,
-            startedAt,
-            ballSize: squad.ballSize,
-            notes: `Imported from ${mapping.device ?? 'a measuring device'} (${file.name})`,
-            recordedBy: user,
-            deviceId: 'import',
-            changeSeq: nextChangeSeq(db),
-          })
-          .run();
-        const drillId = naturalKeyId(`drill|${hash}`);
-        db.insert(drills)
-          .values({
-            id: drillId,
-            clubId: squad.clubId,
-            sessionId,
-            technique: mapping.technique,
-            targetDistanceM: mapping.targetDistanceM,
-            targetRadiusM: mapping.targetRadiusM,
-            label: `Measured ${mapping.technique}`,
-            changeSeq: nextChangeSeq(db),
-          })
-          .run();
-        const insert = cachedStatement(
-          db.$client,
-          `INSERT OR IGNORE INTO kicks (id, club_id, session_id, drill_id, player_id, technique, foot, backspin_step, sidespin_step, target_distance_m, target_radius_m,
+    (): KicksSummary =>
+      // Change sequences handed out from memory, the counter written once: one counter update per kick was most of a big commit.
+      withChangeSeqBlock(db, (): KicksSummary => {
+        const fresh = rows.filter((r) => !existing(r.id));
+        let sessionId: string | null = null;
+        if (fresh.length) {
+          sessionId = naturalKeyId(`session|${hash}`);
+          const startedAt = fresh.map((r) => r.recordedAt).sort()[0]!;
+          const user = scope.user.id;
+          db.insert(trainingSessions)
+            .values({
+              id: sessionId,
+              clubId: squad.clubId,
+              squadId: squad.id,
+              startedAt,
+              ballSize: squad.ballSize,
+              notes: `Imported from ${mapping.device ?? 'a measuring device'} (${file.name})`,
+              recordedBy: user,
+              deviceId: 'import',
+              changeSeq: nextChangeSeq(db),
+            })
+            .run();
+          const drillId = naturalKeyId(`drill|${hash}`);
+          db.insert(drills)
+            .values({
+              id: drillId,
+              clubId: squad.clubId,
+              sessionId,
+              technique: mapping.technique,
+              targetDistanceM: mapping.targetDistanceM,
+              targetRadiusM: mapping.targetRadiusM,
+              label: `Measured ${mapping.technique}`,
+              changeSeq: nextChangeSeq(db),
+            })
+            .run();
+          const insert = cachedStatement(
+            db.$client,
+            `INSERT OR IGNORE INTO kicks (id, club_id, session_id, drill_id, player_id, technique, foot, backspin_step, sidespin_step, target_distance_m, target_radius_m,
            outcome, carry_m, lateral_m, measured_speed_ms, launch_angle_deg, measured_spin_rps, recorded_at, recorded_by, device_id, change_seq)
          VALUES (?, ?, ?, ?, ?, ?, ?, ?, 0, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, 'import', ?)`,
-        );
-        for (const r of fresh) {
-          insert.run(
-            r.id,
-            squad.clubId,
-            sessionId,
-            drillId,
-            r.playerId,
-            mapping.technique,
-            r.foot,
-            r.spinRps === null ? 0 : nearestBackspinStep(r.spinRps),
-            mapping.targetDistanceM,
-            mapping.targetRadiusM,
-            r.outcome,
-            r.carryM,
-            r.lateralM,
-            r.speedMs,
-            r.angleDeg,
-            r.spinRps,
-            r.recordedAt,
-            user,
-            nextChangeSeq(db),
           );
+          for (const r of fresh) {
+            insert.run(
+              r.id,
+              squad.clubId,
+              sessionId,
+              drillId,
+              r.playerId,
+              mapping.technique,
+              r.foot,
+              r.spinRps === null ? 0 : nearestBackspinStep(r.spinRps),
+              mapping.targetDistanceM,
+              mapping.targetRadiusM,
+              r.outcome,
+              r.carryM,
+              r.lateralM,
+              r.speedMs,
+              r.angleDeg,
+              r.spinRps,
+              r.recordedAt,
+              user,
+              nextChangeSeq(db),
+            );
+          }
         }
-      }
-      const s: KicksSummary = { kicksCreated: fresh.length, kicksSkipped: rows.length - fresh.length, sessionId };
-      db.insert(uploads)
-        .values({
-          id: uploadId,
-          clubId: squad.clubId,
-          uploadedBy: scope.user.id,
-          kind: 'measured_kicks',
-          filename: file.name,
-          sizeBytes: file.buffer.length,
-          contentHash: hash,
-          content: file.buffer.toString('utf8'),
-          status: 'committed',
-          committedAt: new Date().toISOString(),
-          summaryJson: JSON.stringify(s),
-        })
-        .run();
-      audit(db, { clubId: squad.clubId, userId: scope.user.id, action: 'import.kicks', entity: 'upload', entityId: uploadId, detail: s });
-      return s;
-    },
+        const s: KicksSummary = { kicksCreated: fresh.length, kicksSkipped: rows.length - fresh.length, sessionId };
+        db.insert(uploads)
+          .values({
+            id: uploadId,
+            clubId: squad.clubId,
+            uploadedBy: scope.user.id,
+            kind: 'measured_kicks',
+            filename: file.name,
+            sizeBytes: file.buffer.length,
+            contentHash: hash,
+            content: file.buffer.toString('utf8'),
+            status: 'committed',
+            committedAt: new Date().toISOString(),
+            summaryJson: JSON.stringify(s),
+          })
+          .run();
+        audit(db, { clubId: squad.clubId, userId: scope.user.id, action: 'import.kicks', entity: 'upload', entityId: uploadId, detail: s });
+        return s;
+      }),
     { behavior: 'immediate' },
   );
   return { dryRun, uploadId, alreadyImported: false, rows: table.rows.length, errors: [], summary };

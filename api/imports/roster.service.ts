@@ -5,11 +5,12 @@
  */
 import { audit } from '../audit';
 import { createHash, randomUUID } from 'node:crypto';
-import { and, eq, isNull } from 'drizzle-orm';
+import { and, eq } from 'drizzle-orm';
+import { cachedStatement } from '../db/statements';
 import * as z from 'zod';
 import type { AuthUser } from '../auth/passport';
 import type { Db } from '../db/client';
-import { guardianLinks, players, squads, uploads, users } from '../db/schema';
+import { squads, uploads } from '../db/schema';
 import { hasUnsafeNameCharacters } from '../../shared/safe-text';
 import { readCsv } from './csv';
 import { ImportInvalid, type ImportResult, type RowError } from './import-types';
@@ -158,49 +159,79 @@ export function importRoster(
   return { dryRun, uploadId, alreadyImported: false, rows: rows.length, errors: [], summary };
 }
 
+/**
+ * What the club already has, read once per import: squads by name and players by squad and name. A
+ * lookup per row without a fitting index made a 50,000-row roster quadratic (minutes of a frozen
+ * server); a map makes it linear.
+ */
+class RosterIndex {
+  readonly squadsByName = new Map<string, string>();
+  readonly squadsByLowerName = new Map<string, string>();
+  private readonly players = new Map<string, string>();
+
+  constructor(db: Db, clubId: string) {
+    for (const q of cachedStatement(db.$client, 'SELECT id, name FROM squads WHERE club_id = ? ORDER BY rowid').all(clubId) as {
+      id: string;
+      name: string;
+    }[]) {
+      if (!this.squadsByName.has(q.name)) this.squadsByName.set(q.name, q.id);
+      if (!this.squadsByLowerName.has(q.name.toLowerCase())) this.squadsByLowerName.set(q.name.toLowerCase(), q.id);
+    }
+    const rows = cachedStatement(
+      db.$client,
+      // An erased player is never matched (and so never brought back): a row with the same name is someone new.
+      'SELECT id, squad_id AS squadId, display_name AS name FROM players WHERE club_id = ? AND erased_at IS NULL ORDER BY rowid',
+    ).all(clubId) as { id: string; squadId: string; name: string }[];
+    for (const p of rows) this.addPlayer(p.squadId, p.name, p.id, false);
+  }
+
+  player(squadId: string, name: string): string | undefined {
+    return this.players.get(`${squadId}\u0000${name}`);
+  }
+
+  addPlayer(squadId: string, name: string, id: string, replace = true): void {
+    const key = `${squadId}\u0000${name}`;
+    if (replace || !this.players.has(key)) this.players.set(key, id);
+  }
+}
+
+/** A guardian account by e-mail (unique index) and whether a guardian is already linked to a player. */
+function accountByEmail(db: Db, email: string): { id: string; clubId: string; role: string } | undefined {
+  return cachedStatement(db.$client, 'SELECT id, club_id AS clubId, role FROM users WHERE email = ?').get(email) as
+    { id: string; clubId: string; role: string } | undefined;
+}
+
+function isLinked(db: Db, guardianUserId: string, playerId: string): boolean {
+  return (
+    cachedStatement(db.$client, 'SELECT 1 FROM guardian_links WHERE guardian_user_id = ? AND player_id = ?').get(
+      guardianUserId,
+      playerId,
+    ) !== undefined
+  );
+}
+
 /** Counts what a commit would do, without writing. */
 function plan(db: Db, clubId: string, rows: RosterRow[]): RosterSummary {
   const s: RosterSummary = { squadsCreated: 0, playersCreated: 0, playersUpdated: 0, guardiansCreated: 0, linksCreated: 0 };
-  const clubSquads = new Map(
-    db
-      .select()
-      .from(squads)
-      .where(eq(squads.clubId, clubId))
-      .all()
-      .map((q) => [q.name.toLowerCase(), q.id]),
-  );
+  const index = new RosterIndex(db, clubId);
   const newSquads = new Set<string>();
   const newGuardians = new Set<string>();
   for (const r of rows) {
-    const squadId = clubSquads.get(r.squad.toLowerCase());
+    const squadId = index.squadsByLowerName.get(r.squad.toLowerCase());
     if (!squadId && !newSquads.has(r.squad.toLowerCase())) {
       newSquads.add(r.squad.toLowerCase());
       s.squadsCreated++;
     }
-    const existing = squadId
-      ? db
-          .select({ id: players.id })
-          .from(players)
-          .where(and(eq(players.squadId, squadId), eq(players.displayName, r.name), isNull(players.erasedAt)))
-          .get()
-      : undefined;
+    const existing = squadId ? index.player(squadId, r.name) : undefined;
     if (existing) s.playersUpdated++;
     else s.playersCreated++;
     for (const e of r.guardianEmails) {
-      const user = db.select({ id: users.id }).from(users).where(eq(users.email, e)).get();
+      const user = accountByEmail(db, e);
       if (!user && !newGuardians.has(e)) {
         newGuardians.add(e);
         s.guardiansCreated++;
       }
-      const linked =
-        user && existing
-          ? db
-              .select()
-              .from(guardianLinks)
-              .where(and(eq(guardianLinks.guardianUserId, user.id), eq(guardianLinks.playerId, existing.id)))
-              .get()
-          : undefined;
-      if (!linked) s.linksCreated++;
+      if (!(user && existing && isLinked(db, user.id, existing))) s.linksCreated++;
     }
   }
   return s;
@@ -209,68 +240,53 @@ function plan(db: Db, clubId: string, rows: RosterRow[]): RosterSummary {
 function apply(db: Db, clubId: string, rows: RosterRow[]): RosterSummary {
   const s: RosterSummary = { squadsCreated: 0, playersCreated: 0, playersUpdated: 0, guardiansCreated: 0, linksCreated: 0 };
   const now = new Date().toISOString();
+  const index = new RosterIndex(db, clubId);
+  const sqlite = db.$client;
+  const updatePlayer = cachedStatement(
+    sqlite,
+    'UPDATE players SET shirt_number = ?, birth_date = ?, dominant_foot = ?, deleted_at = NULL, updated_at = ? WHERE id = ?',
+  );
+  const insertPlayer = cachedStatement(
+    sqlite,
+    'INSERT INTO players (id, club_id, squad_id, display_name, shirt_number, birth_date, dominant_foot) VALUES (?, ?, ?, ?, ?, ?, ?)',
+  );
+  const insertGuardian = cachedStatement(
+    sqlite,
+    "INSERT INTO users (id, club_id, email, display_name, role, password_hash) VALUES (?, ?, ?, ?, 'guardian', NULL)",
+  );
+  const insertLink = cachedStatement(sqlite, 'INSERT INTO guardian_links (id, guardian_user_id, player_id) VALUES (?, ?, ?)');
   for (const r of rows) {
-    let squad = db
-      .select()
-      .from(squads)
-      .where(and(eq(squads.clubId, clubId), eq(squads.name, r.squad)))
-      .get();
-    if (!squad) {
-      const id = randomUUID();
-      db.insert(squads).values({ id, clubId, name: r.squad, ageGroup: r.ageGroup, ballSize: r.ballSize }).run();
-      squad = db.select().from(squads).where(eq(squads.id, id)).get()!;
+    let squadId = index.squadsByName.get(r.squad);
+    if (!squadId) {
+      squadId = randomUUID();
+      db.insert(squads).values({ id: squadId, clubId, name: r.squad, ageGroup: r.ageGroup, ballSize: r.ballSize }).run();
+      index.squadsByName.set(r.squad, squadId);
       s.squadsCreated++;
     }
-    let player = db
-      .select()
-      .from(players)
-      // An erased player is never matched (and so never brought back): a row with the same name is someone new.
-      .where(and(eq(players.squadId, squad.id), eq(players.displayName, r.name), isNull(players.erasedAt)))
-      .get();
-    if (player) {
-      db.update(players)
-        .set({ shirtNumber: r.shirtNumber, birthDate: r.birthDate, dominantFoot: r.foot, deletedAt: null, updatedAt: now })
-        .where(eq(players.id, player.id))
-        .run();
+    let playerId = index.player(squadId, r.name);
+    if (playerId) {
+      updatePlayer.run(r.shirtNumber, r.birthDate, r.foot, now, playerId);
       s.playersUpdated++;
     } else {
-      const id = randomUUID();
-      db.insert(players)
-        .values({
-          id,
-          clubId,
-          squadId: squad.id,
-          displayName: r.name,
-          shirtNumber: r.shirtNumber,
-          birthDate: r.birthDate,
-          dominantFoot: r.foot,
-        })
-        .run();
-      player = db.select().from(players).where(eq(players.id, id)).get()!;
+      playerId = randomUUID();
+      insertPlayer.run(playerId, clubId, squadId, r.name, r.shirtNumber, r.birthDate, r.foot);
+      index.addPlayer(squadId, r.name, playerId);
       s.playersCreated++;
     }
     for (const e of r.guardianEmails) {
-      let user = db.select().from(users).where(eq(users.email, e)).get();
+      let user = accountByEmail(db, e);
       if (user && (user.clubId !== clubId || user.role !== 'guardian')) {
         throw new ImportInvalid(`Row ${r.row}: ${e} belongs to an account that is not a guardian of this club; nothing was imported`, [
           { row: r.row, column: 'guardian_emails', message: `${e} is not a guardian account of this club` },
         ]);
       }
       if (!user) {
-        const id = randomUUID();
-        db.insert(users)
-          .values({ id, clubId, email: e, displayName: e.split('@')[0]!, role: 'guardian', passwordHash: null })
-          .run();
-        user = db.select().from(users).where(eq(users.id, id)).get()!;
+        user = { id: randomUUID(), clubId, role: 'guardian' };
+        insertGuardian.run(user.id, clubId, e, e.split('@')[0]!);
         s.guardiansCreated++;
       }
-      const linked = db
-        .select()
-        .from(guardianLinks)
-        .where(and(eq(guardianLinks.guardianUserId, user.id), eq(guardianLinks.playerId, player.id)))
-        .get();
-      if (!linked) {
-        db.insert(guardianLinks).values({ id: randomUUID(), guardianUserId: user.id, playerId: player.id }).run();
+      if (!isLinked(db, user.id, playerId)) {
+        insertLink.run(randomUUID(), user.id, playerId);
         s.linksCreated++;
       }
     }

@@ -140,7 +140,10 @@ export class AimedSamples {
       DIMS.forEach((d, j) => {
         const h = spread[d];
         if (!(h > 0)) {
-          for (const c of [rhoCoef, angleCoef]) (c[1 + 2 * j]!.push(0), c[2 + 2 * j]!.push(0));
+          for (const c of [rhoCoef, angleCoef]) {
+            c[1 + 2 * j]!.push(0);
+            c[2 + 2 * j]!.push(0);
+          }
           return;
         }
         const at = (sign: number) => {

@@ -60,6 +60,8 @@ export interface HttpCase {
   field?: string;
   /** Whether any 4xx with a clear error is right. */
   loose?: boolean;
+  /** The status the answer must have, when not 400 (413 for a body over the limit). */
+  status?: number;
 }
 
 /** One malformed mutation inside an otherwise valid push: answered `rejected`. */
@@ -453,7 +455,16 @@ export function buildHttpCorpus(c: CorpusContext): HttpCase[] {
   const cases: HttpCase[] = [];
   for (const r of jsonRoutes(c)) {
     for (const bc of [...fieldCases(r.body, r.fields), ...bodyCases(r.body, r.fields)])
-      cases.push({ route: r.route, label: bc.label, as: r.as, url: r.url, payload: bc.payload, field: bc.field, loose: bc.loose });
+      cases.push({
+        route: r.route,
+        label: bc.label,
+        as: r.as,
+        url: r.url,
+        payload: bc.payload,
+        field: bc.field,
+        loose: bc.loose,
+        ...(bc.status ? { status: bc.status } : {}),
+      });
   }
   cases.push(...pathCases('DELETE /api/guardians/links/:id', 'admin', '/api/guardians/links/:id', randomUUID()));
   cases.push(...pathCases('POST /api/guardians/links/:id/consent', 'guardian', '/api/guardians/links/:id/consent', randomUUID()));

@@ -61,10 +61,13 @@ describe('bad input', () => {
     await expect400(() => request(t.app).post('/api/auth/login').set('Content-Type', 'application/json').send('[1,2,3]'), 'body');
   });
 
-  it('refuses an oversized body with 400 naming the body', async () => {
+  it('refuses an oversized body with 413 naming the body', async () => {
     const huge = JSON.stringify({ email: 'a@b.test', password: 'x'.repeat(1_200_000) });
-    const body = await expect400(() => request(t.app).post('/api/auth/login').set('Content-Type', 'application/json').send(huge), 'body');
+    const res = await request(t.app).post('/api/auth/login').set('Content-Type', 'application/json').send(huge);
+    expect(res.status).toBe(413);
+    const body = res.body as ErrorBody;
     expect(body.error.code).toBe('body_too_large');
+    expect(body.error.fields?.[0].field).toBe('body');
   });
 
   it('refuses a bad query parameter naming it', async () => {

@@ -49,6 +49,8 @@ export interface BodyCase {
   field?: string;
   /** Whether any 4xx with a clear error is right (the value passes validation and a later check refuses it). */
   loose?: boolean;
+  /** The status the answer must have, when not 400 (413 for a body over the limit). */
+  status?: number;
 }
 
 /** A string far beyond any field's limit, still well inside the 1 MB body limit. */
@@ -155,7 +157,7 @@ export function bodyCases(body: JsonObject, fields: Record<string, FieldSpec>): 
     raw('a bare string', '"hello"', 'body'),
     raw('a bare number', '42', 'body'),
     raw('null', 'null', 'body'),
-    raw('more than 1 MB', JSON.stringify({ ...body, padding: 'p'.repeat(1_100_000) }), 'body'),
+    { ...raw('more than 1 MB', JSON.stringify({ ...body, padding: 'p'.repeat(1_100_000) }), 'body'), status: 413 },
     { label: 'an array instead of an object', payload: { json: [body] }, field: 'body' },
     { label: 'an extra field', payload: { json: { ...body, isAdmin: true } }, field: 'isAdmin' },
     {

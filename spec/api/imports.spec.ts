@@ -140,7 +140,7 @@ describe('imports', () => {
       expect(res.body.error.message.length).withContext(label).toBeGreaterThan(10);
     }
     const huge = await roster(Buffer.alloc(5 * 1024 * 1024 + 10, 'a'), false);
-    expect(huge.status).toBe(400);
+    expect(huge.status).toBe(413);
     expect(huge.body.error.code).toBe('file_too_large');
     expect((await request(t.app).post('/api/imports/roster').set('Authorization', `Bearer ${admin}`)).body.error.fields[0].field).toBe(
       'file',
@@ -231,8 +231,9 @@ describe('imports', () => {
         units: { speed: 'm/s', spin: 'rev/s', distance: 'm' },
       });
       const before = snapshot();
+      // A schema trigger, not a TEMP one: the import commits on the import worker's own connection.
       t.db.$client.exec(
-        `CREATE TEMP TRIGGER fail_third AFTER INSERT ON kicks WHEN NEW.recorded_at LIKE '2026-11-22T10:02%' BEGIN SELECT RAISE(ABORT, 'injected failure'); END;`,
+        `CREATE TRIGGER fail_third AFTER INSERT ON kicks WHEN NEW.recorded_at LIKE '2026-11-22T10:02%' BEGIN SELECT RAISE(ABORT, 'injected failure'); END;`,
       );
       try {
         const res = await post(head, body, m, false);

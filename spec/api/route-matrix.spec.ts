@@ -18,6 +18,7 @@ const ALL: Who[] = [...ROLES];
  */
 const MATRIX: Record<string, Who[] | 'public'> = {
   'GET /api/health': 'public',
+  'GET /api/ready': 'public',
   'POST /api/auth/login': 'public',
   'POST /api/auth/refresh': 'public',
   'POST /api/auth/logout': 'public',

@@ -7,11 +7,11 @@
  */
 import Database from 'better-sqlite3';
 import { readFileSync } from 'node:fs';
-import { createServer, connect, type Server, type Socket } from 'node:net';
+import { createServer, connect, type AddressInfo, type Server, type Socket } from 'node:net';
 import { resolve } from 'node:path';
 import type { BrowserContext, Page } from 'playwright-core';
 import { launchContext } from './support/browser';
-import { freePort, startE2eServer, type E2eServer } from './support/server';
+import { startE2eServer, type E2eServer } from './support/server';
 
 const PASSWORD = 'loftline-demo';
 const COACH = 'assistant.coach@kestrel-vale.test';
@@ -26,9 +26,10 @@ class Relay {
   constructor(private readonly targetPort: () => number) {}
 
   async start(): Promise<void> {
-    this.port = await freePort();
     this.listener = createServer((client) => this.relay(client));
-    await new Promise<void>((done) => this.listener!.listen(this.port, '127.0.0.1', done));
+    // Port 0: the system picks a free port at the moment of listening, so nothing can take it in between.
+    await new Promise<void>((done) => this.listener!.listen(0, '127.0.0.1', done));
+    this.port = (this.listener.address() as AddressInfo).port;
   }
 
   /** Resolves once the server has started answering a push, whose answer is then withheld. */

@@ -26,3 +26,16 @@ describe('parseLocalDateTime (device times read in the club’s zone)', () => {
       expect(parseLocalDateTime(bad, 'Europe/London')).toBeNull();
   });
 });
+
+describe('parseLocalDateTime on a large device file', () => {
+  it('builds one time-zone formatter per zone, not one per row', () => {
+    const built = spyOn(Intl, 'DateTimeFormat').and.callThrough();
+    const start = Date.UTC(2026, 2, 28, 22, 0, 0);
+    for (let i = 0; i < 2000; i++) {
+      const wall = new Date(start + i * 60_000).toISOString().slice(0, 19).replace('T', ' ');
+      expect(parseLocalDateTime(wall, i % 2 ? 'Europe/London' : 'America/New_York')).not.toBeNull();
+    }
+    // Two zones: at most one formatter each (fewer when an earlier spec already built one).
+    expect(built.calls.count()).toBeLessThanOrEqual(2);
+  });
+});

@@ -1,5 +1,5 @@
 /**
- * Starts a real Loftline server process for end-to-end specs: a free port, a temp database
+ * Starts a real Loftline server process for end-to-end specs: a port the system picks, a temp database
  * (migrated and loaded with the demo scenario at start-up), the production client build.
  */
 import type { ChildProcess } from 'node:child_process';
@@ -21,8 +21,6 @@ export interface E2eServer {
   /** Removes the temp folder. */
   cleanup(): void;
 }
-
-export { freePort } from '../../support/server-process';
 
 /** Starts the server; pass `dbPath`/`port` to restart on the same database and port, `env` for more settings (e.g. `WEATHER_URL`). */
 export async function startE2eServer(options: { dbPath?: string; port?: number; env?: Record<string, string> } = {}): Promise<E2eServer> {
