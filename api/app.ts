@@ -35,6 +35,7 @@ import type { Db } from './db/client';
 import { cachedStatement } from './db/statements';
 import { errorMiddleware, NotFound } from './errors';
 import { refuseUnsafeJson } from './json-guard';
+import { redactRequest } from './logger';
 import { meRouter } from './me/me.router';
 import { playersRouter } from './players/players.router';
 import { attachScope } from './scope/scope.middleware';
@@ -106,7 +107,14 @@ export function createApp(deps: AppDeps): Express {
       },
     }),
   );
-  app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !(req.url ?? '').startsWith('/api') } }));
+  // Request lines go through redactRequest whatever logger was passed in: no bearer or link token is ever logged.
+  app.use(
+    pinoHttp({
+      logger,
+      serializers: { req: redactRequest },
+      autoLogging: { ignore: (req) => !(req.url ?? '').startsWith('/api') },
+    }),
+  );
 
   const api = express.Router();
   // Brotli or gzip for API answers; client files are compressed once, after the build (serveClient).

@@ -70,11 +70,21 @@ export interface AppConfig {
   accessTokenTtlS: number;
   /** Refresh tokens last 30 days so a phone stays signed in through weeks of training. */
   refreshTokenTtlS: number;
+  /** A sign-in (refresh family) ends 90 days after it began, however often it was rotated. */
+  refreshFamilyTtlS: number;
   /** bcrypt cost; ≥ 12 in production (OWASP password storage guidance), lower only in tests. */
   bcryptCost: number;
-  /** Failed sign-ins allowed per IP and per account in a 15-minute window. */
+  /**
+   * Failed sign-ins in a 15-minute window: per address (429 after), per account and address together (429
+   * after), per account from anywhere (then slowed down, never locked).
+   */
   loginFailuresPerIp: number;
   loginFailuresPerAccount: number;
+  /** First sign-in delay once an account passes its free failures, ms; it doubles per failure up to the max. */
+  loginSlowdownBaseMs: number;
+  loginSlowdownMaxMs: number;
+  /** Password-reset mails per account per hour; further requests answer the same and send nothing. */
+  resetMailsPerAccountPerHour: number;
   /** Where the built Angular app lives. */
   clientDir: string;
   /**
@@ -135,9 +145,13 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Part
     publicUrl: e.LOFTLINE_PUBLIC_URL ?? `http://localhost:${e.PORT}`,
     accessTokenTtlS: 15 * 60,
     refreshTokenTtlS: 30 * 24 * 3600,
+    refreshFamilyTtlS: 90 * 24 * 3600,
     bcryptCost: 12,
     loginFailuresPerIp: 50,
     loginFailuresPerAccount: 10,
+    loginSlowdownBaseMs: 1000,
+    loginSlowdownMaxMs: 30_000,
+    resetMailsPerAccountPerHour: 3,
     clientDir: resolve(e.LOFTLINE_CLIENT_DIR ?? 'dist/loftline/browser'),
     weatherUrl: e.WEATHER_URL && e.WEATHER_URL !== 'off' ? e.WEATHER_URL.replace(/\/+$/, '') : null,
     weatherOff: e.WEATHER_URL === 'off',

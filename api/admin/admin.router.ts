@@ -1,4 +1,4 @@
-/** `/api/admin`: users to choose from, invites and the mail outbox (admin only). */
+/** `/api/admin`: users to choose from, invites (and renewed ones), disabling an account, and the mail outbox (admin only). */
 import { and, desc, eq } from 'drizzle-orm';
 import { Router } from 'express';
 import * as z from 'zod';
@@ -41,6 +41,15 @@ export function adminRouter(db: Db, accounts: AccountsService): Router {
   router.post('/invites', (req, res) => {
     const body = parseOrThrow(inviteRequestSchema, req.body, 'Invite');
     res.status(201).json(accounts.invite(scopeOf(req).user, body));
+  });
+  router.post('/users/:id/invite', (req, res) => {
+    const id = parseOrThrow(z.uuid({ error: 'id must be a UUID' }), req.params['id'], 'User id', 'id').toLowerCase();
+    res.status(201).json(accounts.reinvite(scopeOf(req).user, id));
+  });
+  router.post('/users/:id/disable', (req, res) => {
+    const id = parseOrThrow(z.uuid({ error: 'id must be a UUID' }), req.params['id'], 'User id', 'id').toLowerCase();
+    accounts.disable(scopeOf(req).user, id);
+    res.status(204).end();
   });
   router.get('/outbox', (req, res) => {
     const rows = db

@@ -20,6 +20,7 @@ import type { Db } from '../db/client';
 import { playerProfiles } from '../db/schema';
 import { cachedStatement } from '../db/statements';
 import { heldOutCalibration, type HeldOutCalibration } from './calibration';
+import { usableKicks } from './usable-kicks';
 import { loggedKickOf, standardConditions, type SessionConditions, type StoredKick } from './flight-inputs';
 
 /** Monte Carlo samples of the cached standard-conditions reach curve (the client draws with the same). */
@@ -111,7 +112,7 @@ export class ProfileCache {
       this.db.$client,
       `SELECT player_id AS playerId, technique, kicks_seq AS kicksSeq, repetitions, profile_json AS profileJson, cloud_json AS cloudJson,
               reach_curve_json AS reachCurveJson, reliable_reach_m AS reliableReachM, reach_radius_m AS reachRadiusM,
-              model_version AS modelVersion, computed_at AS computedAt
+              model_version AS modelVersion, skipped_kicks AS skippedKicks, computed_at AS computedAt
          FROM player_profiles WHERE player_id = ? AND technique = ?`,
     ).get(playerId, technique) as CachedRow | undefined;
   }
@@ -166,7 +167,7 @@ export class ProfileCache {
   /** Fits and stores one profile now. */
   compute(playerId: string, technique: Technique): CachedRow {
     const seq = this.kicksSeq(playerId, technique);
-    const rows = this.db.$client
+    const stored = this.db.$client
       .prepare(
         `SELECT k.technique, k.outcome, k.target_distance_m AS targetDistanceM, k.target_radius_m AS targetRadiusM,
                 k.backspin_step AS backspinStep, k.sidespin_step AS sidespinStep, k.carry_m AS carryM, k.lateral_m AS lateralM,
@@ -179,25 +180,37 @@ export class ProfileCache {
           ORDER BY k.recorded_at DESC LIMIT 400`,
       )
       .all(playerId, technique) as (StoredKick & SessionConditions)[];
+    // Rows outside the model's domain are skipped and reported, never allowed to fail the whole profile.
+    const { usable: rows, skipped } = usableKicks(stored);
+    let skippedKicks = skipped;
     const radii = rows.map((r) => r.targetRadiusM).sort((a, b) => a - b);
     const reachRadiusM = radii.length ? radii[Math.floor(radii.length / 2)]! : DEFAULT_REACH_RADIUS_M;
     let profile: KickProfile | null = null;
     let curve: ReachCurve | null = null;
     let reach: number | null = null;
     if (rows.length > 0) {
-      const ballSize = squadBallSize(rows[0]!.ballSize);
-      const fitted = fitProfile(
-        rows.map((r) => loggedKickOf(r, r)),
-        undefined,
-        { timing: this.timingOf(playerId), ballSize },
-      );
-      curve = reachCurve(fitted, standardConditions(ballSize, rows[0]!.dragCrisisRe), {
-        samples: PROFILE_ENVELOPE_SAMPLES,
-        seed: PROFILE_ENVELOPE_SEED,
-      });
-      reach = reliableReachM(curve, reachRadiusM);
-      // Reach beyond the longest distance drilled is the model's and the prior's, not the logs': say so.
-      profile = { ...fitted, warnings: reachWarnings(fitted, reach) };
+      try {
+        const ballSize = squadBallSize(rows[0]!.ballSize);
+        const fitted = fitProfile(
+          rows.map((r) => loggedKickOf(r, r)),
+          undefined,
+          { timing: this.timingOf(playerId), ballSize },
+        );
+        curve = reachCurve(fitted, standardConditions(ballSize, rows[0]!.dragCrisisRe), {
+          samples: PROFILE_ENVELOPE_SAMPLES,
+          seed: PROFILE_ENVELOPE_SEED,
+        });
+        reach = reliableReachM(curve, reachRadiusM);
+        // Reach beyond the longest distance drilled is the model's and the prior's, not the logs': say so.
+        profile = { ...fitted, warnings: reachWarnings(fitted, reach) };
+      } catch (err) {
+        // The model refused input these checks did not foresee: answer "no profile, N kicks skipped", not a 500.
+        if (!(err instanceof RangeError)) throw err;
+        profile = null;
+        curve = null;
+        reach = null;
+        skippedKicks = stored.length;
+      }
     }
     const row: CachedRow = {
       playerId,
@@ -210,6 +223,7 @@ export class ProfileCache {
       reliableReachM: reach,
       modelVersion: PROFILE_MODEL_VERSION,
       reachRadiusM,
+      skippedKicks,
       computedAt: new Date().toISOString(),
     };
     this.db
@@ -241,6 +255,7 @@ export class ProfileCache {
         reachRadiusM: DEFAULT_REACH_RADIUS_M,
         computedAt: null,
         pending: true,
+        skippedKicks: 0,
       };
     }
     return toEntry(row, stale);
@@ -383,5 +398,6 @@ function toEntry(row: CachedRow, pending: boolean): ProfileEntry {
     reachRadiusM: row.reachRadiusM,
     computedAt: row.computedAt,
     pending,
+    skippedKicks: row.skippedKicks,
   };
 }

@@ -1,5 +1,6 @@
 /**
- * `/api/auth`: login (rate-limited per IP and per account), refresh, logout.
+ * `/api/auth`: login (rate-limited per address, and per account and address together; an account failing
+ * from many addresses is slowed down by AuthService, not locked), refresh, logout, invites and resets.
  */
 import { Router } from 'express';
 import { rateLimit, ipKeyGenerator } from 'express-rate-limit';
@@ -37,9 +38,11 @@ export function authRouter(auth: AuthService, accounts: AccountsService, config:
     keyGenerator: (req) => {
       const body: unknown = req.body;
       const email = body && typeof body === 'object' && 'email' in body && typeof body.email === 'string' ? body.email : '';
-      return `acct:${email.trim().toLowerCase()}`;
+      // Account and address together: failures from elsewhere cannot lock the owner out of their own device.
+      return `acct:${email.trim().toLowerCase()}|ip:${ipKeyGenerator(req.ip ?? 'unknown')}`;
     },
-    handler: (_req, _res, next) => next(tooMany('Too many failed sign-ins for this account; wait 15 minutes and try again')),
+    handler: (_req, _res, next) =>
+      next(tooMany('Too many failed sign-ins for this account from this network; wait 15 minutes and try again')),
   });
 
   router.post('/login', perIp, perAccount, async (req, res) => {
@@ -81,7 +84,14 @@ export function authRouter(auth: AuthService, accounts: AccountsService, config:
 
   router.post('/forgot-password', perIpAccountMail, (req, res) => {
     const { email } = parseOrThrow(forgotPasswordSchema, req.body, 'Password reset');
-    accounts.forgotPassword(email);
+    // The answer leaves before the lookup and the mail are done, so its timing says nothing about the account.
+    setImmediate(() => {
+      try {
+        accounts.forgotPassword(email);
+      } catch (err) {
+        req.log?.error({ err }, 'password-reset mail failed');
+      }
+    });
     res
       .status(202)
       .json({ message: 'If an account uses this e-mail, a link to choose a new password is on its way. It works for 1 hour.' });

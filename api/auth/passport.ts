@@ -43,7 +43,8 @@ export function createAuthMiddleware(db: Db, config: AppConfig): RequestHandler 
         issuer: 'loftline',
       },
       (claims: AccessClaims, done: (err: unknown, user?: AuthUser | false) => void) => {
-        if (claims.typ !== 'access') return done(null, false);
+        // Every token we sign expires; one without `exp` was not made by this server's rules (RFC 7519 §4.1.4).
+        if (claims.typ !== 'access' || typeof claims.exp !== 'number') return done(null, false);
         const row = db.select().from(users).where(eq(users.id, claims.sub)).get();
         if (!row || row.disabledAt) return done(null, false);
         done(null, { id: row.id, email: row.email, displayName: row.displayName, role: row.role, clubId: row.clubId });

@@ -2,6 +2,8 @@
  * Access and refresh tokens. Access tokens are HS256 JWTs that live 15 minutes; refresh
  * tokens are random strings stored only as SHA-256 hashes, rotated on every use, grouped in
  * a family so that replaying a rotated token revokes every descendant (a stolen token dies).
+ * A family also ends `refreshFamilyTtlS` after its sign-in however often it was rotated, and a
+ * password reset or a disabled account ends all of the user's families at once.
  */
 import { createHash, randomBytes, randomUUID } from 'node:crypto';
 import { and, eq, isNull } from 'drizzle-orm';
@@ -16,6 +18,8 @@ export interface AccessClaims {
   role: string;
   clubId: string;
   typ: 'access';
+  /** Expiry (seconds since the epoch), set by `expiresIn`; a token without it is refused. */
+  exp?: number;
 }
 
 /** Signs a short-lived access token for a user. */
@@ -28,20 +32,35 @@ function hashToken(token: string): string {
   return createHash('sha256').update(token).digest('hex');
 }
 
-/** Issues a new refresh token (optionally continuing a family) and stores its hash. */
+/**
+ * Issues a new refresh token and stores its hash: a new family (a sign-in), or the next token of
+ * `family` (a rotation), which never outlives the family's absolute end.
+ */
 export function issueRefreshToken(
   db: Db,
   config: AppConfig,
   userId: string,
-  familyId: string = randomUUID(),
+  family?: { id: string; expiresAt: string },
 ): { token: string; id: string } {
   const token = randomBytes(32).toString('base64url');
   const id = randomUUID();
-  const expiresAt = new Date(Date.now() + config.refreshTokenTtlS * 1000).toISOString();
+  const now = Date.now();
+  const familyId = family?.id ?? randomUUID();
+  const familyExpiresAt = family?.expiresAt ?? new Date(now + config.refreshFamilyTtlS * 1000).toISOString();
+  const ownExpiry = new Date(now + config.refreshTokenTtlS * 1000).toISOString();
+  const expiresAt = ownExpiry < familyExpiresAt ? ownExpiry : familyExpiresAt;
   db.insert(refreshTokens)
-    .values({ id, userId, familyId, tokenHash: hashToken(token), expiresAt })
+    .values({ id, userId, familyId, tokenHash: hashToken(token), expiresAt, familyExpiresAt })
     .run();
   return { token, id };
+}
+
+/** Ends every refresh family of a user (password reset, disabled or erased account): each device must sign in again. */
+export function revokeAllRefreshFamilies(db: Db, userId: string): void {
+  db.update(refreshTokens)
+    .set({ revokedAt: new Date().toISOString() })
+    .where(and(eq(refreshTokens.userId, userId), isNull(refreshTokens.revokedAt)))
+    .run();
 }
 
 /** Why a refresh token was refused. */
@@ -72,8 +91,9 @@ export function rotateRefreshToken(
         .run();
       return { ok: false as const, reason: 'reused' as const };
     }
-    if (row.expiresAt <= now) return { ok: false as const, reason: 'expired' as const };
-    const next = issueRefreshToken(db, config, row.userId, row.familyId);
+    const familyExpiresAt = row.familyExpiresAt ?? row.expiresAt;
+    if (row.expiresAt <= now || familyExpiresAt <= now) return { ok: false as const, reason: 'expired' as const };
+    const next = issueRefreshToken(db, config, row.userId, { id: row.familyId, expiresAt: familyExpiresAt });
     db.update(refreshTokens).set({ revokedAt: now, replacedById: next.id }).where(eq(refreshTokens.id, row.id)).run();
     return { ok: true as const, userId: row.userId, token: next.token };
   });

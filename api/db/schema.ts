@@ -124,6 +124,11 @@ export const refreshTokens = sqliteTable(
       .references(() => users.id),
     familyId: text('family_id').notNull(),
     tokenHash: text('token_hash').notNull(),
+    /**
+     * When the family ends whatever its rotations (sign-in + 90 days), copied to each rotated token.
+     * Null only on rows written before the column existed; those fall back to `expires_at`.
+     */
+    familyExpiresAt: text('family_expires_at'),
     createdAt: createdAt(),
     expiresAt: text('expires_at').notNull(),
     revokedAt: text('revoked_at'),
@@ -184,6 +189,8 @@ export const players = sqliteTable(
     birthDate: text('birth_date'),
     /** An adult player's own opt-in to Family digests about them (docs/design.md §10: none for adults otherwise). */
     digestSelfOptIn: integer('digest_self_opt_in', { mode: 'boolean' }).notNull().default(false),
+    /** When the player was erased on request: an erased row never comes back (a roster import creates a new one). */
+    erasedAt: text('erased_at'),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
     deletedAt: text('deleted_at'),
@@ -361,6 +368,8 @@ export const playerProfiles = sqliteTable(
     reachRadiusM: real('reach_radius_m').notNull(),
     /** Version of the profile model that wrote the row; rows of an older model are recomputed. */
     modelVersion: integer('model_version').notNull().default(1),
+    /** Stored kicks the fit left out because the model cannot use them (outside its domain), reported with the profile. */
+    skippedKicks: integer('skipped_kicks').notNull().default(0),
     computedAt: text('computed_at').notNull(),
   },
   (t) => [primaryKey({ columns: [t.playerId, t.technique] })],

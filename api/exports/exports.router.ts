@@ -12,7 +12,7 @@ import { guardianLinks, kicks, players, playerProfiles, squads, trainingSessions
 import { Forbidden, NotFound, parseOrThrow } from '../errors';
 import { getPlayer } from '../players/players.service';
 import { scopeOf } from '../scope/scope.middleware';
-import { toCsv } from './csv-writer';
+import { toCsv, type CsvCell } from '../../shared/csv';
 import { settingsOfClub } from '../club/club.service';
 import { metresTo, type DistanceUnit } from '../../shared/units';
 
@@ -55,10 +55,10 @@ export const KICK_EXPORT_COLUMNS = [
 const DISTANCE_COLUMNS = new Set(KICK_EXPORT_COLUMNS.flatMap((c, i) => (c.endsWith('_m') ? [i] : [])));
 
 /** The header and rows in the club's distance unit (metres pass through untouched). */
-function inClubUnit(rows: unknown[][], unit: DistanceUnit): { header: string[]; rows: unknown[][] } {
+function inClubUnit(rows: CsvCell[][], unit: DistanceUnit): { header: string[]; rows: CsvCell[][] } {
   if (unit === 'm') return { header: [...KICK_EXPORT_COLUMNS], rows };
   const header = KICK_EXPORT_COLUMNS.map((c, i) => (DISTANCE_COLUMNS.has(i) ? `${c.slice(0, -2)}_${unit}` : c));
-  const convert = (v: unknown): unknown => (typeof v === 'number' ? Math.round(metresTo(v, unit) * 10_000) / 10_000 : v);
+  const convert = (v: CsvCell): CsvCell => (typeof v === 'number' ? Math.round(metresTo(v, unit) * 10_000) / 10_000 : v);
   return { header, rows: rows.map((r) => r.map((v, i) => (DISTANCE_COLUMNS.has(i) ? convert(v) : v))) };
 }
 
@@ -82,7 +82,7 @@ export function exportsRouter(db: Db): Router {
           WHERE ${where.join(' AND ')} ORDER BY k.recorded_at`,
       )
       .raw()
-      .all({ squadId: q.squadId ?? null, playerId: q.playerId ?? null, from: q.from ?? null, to: q.to ?? null }) as unknown[][];
+      .all({ squadId: q.squadId ?? null, playerId: q.playerId ?? null, from: q.from ?? null, to: q.to ?? null }) as CsvCell[][];
     audit(db, {
       clubId: scope.user.clubId,
       userId: scope.user.id,

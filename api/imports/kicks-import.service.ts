@@ -10,7 +10,7 @@ import { and, eq, isNull } from 'drizzle-orm';
 import * as z from 'zod';
 import { DEFAULT_ELEVATION_DEG, SPIN_STEP_RPS, simulateKick, type BackspinStep } from '../../shared/flight/index';
 import { parseLocalDateTime } from '../../shared/dates';
-import { TECHNIQUES, type Outcome } from '../../shared/schemas/sync';
+import { domainWords, inDomain, KICK_DOMAIN, TECHNIQUES, type DomainRange, type Outcome } from '../../shared/schemas/sync';
 import { ballOf } from '../analysis/flight-inputs';
 import { nextChangeSeq, withChangeSeqBlock, type Db } from '../db/client';
 import { cachedStatement } from '../db/statements';
@@ -147,7 +147,7 @@ export function importKicks(
     const who = values[cols.player.toLowerCase()]?.trim() ?? '';
     const player = /^\d+$/.test(who) ? byShirt.get(Number(who)) : byName.get(who.toLowerCase());
     if (!player) err(cols.player, `No player with shirt number or name "${who}" in ${squad.name}`);
-    const read = (key: keyof typeof cols, convert: (n: number) => number, min: number, max: number, label: string): number | null => {
+    const read = (key: keyof typeof cols, convert: (n: number) => number, range: DomainRange, label: string): number | null => {
       const name = cols[key];
       if (!name) return null;
       const n = num(values[name.toLowerCase()]);
@@ -157,17 +157,18 @@ export function importKicks(
       }
       if (n === null) return null;
       const v = convert(n);
-      if (v < min || v > max) {
-        err(name, `${label} ${Math.round(v * 100) / 100} is outside ${min}–${max}`);
+      // The flight model's domain (KICK_DOMAIN), the same check as sync: a kick the fit cannot use is a row error.
+      if (!inDomain(range, v)) {
+        err(name, `${label} ${Math.round(v * 100) / 100} must be ${domainWords(range)}`);
         return null;
       }
       return v;
     };
-    const speedMs = read('speed', (n) => speedToMs(n, mapping.units.speed), 0, 45, 'Speed (m/s)');
-    const angleDeg = read('launchAngle', (n) => n, -10, 90, 'Launch angle (°)');
-    const spinRps = read('spin', (n) => spinToRps(n, mapping.units.spin), -30, 30, 'Spin (rev/s)');
-    let carryM = read('carry', (n) => distanceToM(n, mapping.units.distance), 0, 120, 'Carry (m)');
-    const lateralM = read('lateral', (n) => distanceToM(n, mapping.units.distance), -75, 75, 'Lateral (m)');
+    const speedMs = read('speed', (n) => speedToMs(n, mapping.units.speed), KICK_DOMAIN.measuredSpeedMs, 'Speed');
+    const angleDeg = read('launchAngle', (n) => n, KICK_DOMAIN.launchAngleDeg, 'Launch angle');
+    const spinRps = read('spin', (n) => spinToRps(n, mapping.units.spin), KICK_DOMAIN.measuredSpinRps, 'Spin');
+    let carryM = read('carry', (n) => distanceToM(n, mapping.units.distance), KICK_DOMAIN.carryM, 'Carry');
+    const lateralM = read('lateral', (n) => distanceToM(n, mapping.units.distance), KICK_DOMAIN.lateralM, 'Lateral');
     let recordedAt = new Date().toISOString();
     if (cols.time) {
       const t = parseLocalDateTime(values[cols.time.toLowerCase()] ?? '', clubTimeZone);

@@ -11,6 +11,7 @@ import * as z from 'zod';
 import type { AuthUser } from '../auth/passport';
 import type { Db } from '../db/client';
 import { squads, uploads } from '../db/schema';
+import { hasUnsafeNameCharacters } from '../../shared/safe-text';
 import { readCsv } from './csv';
 import { ImportInvalid, type ImportResult, type RowError } from './import-types';
 
@@ -55,8 +56,10 @@ function validate(table: ReturnType<typeof readCsv>, now: Date): { rows: RosterR
     const name = values['name']?.trim() ?? '';
     if (!squad) err('squad', 'Squad is required');
     else if (squad.length > 60) err('squad', 'Squad name is longer than 60 characters');
+    else if (hasUnsafeNameCharacters(squad)) err('squad', 'Squad name contains control characters or text-direction overrides');
     if (!name) err('name', 'Name is required');
     else if (name.length > 120) err('name', 'Name is longer than 120 characters');
+    else if (hasUnsafeNameCharacters(name)) err('name', 'Name contains control characters or text-direction overrides');
     const shirtRaw = values['shirt_number']?.trim() ?? '';
     const shirtNumber = shirtRaw === '' ? null : Number(shirtRaw);
     if (shirtNumber !== null && (!Number.isInteger(shirtNumber) || shirtNumber < 1 || shirtNumber > 99))
@@ -176,7 +179,8 @@ class RosterIndex {
     }
     const rows = cachedStatement(
       db.$client,
-      'SELECT id, squad_id AS squadId, display_name AS name FROM players WHERE club_id = ? ORDER BY rowid',
+      // An erased player is never matched (and so never brought back): a row with the same name is someone new.
+      'SELECT id, squad_id AS squadId, display_name AS name FROM players WHERE club_id = ? AND erased_at IS NULL ORDER BY rowid',
     ).all(clubId) as { id: string; squadId: string; name: string }[];
     for (const p of rows) this.addPlayer(p.squadId, p.name, p.id, false);
   }

@@ -5,6 +5,7 @@
 import { and, asc, eq, getTableColumns, gt, gte, inArray, lte, sql } from 'drizzle-orm';
 import type * as z from 'zod';
 import {
+  deleteDataSchema,
   ENTITY_SCHEMAS,
   mutationSchema,
   type DrillData,
@@ -109,6 +110,11 @@ function parseData<S extends z.ZodType>(schema: S, data: unknown): z.infer<S> {
   return r.data;
 }
 
+/** The row id a mutation names, lower-cased like every stored id (the schemas normalise UUIDs). */
+function idOf(m: Parsed): string {
+  return typeof m.data['id'] === 'string' ? m.data['id'].toLowerCase() : '';
+}
+
 function forbidden(what: string): Rejection {
   return new Rejection('forbidden', `You may not change ${what}`);
 }
@@ -130,7 +136,7 @@ function applyMutation(db: Db, scope: Scope, deviceId: string, m: Parsed): Mutat
     return { id: m.id, status: 'duplicate' };
   }
   const now = new Date().toISOString();
-  const entityId = typeof m.data['id'] === 'string' ? m.data['id'] : '';
+  const entityId = idOf(m);
   const result =
     m.entity === 'training_session'
       ? applySession(db, scope, deviceId, m, now)
@@ -172,10 +178,10 @@ function applySession(db: Db, scope: Scope, deviceId: string, m: Parsed, now: st
   const existing = db
     .select()
     .from(trainingSessions)
-    .where(eq(trainingSessions.id, String(m.data['id'] ?? '')))
+    .where(eq(trainingSessions.id, idOf(m)))
     .get();
   if (m.op === 'delete') {
-    const { id } = parseData(ENTITY_SCHEMAS.training_session.pick({ id: true }), m.data);
+    const { id } = parseData(deleteDataSchema, m.data);
     if (!existing) return { id: m.id, status: 'applied' };
     if (!scope.canWriteSquad(existing.squadId)) throw forbidden('this squad’s sessions');
     const stop = checkExisting(m, existing, sessionToSync, scope);
@@ -200,6 +206,12 @@ function applySession(db: Db, scope: Scope, deviceId: string, m: Parsed, now: st
     if (!scope.canWriteSquad(existing.squadId)) throw forbidden('this squad’s sessions');
     const stop = checkExisting(m, existing, sessionToSync, scope);
     if (stop) return stop;
+    // Its kicks were scoped to the old squad's staff and players: moving them would show them to others.
+    if (d.squadId !== existing.squadId && cachedStatement(db.$client, 'SELECT 1 FROM kicks WHERE session_id = ? LIMIT 1').get(d.id)) {
+      throw new Rejection('invalid', 'data.squadId: a session with kicks logged cannot move to another squad', [
+        { field: 'data.squadId', message: 'The session already has kicks; start a new session for the other squad' },
+      ]);
+    }
     db.update(trainingSessions)
       .set({ ...sessionColumns(d), updatedAt: d.updatedAt ?? now, version: existing.version + 1, changeSeq: nextChangeSeq(db) })
       .where(eq(trainingSessions.id, d.id))
@@ -226,10 +238,10 @@ function applyDrill(db: Db, scope: Scope, m: Parsed, now: string): MutationResul
   const existing = db
     .select()
     .from(drills)
-    .where(eq(drills.id, String(m.data['id'] ?? '')))
+    .where(eq(drills.id, idOf(m)))
     .get();
   if (m.op === 'delete') {
-    const { id } = parseData(ENTITY_SCHEMAS.drill.pick({ id: true }), m.data);
+    const { id } = parseData(deleteDataSchema, m.data);
     if (!existing) return { id: m.id, status: 'applied' };
     sessionFor(db, scope, existing.sessionId);
     const stop = checkExisting(m, existing, drillToSync, scope);
@@ -312,10 +324,9 @@ const UPDATE_KICK = `UPDATE kicks SET session_id = @sessionId, drill_id = @drill
   WHERE id = @id`;
 
 function applyKick(db: Db, scope: Scope, deviceId: string, m: Parsed, now: string): MutationResult {
-  const existing = cachedStatement(db.$client, `SELECT ${KICK_COLUMNS} FROM kicks WHERE id = ?`).get(String(m.data['id'] ?? '')) as
-    KickRow | undefined;
+  const existing = cachedStatement(db.$client, `SELECT ${KICK_COLUMNS} FROM kicks WHERE id = ?`).get(idOf(m)) as KickRow | undefined;
   if (m.op === 'delete') {
-    const { id } = parseData(ENTITY_SCHEMAS.kick.pick({ id: true }), m.data);
+    const { id } = parseData(deleteDataSchema, m.data);
     if (!existing) return { id: m.id, status: 'applied' };
     sessionFor(db, scope, existing.sessionId);
     const stop = checkExisting(m, existing, kickToSync, scope);

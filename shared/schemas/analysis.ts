@@ -78,6 +78,8 @@ export interface ProfileEntry {
   computedAt: string | null;
   /** Whether newer kicks exist than the cached profile used (a background job is refreshing it). */
   pending: boolean;
+  /** Stored kicks the fit left out because the flight model cannot use them (outside its domain). */
+  skippedKicks: number;
 }
 
 /** `GET /api/players/:id/profile?technique=`. */

@@ -4,6 +4,7 @@
  * bearing turns the service's compass wind into the head/cross wind the flight model takes.
  */
 import * as z from 'zod';
+import { hasUnsafeNameCharacters, unsafeNameMessage } from '../safe-text';
 
 const num = (name: string, min: number, max: number, unit: string) =>
   z
@@ -17,7 +18,8 @@ export const groundInputSchema = z.strictObject({
     .string({ error: 'name is required' })
     .trim()
     .min(1, { error: 'name is required' })
-    .max(120, { error: 'name must be at most 120 characters' }),
+    .max(120, { error: 'name must be at most 120 characters' })
+    .refine((n) => !hasUnsafeNameCharacters(n), { error: unsafeNameMessage('name') }),
   // WGS 84 latitude and longitude in decimal degrees.
   latitude: num('latitude', -90, 90, '°'),
   longitude: num('longitude', -180, 180, '°'),

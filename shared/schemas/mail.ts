@@ -5,6 +5,7 @@
 import * as z from 'zod';
 import { isCommonPassword } from '../common-passwords';
 import { ROLES } from '../roles';
+import { hasUnsafeNameCharacters, unsafeNameMessage } from '../safe-text';
 
 /** Shortest password an account may set (common practice; NIST SP 800-63B asks for at least 8). */
 export const MIN_PASSWORD_LENGTH = 10;
@@ -31,7 +32,12 @@ export const resetPasswordSchema = z.strictObject({ token, password });
 /** `POST /api/admin/invites`. */
 export const inviteRequestSchema = z.strictObject({
   email,
-  displayName: z.string({ error: 'displayName is required' }).trim().min(1, { error: 'displayName is required' }).max(120),
+  displayName: z
+    .string({ error: 'displayName is required' })
+    .trim()
+    .min(1, { error: 'displayName is required' })
+    .max(120)
+    .refine((n) => !hasUnsafeNameCharacters(n), { error: unsafeNameMessage('displayName') }),
   role: z.enum(ROLES, { error: `role must be one of ${ROLES.join(', ')}` }),
   squadIds: z
     .array(z.uuid({ error: 'squadIds must hold squad ids' }))

@@ -31,8 +31,71 @@ const MAX_PITCH_LENGTH_M = 120;
  */
 export const HANG_TIME_RANGE_S: readonly [number, number] = [0.2, 10];
 
-const uuid = (name: string) => z.uuid({ error: `${name} must be a UUID` });
-const isoDateTime = (name: string) => z.iso.datetime({ offset: true, error: `${name} must be an ISO 8601 date-time` });
+/** One bound of the model's domain for a measured value. */
+export interface DomainRange {
+  min: number;
+  /** Whether `min` itself is outside (a carry of 0 m is not a flight). */
+  minExclusive: boolean;
+  max: number;
+  unit: string;
+}
+
+/**
+ * The flight model's domain for the measured values of a kick: what the profile fit can use (its input
+ * checks, `prepareKick` in shared/flight: carry in (0, 150] m, lateral in [−60, 60] m, speed in (0, 60] m/s,
+ * launch angle in (0, 90] °, measured spin in [0, 30] rev/s — a device reports the total rate, the logged
+ * steps give its direction). Sync and both imports refuse values outside it, so a stored kick never breaks
+ * a profile; the bounds below are the fit's, tightened where the trade knows better (pitch length, kick speed).
+ */
+export const KICK_DOMAIN = {
+  // IFAB Laws of the Game, Law 1: the touchline is at most 120 m, so no kick carries further on a pitch.
+  carryM: { min: 0, minExclusive: true, max: MAX_PITCH_LENGTH_M, unit: 'm' },
+  lateralM: { min: -60, minExclusive: false, max: 60, unit: 'm' },
+  // Maximal instep kicks reach about 35 m/s (Andersen & Dörge 2011); 45 m/s leaves headroom.
+  measuredSpeedMs: { min: 0, minExclusive: true, max: 45, unit: 'm/s' },
+  launchAngleDeg: { min: 0, minExclusive: true, max: 90, unit: '°' },
+  measuredSpinRps: { min: 0, minExclusive: false, max: 30, unit: 'rev/s' },
+} as const satisfies Record<string, DomainRange>;
+
+/** Whether `value` lies in the domain range. */
+export function inDomain(range: DomainRange, value: number): boolean {
+  return Number.isFinite(value) && (range.minExclusive ? value > range.min : value >= range.min) && value <= range.max;
+}
+
+/** The domain range in words, e.g. "more than 0 and at most 120 m". */
+export function domainWords(range: DomainRange): string {
+  return `${range.minExclusive ? 'more than' : 'at least'} ${range.min} and at most ${range.max} ${range.unit}`;
+}
+
+const domainNumber = (name: keyof typeof KICK_DOMAIN) => {
+  const r: DomainRange = KICK_DOMAIN[name];
+  return z.number({ error: `${name} must be a number` }).refine((v) => inDomain(r, v), { error: `${name} must be ${domainWords(r)}` });
+};
+
+/**
+ * A UUID, normalised to lower case: ids that differ only in case are the same id (RFC 9562 §4: UUIDs
+ * compare case-insensitively), so a replay in capitals can never make a second kick.
+ */
+const uuid = (name: string) => z.uuid({ error: `${name} must be a UUID` }).transform((s) => s.toLowerCase());
+
+/** Earliest and latest instants a synced date-time may hold (Loftline's data begins well after 2000). */
+export const DATE_TIME_BOUNDS = { min: '2000-01-01T00:00:00.000Z', max: '2100-01-01T00:00:00.000Z' } as const;
+
+/**
+ * An ISO 8601 date-time with an offset, within DATE_TIME_BOUNDS, stored as UTC (`toISOString()`): every
+ * stored instant has one form, so comparing them as text (SQLite) orders them in time.
+ */
+const isoDateTime = (name: string) =>
+  z.iso
+    .datetime({ offset: true, error: `${name} must be an ISO 8601 date-time` })
+    .refine(
+      (s) => {
+        const t = Date.parse(s);
+        return t >= Date.parse(DATE_TIME_BOUNDS.min) && t < Date.parse(DATE_TIME_BOUNDS.max);
+      },
+      { error: `${name} must be between the years 2000 and 2099` },
+    )
+    .transform((s) => new Date(s).toISOString());
 const num = (name: string, min: number, max: number, unit: string) =>
   z
     .number({ error: `${name} must be a number` })
@@ -45,8 +108,8 @@ const step = (name: string, limit: number) =>
     .min(-limit, { error: `${name} must be at least −${limit}` })
     .max(limit, { error: `${name} must be at most ${limit}` });
 
-/** A kick as it is synced. */
-export const kickDataSchema = z.object({
+/** A kick as it is synced. Unknown fields are refused (a typo must not vanish silently). */
+export const kickDataSchema = z.strictObject({
   id: uuid('id'),
   sessionId: uuid('sessionId'),
   drillId: uuid('drillId').nullish(),
@@ -58,21 +121,37 @@ export const kickDataSchema = z.object({
   targetDistanceM: num('targetDistanceM', 1, MAX_PITCH_LENGTH_M, 'm'),
   targetRadiusM: num('targetRadiusM', 0.25, 30, 'm'),
   outcome: z.enum(OUTCOMES, { error: `outcome must be one of ${OUTCOMES.join(', ')}` }),
-  carryM: num('carryM', 0, MAX_PITCH_LENGTH_M, 'm').nullish(),
-  lateralM: num('lateralM', -75, 75, 'm').nullish(),
-  // Maximal instep kicks reach about 35 m/s (Andersen & Dörge 2011); 45 m/s leaves headroom.
-  measuredSpeedMs: num('measuredSpeedMs', 0, 45, 'm/s').nullish(),
-  launchAngleDeg: num('launchAngleDeg', -10, 90, '°').nullish(),
-  measuredSpinRps: num('measuredSpinRps', -30, 30, 'rev/s').nullish(),
+  // The model's domain (KICK_DOMAIN): a value the fit cannot use is refused here, not discovered by a profile.
+  carryM: domainNumber('carryM').nullish(),
+  lateralM: domainNumber('lateralM').nullish(),
+  measuredSpeedMs: domainNumber('measuredSpeedMs').nullish(),
+  launchAngleDeg: domainNumber('launchAngleDeg').nullish(),
+  measuredSpinRps: domainNumber('measuredSpinRps').nullish(),
   // Pitchside stopwatch reading, contact to first bounce, uncorrected (HANG_TIME_RANGE_S).
   hangTimeS: num('hangTimeS', HANG_TIME_RANGE_S[0], HANG_TIME_RANGE_S[1], 's').nullish(),
   recordedAt: isoDateTime('recordedAt'),
   updatedAt: isoDateTime('updatedAt').optional(),
+  /** Server-derived (pulled rows carry it, so an edited pulled kick sends it back); ignored on push. */
+  stillAirCarryM: z.number({ error: 'stillAirCarryM must be a number' }).nullish(),
 });
 export type KickData = z.infer<typeof kickDataSchema>;
 
-/** A training session and its conditions as it is synced. */
-export const sessionDataSchema = z.object({
+/** The session values whose source is recorded (`conditionsSource` takes no other key). */
+export const CONDITION_FIELDS = [
+  'temperatureC',
+  'altitudeM',
+  'relativeHumidityPct',
+  'pressureHpa',
+  'windSpeedMs',
+  'windFromDeg',
+  'ballSize',
+] as const;
+const conditionSource = z.enum(['coach', 'ground', 'weather', 'default'], {
+  error: 'each conditionsSource value must be coach, ground, weather or default',
+});
+
+/** A training session and its conditions as it is synced. Unknown fields are refused. */
+export const sessionDataSchema = z.strictObject({
   id: uuid('id'),
   squadId: uuid('squadId'),
   startedAt: isoDateTime('startedAt'),
@@ -84,7 +163,14 @@ export const sessionDataSchema = z.object({
   windSpeedMs: num('windSpeedMs', 0, 40, 'm/s').nullish(),
   windFromDeg: num('windFromDeg', 0, 360, '°').nullish(),
   ballSize: z.union([z.literal(3), z.literal(4), z.literal(5)], { error: 'ballSize must be 3, 4 or 5' }),
-  conditionsSource: z.record(z.string(), z.enum(['coach', 'ground', 'weather', 'default'])).nullish(),
+  conditionsSource: z
+    .strictObject(
+      Object.fromEntries(CONDITION_FIELDS.map((f) => [f, conditionSource.optional()])) as Record<
+        (typeof CONDITION_FIELDS)[number],
+        z.ZodOptional<typeof conditionSource>
+      >,
+    )
+    .nullish(),
   /** The training ground (absent from older clients' pushes: the server then keeps what it has). */
   groundId: uuid('groundId').nullish(),
   /** When the weather service measured the values whose source is 'weather'. */
@@ -94,8 +180,8 @@ export const sessionDataSchema = z.object({
 });
 export type SessionData = z.infer<typeof sessionDataSchema>;
 
-/** A drill as it is synced. */
-export const drillDataSchema = z.object({
+/** A drill as it is synced. Unknown fields are refused. */
+export const drillDataSchema = z.strictObject({
   id: uuid('id'),
   sessionId: uuid('sessionId'),
   technique: z.enum(TECHNIQUES, { error: `technique must be one of ${TECHNIQUES.join(', ')}` }),
@@ -108,6 +194,9 @@ export const drillDataSchema = z.object({
   updatedAt: isoDateTime('updatedAt').optional(),
 });
 export type DrillData = z.infer<typeof drillDataSchema>;
+
+/** `data` of a delete: only the id counts (the device may send the whole row). */
+export const deleteDataSchema = z.object({ id: uuid('id') });
 
 /** The schema for each entity's `data`. */
 export const ENTITY_SCHEMAS = {
@@ -128,7 +217,10 @@ export type Mutation = z.infer<typeof mutationSchema>;
 
 /** Body of `POST /api/sync/push`. */
 export const pushRequestSchema = z.strictObject({
-  deviceId: z.string({ error: 'deviceId is required' }).min(1, { error: 'deviceId is required' }).max(100),
+  deviceId: z
+    .string({ error: 'deviceId is required' })
+    .min(1, { error: 'deviceId is required' })
+    .max(100, { error: 'deviceId must be at most 100 characters' }),
   mutations: z
     .array(z.unknown(), { error: 'mutations must be an array' })
     .max(MAX_PUSH_MUTATIONS, { error: `at most ${MAX_PUSH_MUTATIONS} mutations per push` }),

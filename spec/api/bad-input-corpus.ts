@@ -470,6 +470,8 @@ export function buildHttpCorpus(c: CorpusContext): HttpCase[] {
   cases.push(...pathCases('POST /api/guardians/links/:id/consent', 'guardian', '/api/guardians/links/:id/consent', randomUUID()));
   cases.push(...pathCases('PUT /api/guardians/links/:id/digest', 'guardian', '/api/guardians/links/:id/digest', randomUUID()));
   cases.push(...pathCases('POST /api/admin/players/:id/erase', 'admin', '/api/admin/players/:id/erase', c.otherClubPlayerId));
+  cases.push(...pathCases('POST /api/admin/users/:id/invite', 'admin', '/api/admin/users/:id/invite', randomUUID()));
+  cases.push(...pathCases('POST /api/admin/users/:id/disable', 'admin', '/api/admin/users/:id/disable', randomUUID()));
   const unsub = 'POST /api/digests/unsubscribe';
   for (const [label, query] of [
     ['no token', ''],
@@ -689,6 +691,41 @@ export function buildMutationCorpus(c: CorpusContext): MutationCase[] {
       label: 'drill: label of 200,000 characters',
       mutation: envelope({ ...drill, id: randomUUID(), label: HUGE }, 'drill'),
       field: 'data.label',
+    },
+    // Issue 15: the flight model's domain, unknown fields, unknown condition keys, dates out of bounds.
+    ...(
+      [
+        ['carryM', 0],
+        ['measuredSpeedMs', 0],
+        ['launchAngleDeg', 0],
+        ['launchAngleDeg', -8],
+        ['lateralM', 61],
+        ['measuredSpinRps', -1],
+      ] as const
+    ).map(([field, value]) => ({
+      label: `kick: ${field} ${value}, outside the model's domain`,
+      mutation: envelope({ ...kick, id: randomUUID(), [field]: value }, 'kick'),
+      field: `data.${field}`,
+    })),
+    {
+      label: 'kick: an unknown field',
+      mutation: envelope({ ...kick, id: randomUUID(), carryMeters: 30 }, 'kick'),
+      field: 'data.carryMeters',
+    },
+    {
+      label: 'kick: recorded in the year 0000',
+      mutation: envelope({ ...kick, id: randomUUID(), recordedAt: '0000-01-01T00:00:00Z' }, 'kick'),
+      field: 'data.recordedAt',
+    },
+    {
+      label: 'session: conditionsSource with an unknown key',
+      mutation: envelope({ ...session, id: randomUUID(), conditionsSource: { junk: 'coach' } }, 'training_session'),
+      field: 'data.conditionsSource.junk',
+    },
+    {
+      label: 'session: ends in the year 9999',
+      mutation: envelope({ ...session, id: randomUUID(), endedAt: '9999-12-31T23:59:59Z' }, 'training_session'),
+      field: 'data.endedAt',
     },
   );
   return out;

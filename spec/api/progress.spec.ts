@@ -123,7 +123,7 @@ describe('player progress', () => {
     expect(reversed.status).toBe(400);
   });
 
-  it('lets a player read only their own progress, and a guardian only their child’s', async () => {
+  it('lets a player read only their own progress, and a guardian none (the child summary instead)', async () => {
     const p = await signIn(t.app, DEMO_ACCOUNTS.player);
     const own = t.db.select().from(players).where(eq(players.userId, p.user.id)).get()!;
     const own200 = await progress(p.accessToken, own.id);
@@ -139,8 +139,9 @@ describe('player progress', () => {
     const g = await signIn(t.app, DEMO_ACCOUNTS.guardian);
     const guardianId = t.db.select().from(users).where(eq(users.email, DEMO_ACCOUNTS.guardian)).get()!.id;
     const child = t.db.select().from(guardianLinks).where(eq(guardianLinks.guardianUserId, guardianId)).get()!;
-    expect((await progress(g.accessToken, child.playerId)).status).toBe(200);
-    expect((await progress(g.accessToken, own.id)).status).toBe(404);
+    // README "Security and data": a guardian sees their child's summary, not raw progress.
+    expect((await progress(g.accessToken, child.playerId)).status).toBe(403);
+    expect((await progress(g.accessToken, own.id)).status).toBe(403);
     // Nothing crosses clubs.
     expect((await progress(coach, own.id)).status).toBe(404);
   });

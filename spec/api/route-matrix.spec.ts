@@ -60,6 +60,8 @@ const MATRIX: Record<string, Who[] | 'public'> = {
   'POST /api/admin/players/:id/erase': ['admin'],
   'GET /api/admin/users': ['admin'],
   'POST /api/admin/invites': ['admin'],
+  'POST /api/admin/users/:id/invite': ['admin'],
+  'POST /api/admin/users/:id/disable': ['admin'],
   'GET /api/admin/outbox': ['admin'],
   'POST /api/imports/roster': ['admin'],
   'POST /api/imports/kicks': STAFF,
@@ -93,6 +95,8 @@ describe('route × role security matrix', () => {
     if (path.includes(':playerId')) return path.replace(':playerId', ids['child']!);
     // Erasure is tried on an id that does not exist, so allowed roles get 404 and nothing is erased.
     if (path.startsWith('/api/admin/players/:id')) return path.replace(':id', randomUUID());
+    // So are re-invite and disable: nobody is mailed or locked out.
+    if (path.startsWith('/api/admin/users/:id')) return path.replace(':id', randomUUID());
     return path.replace(':id', ids['player']!);
   }
 

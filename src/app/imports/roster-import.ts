@@ -1,3 +1,4 @@
+import { toCsv } from '../../../shared/csv';
 import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
@@ -147,9 +148,9 @@ export class RosterImport {
 
   /** Saves an empty roster file with the header row, to fill in a spreadsheet. */
   protected saveTemplate(): void {
-    const header = ROSTER_COLUMNS.map((c) => c.name).join(',');
-    const example = 'U14,Alex Example,7,2012,right,parent.one@example.org;parent.two@example.org,U14,4';
-    this.download.save(new Blob([`${header}\r\n${example}\r\n`], { type: 'text/csv;charset=utf-8' }), 'loftline-roster-template.csv');
+    const header = ROSTER_COLUMNS.map((c) => c.name);
+    const example = ['U14', 'Alex Example', 7, 2012, 'right', 'parent.one@example.org;parent.two@example.org', 'U14', 4];
+    this.download.save(new Blob([toCsv(header, [example])], { type: 'text/csv;charset=utf-8' }), 'loftline-roster-template.csv');
   }
 }
 

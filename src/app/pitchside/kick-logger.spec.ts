@@ -158,7 +158,7 @@ describe('KickLogger (Pitchside logging)', () => {
     await (await button('Long')).click();
     await fixture.whenStable();
 
-    expect(text()).toContain('carryM must be at most 120 m');
+    expect(text()).toContain('carryM must be more than 0 and at most 120 m');
     expect((await liveKicks()).length).toBe(0);
   });
 

@@ -45,6 +45,7 @@ const entry = (playerId: string, displayName: string, shirtNumber: number, profi
   reachRadiusM: 3,
   computedAt: profile ? '2026-11-30T08:00:00.000Z' : null,
   pending: false,
+  skippedKicks: 0,
   displayName,
   shirtNumber,
 });

@@ -12,6 +12,7 @@ import { MatToolbarModule } from '@angular/material/toolbar';
 import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { map } from 'rxjs';
 import { ROLE_LABELS } from '../../../shared/roles';
+import { DeviceHandover } from '../core/auth/device-handover';
 import { AuthSession } from '../core/auth/auth-session';
 import { ClubFormat } from '../core/club-format';
 import { NAV_ITEMS, navItemsFor } from '../core/nav-items';
@@ -69,6 +70,8 @@ export class AppShell {
     const role = this.session.role();
     return role ? ROLE_LABELS[role] : '';
   });
+  /** Unsynced changes another user left on this shared phone (kept under them, not shown here). */
+  protected readonly keptForOthers = inject(DeviceHandover).keptForOthers;
   protected readonly clubName = computed(() => this.session.club()?.name ?? null);
   protected readonly wide = toSignal(this.breakpoints.observe(WIDE_LAYOUT_QUERY).pipe(map((state) => state.matches)), {
     initialValue: this.breakpoints.isMatched(WIDE_LAYOUT_QUERY),

@@ -1,6 +1,7 @@
 import { PROFILE_WARNING_TEXT } from '../../../shared/flight';
+import { toCsv } from '../../../shared/csv';
 import { FIXTURE_IDS, fixtureWeek } from '../core/analysis/spec-fixtures';
-import { busiestTechniqueOfWeek, changeMark, csvCell, csvFileName, squadRows, squadWeekCsv } from './squad-week-rows';
+import { busiestTechniqueOfWeek, changeMark, csvFileName, squadRows, squadWeekCsv } from './squad-week-rows';
 
 describe('Squad week rows', () => {
   const next = {
@@ -45,11 +46,12 @@ describe('Squad week rows', () => {
 
   it('quotes CSV cells per RFC 4180 and defuses formulas', () => {
     // RFC 4180 §2.6–2.7: fields with commas, quotes or line breaks are quoted, inner quotes doubled.
-    expect(csvCell('Okafor, Ada')).toBe('"Okafor, Ada"');
-    expect(csvCell('Ada "Rocket" Okafor')).toBe('"Ada ""Rocket"" Okafor"');
-    expect(csvCell('=HYPERLINK("x")')).toBe(`"'=HYPERLINK(""x"")"`);
-    expect(csvCell(-5)).toBe('-5');
-    expect(csvCell(null)).toBe('');
+    const cell = (v: string | number | null) => toCsv(['h'], [[v]]).split('\r\n')[1];
+    expect(cell('Okafor, Ada')).toBe('"Okafor, Ada"');
+    expect(cell('Ada "Rocket" Okafor')).toBe('"Ada ""Rocket"" Okafor"');
+    expect(cell('=HYPERLINK("x")')).toBe(`"'=HYPERLINK(""x"")"`);
+    expect(cell(-5)).toBe('-5');
+    expect(cell(null)).toBe('');
   });
 
   it('exports the rows in the order given, with units and basis in the header', () => {

@@ -4,6 +4,7 @@ import type { CarryBasis, SquadWeek, SquadWeekPlayer } from '../../../shared/sch
 import type { Technique } from '../../../shared/schemas/sync';
 import type { NextTargetResult } from '../core/analysis/next-target';
 import { TECHNIQUE_LABELS } from '../../../shared/vocabulary';
+import { toCsv, type CsvCell } from '../../../shared/csv';
 
 /** Where a player's next target for the chosen technique stands. */
 export type NextTargetState =
@@ -105,21 +106,14 @@ export function busiestTechniqueOfWeek(week: SquadWeek): Technique | null {
   return best;
 }
 
-/** A value for a CSV cell, quoted per RFC 4180 when needed. Text that a spreadsheet would run as a formula is defused. */
-export function csvCell(value: string | number | null): string {
-  if (value === null) return '';
-  if (typeof value === 'number') return Number.isFinite(value) ? String(value) : '';
-  const safe = /^[=+\-@\t\r]/.test(value) ? `'${value}` : value;
-  return /[",\r\n]/.test(safe) ? `"${safe.replace(/"/g, '""')}"` : safe;
-}
-
 const pct = (v: number | null): number | null => (v === null ? null : Math.round(v * 1000) / 10);
 
 /**
- * The table as CSV (RFC 4180, CRLF line ends), in the order shown. Header names say the units (the club's
- * distance unit: metres or yards), the technique and the carry basis, so the file reads correctly outside
- * Loftline. Numbers keep the point as decimal mark whatever the club's locale: the comma separates fields
- * in RFC 4180, and spreadsheets read a point-decimal CSV the same everywhere on import.
+ * The table as CSV (the product's one writer, shared/csv.ts: RFC 4180, formulas defused), in the order
+ * shown. Header names say the units (the club's distance unit: metres or yards), the technique and the
+ * carry basis, so the file reads correctly outside Loftline. Numbers keep the point as decimal mark whatever
+ * the club's locale: the comma separates fields in RFC 4180, and spreadsheets read a point-decimal CSV the
+ * same everywhere on import.
  */
 export function squadWeekCsv(rows: readonly SquadRow[], technique: Technique, basis: CarryBasis, unit: DistanceUnit = 'm'): string {
   const t = TECHNIQUE_LABELS[technique];
@@ -143,33 +137,29 @@ export function squadWeekCsv(rows: readonly SquadRow[], technique: Technique, ba
     `${t} next target predicted hits (%)`,
     'Sessions over the repetition limit',
   ];
-  const lines = [header.map(csvCell).join(',')];
+  const lines: CsvCell[][] = [];
   for (const r of rows) {
     const next = r.next.status === 'ready' && r.next.result.kind === 'target' ? r.next.result : null;
     const change = changeMark(r.hitRateChange);
-    lines.push(
-      [
-        r.shirtNumber,
-        r.displayName,
-        r.reps,
-        pct(r.hitRate),
-        pct(r.previousHitRate),
-        change?.points ?? null,
-        r.bestTechnique ? TECHNIQUE_LABELS[r.bestTechnique] : null,
-        r.techniqueReps,
-        pct(r.techniqueHitRate),
-        distance(r.techniqueMedianCarryM),
-        distance(r.reliableReachM),
-        distance(r.reachRadiusM),
-        distance(next?.distanceM ?? null),
-        next ? pct(next.probability) : null,
-        r.loadFlags,
-      ]
-        .map(csvCell)
-        .join(','),
-    );
+    lines.push([
+      r.shirtNumber,
+      r.displayName,
+      r.reps,
+      pct(r.hitRate),
+      pct(r.previousHitRate),
+      change?.points ?? null,
+      r.bestTechnique ? TECHNIQUE_LABELS[r.bestTechnique] : null,
+      r.techniqueReps,
+      pct(r.techniqueHitRate),
+      distance(r.techniqueMedianCarryM),
+      distance(r.reliableReachM),
+      distance(r.reachRadiusM),
+      distance(next?.distanceM ?? null),
+      next ? pct(next.probability) : null,
+      r.loadFlags,
+    ]);
   }
-  return lines.join('\r\n') + '\r\n';
+  return toCsv(header, lines);
 }
 
 /** A file name for the export, e.g. "squad-week-u16-2025-03-03-lofted.csv". */

@@ -100,6 +100,7 @@ export function profileEntry(
     reachRadiusM: 3,
     computedAt: profile ? '2025-03-09T20:00:00.000Z' : null,
     pending: false,
+    skippedKicks: 0,
   };
 }
 

@@ -5,6 +5,8 @@ import { TestBed } from '@angular/core/testing';
 import type { AuthTokens, MeResponse, SessionUser } from '../../../../shared/schemas/auth';
 import { AuthSession, SESSION_STORAGE_KEY, SessionExpiredError } from './auth-session';
 import { BROWSER_STORAGE, MemoryStorage } from '../browser-storage';
+import { LOFTLINE_DB, type LoftlineDb } from '../loftline-db';
+import { freshDb } from '../spec-support';
 
 const player: SessionUser = {
   id: 'user-player',
@@ -27,17 +29,25 @@ describe('AuthSession', () => {
         provideHttpClient(),
         provideHttpClientTesting(),
         { provide: BROWSER_STORAGE, useValue: storage },
+        { provide: LOFTLINE_DB, useValue: db },
       ],
     });
     backend = TestBed.inject(HttpTestingController);
     return TestBed.inject(AuthSession);
   }
 
+  let db: LoftlineDb;
+
   beforeEach(() => {
     storage = new MemoryStorage();
+    db = freshDb();
   });
 
-  afterEach(() => backend.verify());
+  afterEach(async () => {
+    backend.verify();
+    db.close();
+    await db.delete();
+  });
 
   it('starts signed out on a fresh device', () => {
     const session = setUp();
@@ -45,16 +55,16 @@ describe('AuthSession', () => {
     expect(session.user()).toBeNull();
   });
 
-  it('stores the tokens and user on sign-in so the next visit starts signed in', () => {
+  it('stores the tokens and user on sign-in so the next visit starts signed in', async () => {
     const session = setUp();
-    let user: SessionUser | undefined;
-    session.signIn({ email: 'player@example.org', password: 'pw' }).subscribe((value) => (user = value));
+    const user = new Promise<SessionUser>((resolve) => session.signIn({ email: 'player@example.org', password: 'pw' }).subscribe(resolve));
     const request = backend.expectOne('/api/auth/login');
     expect(request.request.method).toBe('POST');
     expect(request.request.body).toEqual({ email: 'player@example.org', password: 'pw' });
     request.flush(signedIn);
 
-    expect(user).toEqual(player);
+    // The device is handed over (DeviceHandover) before the session is stored.
+    expect(await user).toEqual(player);
     expect(session.accessToken()).toBe('access-1');
     expect(JSON.parse(storage.getItem(SESSION_STORAGE_KEY) ?? 'null')).toEqual({ ...signedIn, club: null });
   });

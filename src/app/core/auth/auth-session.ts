@@ -1,9 +1,11 @@
 import { HttpClient, HttpErrorResponse, HttpHeaders } from '@angular/common/http';
-import { DestroyRef, Injectable, computed, inject, signal } from '@angular/core';
-import { Observable, catchError, finalize, map, shareReplay, tap, throwError } from 'rxjs';
+import { DestroyRef, Injectable, PendingTasks, computed, inject, signal } from '@angular/core';
+import { Observable, catchError, finalize, from, map, shareReplay, switchMap, tap, throwError } from 'rxjs';
 import { ROLES, type Role } from '../../../../shared/roles';
 import type { AuthTokens, LoginRequest, MeResponse, SessionUser } from '../../../../shared/schemas/auth';
 import { BROWSER_STORAGE } from '../browser-storage';
+import { LOFTLINE_DB } from '../loftline-db';
+import { handOverDevice } from './device-handover';
 
 /** The localStorage key of the persisted session (versioned so a format change can start clean). */
 export const SESSION_STORAGE_KEY = 'loftline.session.v1';
@@ -47,6 +49,8 @@ export class SessionExpiredError extends Error {
 export class AuthSession {
   private readonly http = inject(HttpClient);
   private readonly storage = inject(BROWSER_STORAGE);
+  private readonly db = inject(LOFTLINE_DB);
+  private readonly pendingTasks = inject(PendingTasks);
   private readonly state = signal<StoredSession | null>(this.restore());
   private refreshInFlight: Observable<string> | null = null;
 
@@ -74,11 +78,17 @@ export class AuthSession {
   }
 
   /**
-   * Signs in with e-mail and password. On success the tokens and user are stored; on
-   * failure the HTTP error is passed on untouched so the form can show the server's message.
+   * Signs in with e-mail and password. On success the device is handed over first (a different user's
+   * local data is cleared, `handOverDevice`), then the tokens and user are stored; on failure the HTTP
+   * error is passed on untouched so the form can show the server's message.
    */
   signIn(credentials: LoginRequest): Observable<SessionUser> {
     return this.http.post<AuthTokens>('/api/auth/login', credentials).pipe(
+      // A pending task, so the app (and a spec's whenStable) waits for the clean-up before the first screen.
+      switchMap((tokens) => {
+        const done = this.pendingTasks.add();
+        return from(handOverDevice(this.db, this.storage, tokens.user.id).finally(done)).pipe(map(() => tokens));
+      }),
       tap((tokens) => this.store(tokens)),
       map((tokens) => tokens.user),
     );
