@@ -34,9 +34,14 @@ export const COACH_WIND_HEIGHT_M = 1.8;
 const Z0_SQUARED = GRASS_ROUGHNESS_LENGTH_M * GRASS_ROUGHNESS_LENGTH_M;
 const MIN_HEIGHT_SQUARED = WIND_PROFILE_MIN_HEIGHT_M * WIND_PROFILE_MIN_HEIGHT_M;
 
-/** ln of the floored height over z₀: ½ ln((z² + z_min²)/z₀²). */
+/**
+ * ln of the floored height over z₀: ½ ln((z² + z_min²)/z₀²), with z taken as 0 below the grass. The
+ * integrator's last step overshoots the ground; without the clamp the wind would grow again with depth
+ * there and spoil the dense output the landing is found on (z² keeps the clamp smooth to first order).
+ */
 export function logHeightRatio(heightM: number): number {
-  return 0.5 * Math.log((heightM * heightM + MIN_HEIGHT_SQUARED) / Z0_SQUARED);
+  const h = heightM > 0 ? heightM : 0;
+  return 0.5 * Math.log((h * h + MIN_HEIGHT_SQUARED) / Z0_SQUARED);
 }
 
 /**
