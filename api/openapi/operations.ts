@@ -409,6 +409,23 @@ export const OPERATIONS: readonly Operation[] = [
     answer: anyObjectSchema,
     created: true,
   },
+  {
+    method: 'POST',
+    path: '/api/admin/users/{id}/invite',
+    tag: 'Admin',
+    summary: 'Invite again an account that never set a password (expired invite, imported guardian)',
+    access: ['admin'],
+    answer: anyObjectSchema,
+    created: true,
+  },
+  {
+    method: 'POST',
+    path: '/api/admin/users/{id}/disable',
+    tag: 'Admin',
+    summary: 'Disable a user and end every sign-in they have',
+    access: ['admin'],
+    noContent: true,
+  },
   { method: 'GET', path: '/api/admin/outbox', tag: 'Admin', summary: "The club's mail outbox", access: ['admin'], answer: anyObjectSchema },
   {
     method: 'POST',

@@ -19,7 +19,6 @@ const SHARED_LAYERS = new Set(['core', 'ui', 'flight']);
 const ROUTERS_STILL_QUERYING = new Set([
   'api/admin/admin.router.ts',
   'api/digests/digests.router.ts',
-  'api/exports/erasure.router.ts',
   'api/exports/exports.router.ts',
   'api/mail/dev-mail.router.ts',
   'api/me/me.router.ts',
