@@ -115,3 +115,22 @@ export {
   WIND_PROFILE_MIN_HEIGHT_M,
   windHeightFactor,
 } from './wind-profile';
+export { planeCamera } from './video-camera';
+export type { GroundMark, ImagePoint, PlaneCamera, PlanePoint, TrackCalibration } from './video-camera';
+export {
+  MAX_CALIBRATION_TILT_DEG,
+  MAX_TRACK_POINTS,
+  MIN_CALIBRATION_M,
+  MIN_CALIBRATION_PX,
+  MIN_TRACK_POINTS,
+  solveLaunchFromTrack,
+  VIDEO_SPEED_RANGE_MS,
+} from './video-track';
+export type {
+  LaunchTrackFailure,
+  LaunchTrackFit,
+  LaunchTrackInput,
+  LaunchTrackRefusal,
+  LaunchTrackResult,
+  TrackPoint,
+} from './video-track';
