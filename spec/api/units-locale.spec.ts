@@ -3,6 +3,7 @@ import request from 'supertest';
 import { capturedMail, kicks, users } from '../../api/db/schema';
 import { QuantityFormat } from '../../shared/quantity-format';
 import { METRES_PER_YARD } from '../../shared/units';
+import { DEFAULT_DRAG_CRISIS_RE } from '../../shared/schemas/club';
 import { DEMO_ACCOUNTS, demoPeriod } from '../../seed/scenario';
 import { createMailTestApp, FIXTURE_NOW, signIn, type MailTestApp } from './fixture';
 
@@ -55,7 +56,13 @@ describe('A club in yards and a decimal-comma locale', () => {
         .set(auth(admin))
         .send({ timingBiasS: 0.2, timingSdS: 0.08, distanceUnit: 'yd', locale: 'de-de' });
       expect(res.status).toBe(200);
-      expect(res.body).toEqual({ timingBiasS: 0.2, timingSdS: 0.08, distanceUnit: 'yd', locale: 'de-DE' });
+      expect(res.body).toEqual({
+        timingBiasS: 0.2,
+        timingSdS: 0.08,
+        dragCrisisRe: DEFAULT_DRAG_CRISIS_RE,
+        distanceUnit: 'yd',
+        locale: 'de-DE',
+      });
     });
 
     it('leaves the unit and locale alone when a calibration-only client saves', async () => {
