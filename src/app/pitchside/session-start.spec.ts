@@ -14,6 +14,8 @@ import { LOFTLINE_DB, type LoftlineDb } from '../core/loftline-db';
 import { SessionStore } from '../core/session-store';
 import { SPEC_COACH, SPEC_IDS, freshDb, signedInStorage, until } from '../core/spec-support';
 import { SessionStart } from './session-start';
+import { QuantityFormat } from '../../../shared/quantity-format';
+import { DEFAULT_DISPLAY } from '../../../shared/schemas/club';
 
 @Component({ template: '' })
 class Blank {}
@@ -107,7 +109,8 @@ describe('SessionStart (Pitchside)', () => {
     return (await db.sessions.toArray())[0];
   }
 
-  const hhmm = (iso: string): string => new Date(iso).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' });
+  // The screen writes times the club's way; this club keeps the default display settings.
+  const hhmm = (iso: string): string => new QuantityFormat(DEFAULT_DISPLAY).time(iso);
 
   afterEach(async () => {
     for (const request of http.match(() => true)) request.error(new ProgressEvent('error'));
@@ -198,7 +201,8 @@ describe('SessionStart (Pitchside)', () => {
     expect(await checked('Moderate')).toBeTrue();
     expect(text()).toContain('9.5 °C');
     expect(text()).toContain('82 %');
-    expect(text()).toContain('1001.4 hPa');
+    // Numbers follow the club's locale (en-GB groups thousands).
+    expect(text()).toContain('1,001.4 hPa');
     expect(text()).toContain('6 m/s headwind');
     expect(text()).toContain('Altitude 88 m, from the ground (Longmere Lane)');
 

@@ -51,16 +51,21 @@ const entry = (playerId: string, displayName: string, shirtNumber: number, profi
 });
 
 /**
- * Profiles: a soft striker (mostly blocked), one who lifts it over the bar, a good curler, and one with
- * none. From 22 m out and 6 m left (the specs' spot) their shares in are clearly apart (about 3, 8 and 29 %).
+ * Profiles: three curlers whose aim spreads (7°, 3.5° and 1.5°) set their shares apart — each takes the
+ * kick they would choose, so speed and angle alone no longer separate them — and one with none.
  */
 export const FIXTURE_PROFILES: SquadProfilesResponse = {
   squadId: FIXTURE_SQUAD.id,
   technique: 'curled',
   players: [
-    entry('6a0c1c3e-5a7e-4c44-9a8e-0d7e0c6f1c01', 'Ada Lovelock', 7, curlProfile({ meanSpeedMs: 18, elevationDeg: 15 })),
-    entry('6a0c1c3e-5a7e-4c44-9a8e-0d7e0c6f1c02', 'Bo Brennan', 9, curlProfile({ meanSpeedMs: 22, elevationDeg: 19 })),
-    entry('6a0c1c3e-5a7e-4c44-9a8e-0d7e0c6f1c03', 'Cy Okafor', 11, curlProfile({ meanSpeedMs: 21, elevationDeg: 20, backspinRps: 0 })),
+    entry('6a0c1c3e-5a7e-4c44-9a8e-0d7e0c6f1c01', 'Ada Lovelock', 7, curlProfile({ meanSpeedMs: 18, elevationDeg: 15, sdAzimuthDeg: 7 })),
+    entry('6a0c1c3e-5a7e-4c44-9a8e-0d7e0c6f1c02', 'Bo Brennan', 9, curlProfile({ meanSpeedMs: 22, elevationDeg: 19, sdAzimuthDeg: 3.5 })),
+    entry(
+      '6a0c1c3e-5a7e-4c44-9a8e-0d7e0c6f1c03',
+      'Cy Okafor',
+      11,
+      curlProfile({ meanSpeedMs: 21, elevationDeg: 20, backspinRps: 0, sdAzimuthDeg: 1.5 }),
+    ),
     entry('6a0c1c3e-5a7e-4c44-9a8e-0d7e0c6f1c04', 'Di Marsh', 14, null),
   ],
 };

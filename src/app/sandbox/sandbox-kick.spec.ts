@@ -50,7 +50,8 @@ describe('sandbox figures', () => {
   it('passes the ball size and conditions to the flight model and reads the wall and goal-line crossings', () => {
     const input = toKickInput(curler, 24);
     expect(input.ball).toEqual({ massKg: BALL_SIZES[4].massKg, radiusM: BALL_SIZES[4].radiusM });
-    expect(input.wind).toEqual({ speedMs: 3, fromDeg: 90 });
+    // A coach's wind is a head-height estimate (docs/design.md §6).
+    expect(input.wind).toEqual({ speedMs: 3, fromDeg: 90, referenceHeightM: 1.8 });
     expect(input.planes).toEqual([WALL_DISTANCE_M, 24]);
     const flight = simulateKick(input);
     const f = flightFigures(flight, curler, 24);
