@@ -41,7 +41,7 @@ describe('Pitchside stopwatch to Player file (end to end)', () => {
         .prepare(
           `SELECT k.player_id AS playerId, k.hang_time_s AS hangTimeS, k.carry_m AS carryM, s.temperature_c AS temperatureC, s.altitude_m AS altitudeM,
                   s.relative_humidity_pct AS relativeHumidityPct, s.pressure_hpa AS pressureHpa, s.wind_speed_ms AS windSpeedMs,
-                  s.wind_from_deg AS windFromDeg, s.ball_size AS ballSize
+                  s.wind_from_deg AS windFromDeg, s.ball_size AS ballSize, s.conditions_source_json AS conditionsSourceJson
              FROM kicks k JOIN training_sessions s ON s.id = k.session_id WHERE k.session_id = ?`,
         )
         .get(sessionId) as TimedKickRow | undefined;

@@ -98,7 +98,7 @@ describe('Session conditions from the weather service (end to end)', () => {
     const session = query<SessionConditions & { groundId: string; sources: string; observedAt: string | null }>(
       `SELECT temperature_c AS temperatureC, altitude_m AS altitudeM, relative_humidity_pct AS relativeHumidityPct, pressure_hpa AS pressureHpa,
               wind_speed_ms AS windSpeedMs, wind_from_deg AS windFromDeg, ball_size AS ballSize, ground_id AS groundId,
-              conditions_source_json AS sources, conditions_observed_at AS observedAt
+              conditions_source_json AS sources, conditions_source_json AS conditionsSourceJson, conditions_observed_at AS observedAt
          FROM training_sessions WHERE id = ?`,
       sessionId,
     );
