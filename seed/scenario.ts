@@ -98,7 +98,7 @@ export const DEMO_USER_IDS: Record<Role, string> = {
 /** The training ground: fictional, in the English Midlands, ~88 m above sea level. */
 const GROUND = { name: 'Longmere Lane Training Centre', latitude: 52.7713, longitude: -1.5528, altitudeM: 88, kickingBearingDeg: 205 };
 
-/** The club's kicking-load caution threshold (reps per player per session, DESIGN §10). */
+/** The club's kicking-load caution threshold (reps per player per session, docs/design.md §10). */
 const REP_LIMIT_PER_SESSION = 40;
 
 /** How many rows of each table the scenario inserted. */

@@ -2,7 +2,7 @@
  * Levenberg–Marquardt for small nonlinear least-squares problems (a handful of parameters, a few dozen
  * residuals), with a central-difference Jacobian because the residuals come from integrating the flight
  * model. Method: Levenberg 1944 / Marquardt 1963 with the parameter scaling of Moré 1978 ("The
- * Levenberg–Marquardt algorithm: implementation and theory", Lecture Notes in Mathematics 630) — the
+ * Levenberg–Marquardt algorithm: implementation and theory", Springer LNM 630) — the
  * damping acts on D² with D the running maximum of the Jacobian's column norms, so the step does not
  * depend on the parameters' units — and the damping update of Nielsen 1999 as given in Madsen, Nielsen &
  * Tingleff 2004, *Methods for Non-Linear Least Squares Problems* (IMM, DTU), §3.2 (gain ratio ρ;

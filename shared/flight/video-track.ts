@@ -76,7 +76,7 @@ export type LaunchTrackResult = LaunchTrackFit | LaunchTrackFailure;
 
 /** Fewest taps: four parameters need more than two points' worth of pixels, and five leave a check. */
 export const MIN_TRACK_POINTS = 5;
-/** Most taps one fit takes (a 240 fps clip of a 5 s flight has 1,200 frames; a few dozen taps suffice). */
+/** Most taps one fit takes (a 240 fps video of a 5 s flight has 1,200 frames; a few dozen taps suffice). */
 export const MAX_TRACK_POINTS = 400;
 /**
  * Measured speeds outside this range are refused: nothing slower than 5 m/s leaves the ground as a kick
