@@ -14,8 +14,16 @@
  * log with a kick no one strikes.
  */
 
-import { type AimedSpeedFit, NeededSpeeds, softMinLog } from './aimed-speed';
-import { type Censored, evidenceCarryM, launchShift, type LaunchUnknowns, type PreparedKick, SpeedBounds } from './profile-observations';
+import { type AimLaunch, type AimedSpeedFit, NeededSpeeds, softMinLog } from './aimed-speed';
+import {
+  type Censored,
+  evidenceCarryM,
+  launchShift,
+  type LaunchShift,
+  type LaunchUnknowns,
+  type PreparedKick,
+  SpeedBounds,
+} from './profile-observations';
 import { CEILING_PRIOR_LOG_SD, type ProfilePrior } from './profile-types';
 import { inverseHessian, logNormalIntervalProbability, logNormalPdf, nelderMead } from './stats';
 
@@ -40,7 +48,7 @@ export interface SpeedEvidence {
   lnNeed: number;
   /** A point's own measurement spread (a timed repetition), ln units. */
   relSd: number;
-  shift: { meanLog: number; varLog: number };
+  shift: LaunchShift;
 }
 
 /** Result of the speed fit. */
@@ -68,6 +76,7 @@ export function speedEvidence(
   unknownsOf: (k: PreparedKick) => LaunchUnknowns,
   bounds: SpeedBounds,
   needs: NeededSpeeds,
+  intended: AimLaunch,
 ): SpeedEvidence[] {
   const out: SpeedEvidence[] = [];
   prepared.forEach((k, i) => {
@@ -78,9 +87,10 @@ export function speedEvidence(
       index: i,
       lo: logBound(o.lo),
       hi: logBound(o.hi),
-      lnNeed: Math.log(needs.neededMs(k.targetDistanceM, k, k.conditions)),
+      // The player strikes for the ball they mean (their usual launch); this one's own launch moves where it lands.
+      lnNeed: Math.log(needs.neededMs(k.targetDistanceM, intended, k.conditions)),
       relSd: o.relSd ?? 0,
-      shift: carry === null ? { meanLog: 0, varLog: 0 } : launchShift(k, carry, unknownsOf(k), bounds),
+      shift: carry === null ? { meanLog: 0, varLog: 0, spin: { meanLog: 0, varLog: 0 } } : launchShift(k, carry, unknownsOf(k), bounds),
     });
   });
   return out;
@@ -88,8 +98,8 @@ export function speedEvidence(
 
 /** See SpeedFit.evidenceProbability. */
 function surprise(o: SpeedEvidence, centre: number, sd: number, lambda2: number): number {
-  const c = centre - lambda2 * o.shift.meanLog;
-  const s2 = sd * sd + lambda2 * o.shift.varLog;
+  const c = centre - lambda2 * o.shift.meanLog - o.shift.spin.meanLog;
+  const s2 = sd * sd + lambda2 * o.shift.varLog + o.shift.spin.varLog;
   if (o.lo === o.hi) {
     const z = Math.abs(o.lo - c) / Math.sqrt(s2 + o.relSd * o.relSd);
     return 2 * Math.exp(logNormalIntervalProbability(Number.NEGATIVE_INFINITY, -z));
@@ -99,8 +109,8 @@ function surprise(o: SpeedEvidence, centre: number, sd: number, lambda2: number)
 }
 
 function logProbability(o: SpeedEvidence, centre: number, sd: number, lambda2: number): number {
-  const c = centre - lambda2 * o.shift.meanLog;
-  const s2 = sd * sd + lambda2 * o.shift.varLog;
+  const c = centre - lambda2 * o.shift.meanLog - o.shift.spin.meanLog;
+  const s2 = sd * sd + lambda2 * o.shift.varLog + o.shift.spin.varLog;
   if (o.lo === o.hi) {
     const s = Math.sqrt(s2 + o.relSd * o.relSd);
     return logNormalPdf((o.lo - c) / s) - Math.log(s);
