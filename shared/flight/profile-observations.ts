@@ -263,16 +263,33 @@ export function speedObservation(kick: PreparedKick, bounds: SpeedBounds): Censo
 /** Landings turned more than this off the kick's line say nothing about aim (a ball held up or blown back by the wind), degrees. */
 const MAX_AIM_READING_DEG = 45;
 
+/** What is not known of a repetition's launch when its aim is read: spreads about the launch it is read at. */
+export interface AimUnknowns {
+  elevationSdDeg: number;
+  backspinSdRps: number;
+  sidespinSdRps: number;
+}
+
 /**
  * The aim error (launch azimuth, degrees) a repetition gives, or null. Players aim off for the curl of the
  * ball they mean to strike — `intended`, the player's usual launch, judged in still air (as sampling and
  * reach curves assume) — so the landing's bearing is the aim error plus how far this ball turned beyond
  * that: its own curl (at its best-guess spin) and the wind's drift, in its own conditions. In still air a
  * kick turned by an angle lands at its reference landing point turned by it, so lateral = ρ sin(bearing).
- * The curl of a sidespin known only to `sidespinSdRps` adds its variance to this observation alone
- * (`extraVar`), so the aim spread is not widened by spin the sampler draws separately.
+ *
+ * How far the ball turned depends on the parts of its launch that are not known (`unknowns`): the
+ * sidespin's curl, and in wind the drift of a ball that reached this carry higher or lower, with more or
+ * less backspin. Their variance (one-at-a-time central differences, the carry held) is added to this
+ * observation alone (`extraVar`): sampling draws those launch spreads itself, so the aim spread must not
+ * carry them too.
  */
-export function aimObservation(kick: PreparedKick, speedMs: number, intended?: AimLaunchOf, sidespinSdRps = 0): Censored | null {
+export function aimObservation(
+  kick: PreparedKick,
+  speedMs: number,
+  intended?: AimLaunchOf,
+  unknowns?: AimUnknowns,
+  bounds: SpeedBounds = new SpeedBounds(),
+): Censored | null {
   const r = kick.targetRadiusM;
   let lateral: Censored | null = null;
   if (kick.lateralM !== null) lateral = { lo: kick.lateralM, hi: kick.lateralM };
@@ -285,22 +302,45 @@ export function aimObservation(kick: PreparedKick, speedMs: number, intended?: A
   if (!(rho > 0.5)) return null;
   const meant = intended ? { ...kick, ...intended } : kick;
   const still = referenceFlight(meant, speedMs, intentionConditions(kick.conditions));
-  const bearing = (f: { landingX: number; landingY: number }): number => Math.atan2(f.landingY, f.landingX) / DEG;
-  const [landed, aimedOff] = [bearing(ref), bearing(still)];
+  const [landed, aimedOff] = [bearingDeg(ref), bearingDeg(still)];
   if (Math.abs(landed) > MAX_AIM_READING_DEG || Math.abs(aimedOff) > MAX_AIM_READING_DEG) return null;
   const turnDeg = landed - aimedOff;
-  let extraVar = 0;
-  if (sidespinSdRps > 0) {
-    const h = sidespinSdRps;
-    const plus = bearing(referenceFlight({ ...kick, sidespinRps: kick.sidespinRps + h }, speedMs));
-    const minus = bearing(referenceFlight({ ...kick, sidespinRps: kick.sidespinRps - h }, speedMs));
-    extraVar = ((plus - minus) / 2) ** 2;
-  }
+  const extraVar = unknowns ? turnVariance(kick, speedMs, ref.carryM, unknowns, bounds) : 0;
   const toAzimuth = (lat: number): number => {
     if (lat === Number.POSITIVE_INFINITY || lat === Number.NEGATIVE_INFINITY) return lat;
     return Math.asin(Math.max(-1, Math.min(1, lat / rho))) / DEG - turnDeg;
   };
   return { lo: toAzimuth(lateral.lo), hi: toAzimuth(lateral.hi), ...(extraVar > 0 ? { extraVar } : {}) };
+}
+
+function bearingDeg(f: { landingX: number; landingY: number }): number {
+  return Math.atan2(f.landingY, f.landingX) / DEG;
+}
+
+/**
+ * Variance (degrees²) of how far a repetition turned, over its unknown launch: sidespin at the reading's
+ * speed; elevation and backspin with the speed re-solved so the ball still carries `carryM` (what the log
+ * says), which in still air barely turns it and in a crosswind changes its drift.
+ */
+function turnVariance(kick: PreparedKick, speedMs: number, carryM: number, unknowns: AimUnknowns, bounds: SpeedBounds): number {
+  let v = 0;
+  const half = (plus: PreparedKick, minus: PreparedKick, keepCarry: boolean): number => {
+    const speedOf = (k: PreparedKick): number => (keepCarry ? bounds.speedFor(k, carryM) : speedMs);
+    const [sp, sm] = [speedOf(plus), speedOf(minus)];
+    if (!(sp > 1 && sm > 1 && sp < 60 && sm < 60)) return 0;
+    return (bearingDeg(referenceFlight(plus, sp)) - bearingDeg(referenceFlight(minus, sm))) / 2;
+  };
+  const h = unknowns.sidespinSdRps;
+  if (h > 0) v += half({ ...kick, sidespinRps: kick.sidespinRps + h }, { ...kick, sidespinRps: kick.sidespinRps - h }, false) ** 2;
+  const windy = (kick.conditions.wind?.speedMs ?? 0) > 0;
+  if (windy && carryM > 0.5) {
+    const e = unknowns.elevationSdDeg;
+    const at = (x: number): PreparedKick => ({ ...kick, elevationDeg: Math.min(85, Math.max(1, x)) });
+    if (e > 0) v += half(at(kick.elevationDeg + e), at(kick.elevationDeg - e), true) ** 2;
+    const b = unknowns.backspinSdRps;
+    if (b > 0) v += half({ ...kick, backspinRps: kick.backspinRps + b }, { ...kick, backspinRps: kick.backspinRps - b }, true) ** 2;
+  }
+  return v;
 }
 
 /** The launch a player means to strike, apart from speed. */

@@ -9,8 +9,7 @@
  * (method of moments for additive measurement error, e.g. Fuller 1987, *Measurement Error Models*,
  * Wiley, §1.1), shrunk toward a prior spread worth a few repetitions; each repetition's best guess of
  * its real rate is its logged rate pulled toward the mean by the reliability ratio κ = s² / (s² + e²),
- * with the remaining uncertainty κ e² (the normal–normal posterior). Measured or timed spins carry no
- * logging error and are taken as they are.
+ * with the remaining uncertainty κ e² (the normal–normal posterior).
  */
 
 import { backspinLogSdRps, sidespinLogSdRps } from './profile-priors';
@@ -59,16 +58,21 @@ export function spinAxis(rates: readonly number[], errorSd: readonly number[]): 
   return { mean, sd, best, postSd };
 }
 
-/** Both spin axes of a player's repetitions (eye-logged steps carry their step's uncertainty; measured spins none). */
+/**
+ * Both spin axes of a player's repetitions. Eye-logged steps carry their step's uncertainty. A device
+ * or a stopwatch gives a rate, not an axis: it pins the backspin only when no sidespin was logged (the
+ * rate is then the backspin's), and the sidespin — split off the measured rate by the logged direction
+ * when one was logged — keeps the eye's uncertainty.
+ */
 export function playerSpin(prepared: readonly PreparedKick[]): { back: SpinAxis; side: SpinAxis } {
   return {
     back: spinAxis(
       prepared.map((k) => k.backspinRps),
-      prepared.map((k) => (k.spinMeasured ? 0 : backspinLogSdRps(k.backspinStep))),
+      prepared.map((k) => (k.spinMeasured && k.sidespinStep === 0 ? 0 : backspinLogSdRps(k.backspinStep))),
     ),
     side: spinAxis(
       prepared.map((k) => k.sidespinRps),
-      prepared.map((k) => (k.spinMeasured ? 0 : sidespinLogSdRps(k.sidespinStep))),
+      prepared.map((k) => sidespinLogSdRps(k.sidespinStep)),
     ),
   };
 }

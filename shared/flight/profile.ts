@@ -207,7 +207,12 @@ export function fitProfile(
     const s = speedObs[i];
     const expected = Math.exp(intendedLogs[i]! + aimed.offsetLogMean);
     const representative = s ? Math.min(Math.max(expected, s.lo), s.hi) : expected;
-    return aimObservation(k, Math.min(60, Math.max(1, representative)), meanLaunch, spin.side.postSd[i]);
+    const unknowns = {
+      elevationSdDeg: k.angleMeasured ? 0 : lambda * ELEVATION_SD_PRIOR_DEG[technique],
+      backspinSdRps: spin.back.postSd[i]!,
+      sidespinSdRps: spin.side.postSd[i]!,
+    };
+    return aimObservation(k, Math.min(60, Math.max(1, representative)), meanLaunch, unknowns, bounds);
   });
   const aimList = aimObs.filter((o): o is Censored => o !== null);
   const aim = fitNormal(aimList, {
