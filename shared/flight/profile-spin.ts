@@ -16,26 +16,16 @@ import { backspinLogSdRps, sidespinLogSdRps } from './profile-priors';
 import type { PreparedKick } from './profile-observations';
 
 /**
- * Prior spread of a player's real spin between repetitions, rev/s, worth `SPIN_PRIOR_WEIGHT_REPS`
- * repetitions (common practice: a step of the spin scale is 3–4 rev/s and players seldom miss their
- * intended spin by a whole step).
+ * Prior spread of a player's real spin between repetitions of one strike, rev/s, worth
+ * `SPIN_PRIOR_WEIGHT_REPS` repetitions (common practice: well under a step of the spin scale, which is
+ * 3–4 rev/s; an eye cannot tell the difference, so a record that says nothing about it must not be read
+ * as a player whose spin wanders). With a linear lift law even ±0.4 rev/s of backspin moves a driven
+ * ball's carry by metres, so this prior is what a perfect record is up against.
  */
-export const SPIN_SD_PRIOR_RPS = 1;
+export const SPIN_SD_PRIOR_RPS = 0.5;
 export const SPIN_PRIOR_WEIGHT_REPS = 3;
-/** No two strikes carry exactly the same spin: the player's spread is never taken below this, rev/s (common practice). */
-export const SPIN_SD_FLOOR_RPS = 0.3;
-
-/** The player's spin on one axis and each repetition's best guess of its real rate. */
-export interface SpinAxis {
-  /** Mean rate, rev/s (the logged rates' mean: the eye's error averages out). */
-  mean: number;
-  /** The player's own spread between repetitions, rev/s (logging error removed). */
-  sd: number;
-  /** Per repetition: best guess of the real rate, rev/s. */
-  best: number[];
-  /** Per repetition: standard deviation of the real rate about `best`, rev/s. */
-  postSd: number[];
-}
+/** The player's spread is never taken below this, rev/s (common practice: no two strikes carry exactly the same spin). */
+export const SPIN_SD_FLOOR_RPS = 0.1;
 
 /** One axis from logged rates and each one's logging error (0 when measured). */
 export function spinAxis(rates: readonly number[], errorSd: readonly number[]): SpinAxis {
