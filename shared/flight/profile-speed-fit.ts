@@ -3,12 +3,15 @@
  * to every repetition's censored ln-speed evidence, with the repetition's unknown launch integrated out.
  *
  * A repetition logged without a measured angle was kicked at *some* angle near the technique's default,
- * and a spin step logged by eye is right only to about a step. Its speed evidence, read at the assumed
- * launch, is then off by Δ = ln V(actual) − ln V(assumed) (profile-observations.ts, launchShift), so with
- * ln v ~ N(c, σ²) the evidence is ln v − Δ ~ N(c − λ²·E[Δ], σ² + λ²·Var[Δ]): the censoring interval is
- * widened by the launch uncertainty. λ (the launch-noise scale) multiplies the assumed spreads and is
- * fitted with a weak prior centred on 1, so a tight record on a small target can say the launches were tighter
- * than assumed, and wild logs cannot be blamed on inconsistency alone.
+ * and its real backspin is known only about its best guess from the eye-logged step (profile-spin.ts).
+ * Its speed evidence, read at that launch, is then off by Δ = ln V(actual) − ln V(assumed)
+ * (profile-observations.ts, launchShift), so with ln v ~ N(c, σ²) the evidence is
+ * ln v − Δ ~ N(c − λ²·E[Δₑ] − E[Δₛ], σ² + λ²·Var[Δₑ] + Var[Δₛ]): the censoring interval is widened by the
+ * launch uncertainty. λ (the launch-noise scale) multiplies the assumed elevation spread and is fitted
+ * with a weak prior centred on 1, so a tight record on a small target can say the launches were tighter
+ * than assumed, and wild logs cannot be blamed on inconsistency alone; the spin part Δₛ is the player's
+ * own, estimated from the logs, and is not scaled. The speed each repetition needed is that of the
+ * player's usual launch: they strike for the ball they mean, and this one's launch moves where it lands.
  *
  * The ceiling is bounded by the physiological speed cap (profile-priors.ts): the fit may not explain a
  * log with a kick no one strikes.

@@ -128,14 +128,14 @@ export interface KickProfile {
   backspinRps: number;
   sidespinRps: number;
   /**
-   * Spread of backspin between kicks, rev/s, as drawn: the larger of the spread of the logged rates and
-   * the eye-logging uncertainty (a step counts as ±1 step; measured or timed spins count as exact) scaled
-   * by `launchNoiseScale`. Likewise `sdSidespinRps`.
+   * Spread of backspin between kicks, rev/s, as drawn: the player's own, estimated as the logged rates'
+   * spread less the eye's logging error (a step counts as ±1 step; a measured rate pins the backspin when
+   * no sidespin was logged), shrunk toward half a rev/s (profile-spin.ts). Likewise `sdSidespinRps`.
    */
   sdBackspinRps: number;
   sdSidespinRps: number;
   /**
-   * Share of the assumed launch uncertainty (prior elevation spread, eye-logged spin) the logs support,
+   * Share of the assumed elevation spread (the technique's prior) the logs support,
    * fitted in [0.05, 2] with a prior centred on 1: a tight record on a small target shrinks it.
    */
   launchNoiseScale: number;
