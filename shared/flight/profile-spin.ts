@@ -27,6 +27,18 @@ export const SPIN_PRIOR_WEIGHT_REPS = 3;
 /** The player's spread is never taken below this, rev/s (common practice: no two strikes carry exactly the same spin). */
 export const SPIN_SD_FLOOR_RPS = 0.1;
 
+/** The player's spin on one axis and each repetition's best guess of its real rate. */
+export interface SpinAxis {
+  /** Mean rate, rev/s (the logged rates' mean: the eye's error averages out). */
+  mean: number;
+  /** The player's own spread between repetitions, rev/s (logging error removed). */
+  sd: number;
+  /** Per repetition: best guess of the real rate, rev/s. */
+  best: number[];
+  /** Per repetition: standard deviation of the real rate about `best`, rev/s. */
+  postSd: number[];
+}
+
 /** One axis from logged rates and each one's logging error (0 when measured). */
 export function spinAxis(rates: readonly number[], errorSd: readonly number[]): SpinAxis {
   const n = rates.length;
