@@ -120,8 +120,31 @@ export function predictiveSpeedLogSd(p: KickProfile): number {
 const MAX_LAUNCH_Z = 3;
 
 /**
- * Draw `samples` kicks' launch noise with a seeded stream. Per sample, in this order: speed, elevation,
- * azimuth, backspin, sidespin (normals), ceiling (a uniform, inverted through the truncated normal).
+ * Stratified uniforms for one dimension (Latin hypercube sampling: McKay, Beckman & Conover 1979,
+ * Technometrics 21:239): one draw in each of `n` equal strata of (0, 1), the strata in random order. A
+ * fixed seed then cannot carry a lucky or unlucky spread into every answer drawn with it — with plain
+ * draws the sample spread of 1,000 normals is off by about 2 %, which moves a reliable reach on a flat
+ * hit-probability curve by a metre, the same way for every profile.
+ */
+function stratifiedUniforms(rng: SeededRandom, n: number): Float64Array {
+  const order = new Int32Array(n);
+  for (let i = 0; i < n; i++) order[i] = i;
+  for (let i = n - 1; i > 0; i--) {
+    const j = Math.floor(rng.uniform() * (i + 1));
+    const t = order[i]!;
+    order[i] = order[j]!;
+    order[j] = t;
+  }
+  const out = new Float64Array(n);
+  for (let i = 0; i < n; i++) out[i] = Math.min(1 - 1e-12, Math.max(1e-12, (order[i]! + rng.uniform()) / n));
+  return out;
+}
+
+/**
+ * Draw `samples` kicks' launch noise with a seeded stream: per dimension — speed, elevation, azimuth,
+ * backspin, sidespin (normals) and ceiling (a uniform, inverted through the truncated normal) — one
+ * stratified draw per sample (Latin hypercube), so each dimension's sample follows its distribution
+ * closely whatever the seed; the dimensions are paired at random.
  */
 export function drawLaunchNoise(p: KickProfile, samples: number, seed: number): LaunchNoise[] {
   requireInteger('samples', samples, 1, 200000);
@@ -137,19 +160,19 @@ export function drawLaunchNoise(p: KickProfile, samples: number, seed: number): 
     a.ceilingLogSe > 0
       ? [floor > 0 ? normalCdf((Math.log(floor) - lnC) / a.ceilingLogSe) : 0, normalCdf((lnCap - lnC) / a.ceilingLogSe)]
       : [0, 1];
-  const z = (): number => clamp(rng.normal(), -MAX_LAUNCH_Z, MAX_LAUNCH_Z);
+  const [uSpeed, uElevation, uAzimuth, uBack, uSide, uCeiling] = Array.from({ length: 6 }, () => stratifiedUniforms(rng, samples));
+  const z = (u: Float64Array, i: number): number => clamp(normalQuantile(u[i]!), -MAX_LAUNCH_Z, MAX_LAUNCH_Z);
   const out: LaunchNoise[] = [];
   for (let i = 0; i < samples; i++) {
-    const zSpeed = rng.normal();
     const launch = {
-      elevationDeg: clamp(p.elevationDeg + p.sdElevationDeg * z(), 0.5, 89.5),
-      azimuthDeg: clamp(p.meanAzimuthDeg + sdAim * rng.normal(), -45, 45),
-      backspinRps: clamp(p.backspinRps + p.sdBackspinRps * z(), -30, 30),
-      sidespinRps: clamp(p.sidespinRps + p.sdSidespinRps * z(), -30, 30),
+      elevationDeg: clamp(p.elevationDeg + p.sdElevationDeg * z(uElevation!, i), 0.5, 89.5),
+      azimuthDeg: clamp(p.meanAzimuthDeg + sdAim * normalQuantile(uAzimuth![i]!), -45, 45),
+      backspinRps: clamp(p.backspinRps + p.sdBackspinRps * z(uBack!, i), -30, 30),
+      sidespinRps: clamp(p.sidespinRps + p.sdSidespinRps * z(uSide!, i), -30, 30),
     };
-    const u = pLo + (pHi - pLo) * rng.uniform();
+    const u = pLo + (pHi - pLo) * uCeiling![i]!;
     const lnCeiling = a.ceilingLogSe > 0 && pHi > pLo ? Math.min(lnCap, lnC + a.ceilingLogSe * normalQuantile(u)) : Math.min(lnC, lnCap);
-    out.push({ launch, zSpeed, lnCeiling });
+    out.push({ launch, zSpeed: normalQuantile(uSpeed![i]!), lnCeiling });
   }
   return out;
 }
