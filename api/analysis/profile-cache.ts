@@ -34,7 +34,8 @@ export const PROFILE_ENVELOPE_SEED = 20_260_101;
  * speed cap, a one-sided ceiling posterior, priors by ball size, and warnings. 4: the coach's eye taken
  * out of logged spin (profile-spin.ts), speed read against the usual launch, aim read against the usual
  * ball's aim-off with its unknown turn as per-observation variance, and a speed-spread prior about need.
- * 5: launch noise drawn by Latin hypercube (sampling.ts), so cached reach curves lose their seed's luck.
+ * 5: launch noise drawn by Latin hypercube (sampling.ts), so cached reach curves lose their seed's luck;
+ * the launch shift's curvature variance scaled by λ⁴ in the speed fit (profile-speed-fit.ts).
  */
 export const PROFILE_MODEL_VERSION = 5;
 /** Target radius used for reliable reach when a player's logs give none (common practice). */

@@ -122,6 +122,11 @@ export interface LaunchUnknowns {
 export interface ShiftMoments {
   meanLog: number;
   varLog: number;
+  /**
+   * The part of `varLog` from the shift's curvature, 2·meanLog² (exact for a shift quadratic in the
+   * launch error): when the spread is scaled by λ it grows as λ⁴, the rest (the slope's) as λ².
+   */
+  curvatureVarLog?: number;
 }
 
 /**
@@ -151,7 +156,9 @@ export function launchShift(kick: PreparedKick, carryM: number, unknowns: Launch
     const dp = Math.log(bounds.speedFor(plus, carryM)) - base;
     const dm = Math.log(bounds.speedFor(minus, carryM)) - base;
     const m = (dp + dm) / 6;
-    return { meanLog: m, varLog: Math.max(0, (dp * dp + dm * dm) / 6 - m * m) };
+    // For Δ = a·e + b·e² (e ~ N(0, s²)), the nodes give a·s = (dp − dm)/(2√3) and b·s² = m:
+    // Var Δ = a²s² + 2b²s⁴ = (dp − dm)²/12 + 2m², the same as the quadrature's own (dp² + dm²)/6 − m².
+    return { meanLog: m, varLog: (dp - dm) ** 2 / 12 + 2 * m * m, curvatureVarLog: 2 * m * m };
   };
   let elevation = none();
   let spin = none();

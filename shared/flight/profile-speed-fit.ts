@@ -6,7 +6,8 @@
  * and its real backspin is known only about its best guess from the eye-logged step (profile-spin.ts).
  * Its speed evidence, read at that launch, is then off by Δ = ln V(actual) − ln V(assumed)
  * (profile-observations.ts, launchShift), so with ln v ~ N(c, σ²) the evidence is
- * ln v − Δ ~ N(c − λ²·E[Δₑ] − E[Δₛ], σ² + λ²·Var[Δₑ] + Var[Δₛ]): the censoring interval is widened by the
+ * ln v − Δ ~ N(c − λ²·E[Δₑ] − E[Δₛ], σ² + Var[Δₑ at λ] + Var[Δₛ]) (the slope's part of Var[Δₑ] scales with λ², the
+ * curvature's with λ⁴): the censoring interval is widened by the
  * launch uncertainty. λ (the launch-noise scale) multiplies the assumed elevation spread and is fitted
  * with a weak prior centred on 1, so a tight record on a small target can say the launches were tighter
  * than assumed, and wild logs cannot be blamed on inconsistency alone; the spin part Δₛ is the player's
@@ -99,10 +100,21 @@ export function speedEvidence(
   return out;
 }
 
+/**
+ * Variance of a repetition's launch shift at launch-noise scale λ (`lambda2` = λ²): the slope's part
+ * scales with λ², the curvature's with λ⁴ (profile-observations.ts, ShiftMoments). Scaling all of it by
+ * λ² would let a wide λ cost the fit too little where a launch sits near its best angle (chips), and a
+ * narrow one keep spread the sampler never draws.
+ */
+function launchVariance(o: SpeedEvidence, lambda2: number): number {
+  const curvature = o.shift.curvatureVarLog ?? 0;
+  return lambda2 * (o.shift.varLog - curvature) + lambda2 * lambda2 * curvature + o.shift.spin.varLog;
+}
+
 /** See SpeedFit.evidenceProbability. */
 function surprise(o: SpeedEvidence, centre: number, sd: number, lambda2: number): number {
   const c = centre - lambda2 * o.shift.meanLog - o.shift.spin.meanLog;
-  const s2 = sd * sd + lambda2 * o.shift.varLog + o.shift.spin.varLog;
+  const s2 = sd * sd + launchVariance(o, lambda2);
   if (o.lo === o.hi) {
     const z = Math.abs(o.lo - c) / Math.sqrt(s2 + o.relSd * o.relSd);
     return 2 * Math.exp(logNormalIntervalProbability(Number.NEGATIVE_INFINITY, -z));
@@ -113,7 +125,7 @@ function surprise(o: SpeedEvidence, centre: number, sd: number, lambda2: number)
 
 function logProbability(o: SpeedEvidence, centre: number, sd: number, lambda2: number): number {
   const c = centre - lambda2 * o.shift.meanLog - o.shift.spin.meanLog;
-  const s2 = sd * sd + lambda2 * o.shift.varLog + o.shift.spin.varLog;
+  const s2 = sd * sd + launchVariance(o, lambda2);
   if (o.lo === o.hi) {
     const s = Math.sqrt(s2 + o.relSd * o.relSd);
     return logNormalPdf((o.lo - c) / s) - Math.log(s);
