@@ -17,7 +17,15 @@ import {
   inviteRequestSchema,
   resetPasswordSchema,
 } from '../../shared/schemas/mail';
-import { pullQuerySchema, pushRequestSchema } from '../../shared/schemas/sync';
+import {
+  playerKicksResponseSchema,
+  profileEntrySchema,
+  progressResponseSchema,
+  spinEstimatesResponseSchema,
+  squadProfilesResponseSchema,
+  squadWeekSchema,
+} from '../../shared/schemas/analysis';
+import { pullQuerySchema, pullResponseSchema, pushRequestSchema, pushResponseSchema } from '../../shared/schemas/sync';
 import { usersQuerySchema } from '../admin/admin.router';
 import { runSchema } from '../digests/digests.router';
 import { eraseSchema } from '../exports/erasure.router';
@@ -32,6 +40,7 @@ import {
   groundListSchema,
   healthSchema,
   meSchema,
+  playerAnswerSchema,
   playerListSchema,
   squadListSchema,
 } from './responses';
@@ -219,7 +228,7 @@ export const OPERATIONS: readonly Operation[] = [
     summary: 'Squad week: per-player figures, zones, load cautions',
     access: STAFF,
     query: weekQuerySchema,
-    answer: anyObjectSchema,
+    answer: squadWeekSchema,
   },
   {
     method: 'GET',
@@ -228,7 +237,7 @@ export const OPERATIONS: readonly Operation[] = [
     summary: "Every player's fitted launch profile for one technique",
     access: STAFF,
     query: profileQuerySchema,
-    answer: anyObjectSchema,
+    answer: squadProfilesResponseSchema,
   },
   {
     method: 'GET',
@@ -239,7 +248,14 @@ export const OPERATIONS: readonly Operation[] = [
     query: listPlayersQuerySchema,
     answer: playerListSchema,
   },
-  { method: 'GET', path: '/api/players/:id', tag: 'Players', summary: 'One player', access: [...STAFF, 'player'], answer: anyObjectSchema },
+  {
+    method: 'GET',
+    path: '/api/players/:id',
+    tag: 'Players',
+    summary: 'One player',
+    access: [...STAFF, 'player'],
+    answer: playerAnswerSchema,
+  },
   {
     method: 'GET',
     path: '/api/players/:id/progress',
@@ -247,7 +263,7 @@ export const OPERATIONS: readonly Operation[] = [
     summary: 'Weekly progress per technique',
     access: [...STAFF, 'player'],
     query: progressQuerySchema,
-    answer: anyObjectSchema,
+    answer: progressResponseSchema,
   },
   {
     method: 'GET',
@@ -256,7 +272,7 @@ export const OPERATIONS: readonly Operation[] = [
     summary: 'Recent kicks',
     access: [...STAFF, 'player'],
     query: kicksQuerySchema,
-    answer: anyObjectSchema,
+    answer: playerKicksResponseSchema,
   },
   {
     method: 'GET',
@@ -265,7 +281,7 @@ export const OPERATIONS: readonly Operation[] = [
     summary: 'Fitted launch profile and reach curve for one technique',
     access: [...STAFF, 'player'],
     query: profileQuerySchema,
-    answer: anyObjectSchema,
+    answer: profileEntrySchema,
   },
   {
     method: 'GET',
@@ -273,7 +289,7 @@ export const OPERATIONS: readonly Operation[] = [
     tag: 'Players',
     summary: 'Spin and speed solved from timed repetitions',
     access: [...STAFF, 'player'],
-    answer: anyObjectSchema,
+    answer: spinEstimatesResponseSchema,
   },
   {
     method: 'POST',
@@ -282,7 +298,7 @@ export const OPERATIONS: readonly Operation[] = [
     summary: 'Push outbox mutations (each applied at most once)',
     access: STAFF,
     body: pushRequestSchema,
-    answer: anyObjectSchema,
+    answer: pushResponseSchema,
   },
   {
     method: 'GET',
@@ -291,7 +307,7 @@ export const OPERATIONS: readonly Operation[] = [
     summary: 'Changes since a cursor',
     access: [...STAFF, 'player'],
     query: pullQuerySchema,
-    answer: anyObjectSchema,
+    answer: pullResponseSchema,
   },
   { method: 'GET', path: '/api/grounds', tag: 'Grounds', summary: "The club's training grounds", access: STAFF, answer: groundListSchema },
   {
