@@ -7,12 +7,14 @@ import type * as z from 'zod';
 import { ROLES, type Role } from '../../shared/roles';
 import { loginRequestSchema, refreshRequestSchema } from '../../shared/schemas/auth';
 import { clubSettingsUpdateSchema } from '../../shared/schemas/club';
-import { groundInputSchema } from '../../shared/schemas/grounds';
+import { groundConditionsSchema, groundInputSchema, groundSchema } from '../../shared/schemas/grounds';
 import {
   acceptInviteSchema,
+  childSummarySchema,
   consentSchema,
   createLinkSchema,
   digestOptInSchema,
+  digestRunResultSchema,
   forgotPasswordSchema,
   inviteRequestSchema,
   resetPasswordSchema,
@@ -35,11 +37,16 @@ import { weekQuerySchema } from '../squads/squads.router';
 import {
   anyObjectSchema,
   authTokensSchema,
+  capturedMailAnswerSchema,
+  capturedMailListSchema,
   clubSettingsAnswerSchema,
   digestOptInAnswerSchema,
   groundListSchema,
+  guardianLinkAnswerSchema,
+  guardianLinkListSchema,
   healthSchema,
   meSchema,
+  outboxListSchema,
   playerAnswerSchema,
   playerListSchema,
   squadListSchema,
@@ -317,7 +324,7 @@ export const OPERATIONS: readonly Operation[] = [
     summary: 'Add a training ground',
     access: ['admin'],
     body: groundInputSchema,
-    answer: anyObjectSchema,
+    answer: groundSchema,
     created: true,
   },
   {
@@ -327,7 +334,7 @@ export const OPERATIONS: readonly Operation[] = [
     summary: 'Change a training ground',
     access: ['admin'],
     body: groundInputSchema,
-    answer: anyObjectSchema,
+    answer: groundSchema,
   },
   {
     method: 'GET',
@@ -335,7 +342,7 @@ export const OPERATIONS: readonly Operation[] = [
     tag: 'Grounds',
     summary: 'Weather at the ground now (or why not)',
     access: STAFF,
-    answer: anyObjectSchema,
+    answer: groundConditionsSchema,
   },
   {
     method: 'GET',
@@ -351,7 +358,7 @@ export const OPERATIONS: readonly Operation[] = [
     tag: 'Guardians',
     summary: 'Guardian links (admins: all; guardians: their own)',
     access: ['admin', 'guardian'],
-    answer: anyObjectSchema,
+    answer: guardianLinkListSchema,
   },
   {
     method: 'POST',
@@ -360,7 +367,7 @@ export const OPERATIONS: readonly Operation[] = [
     summary: 'Link a guardian to a player',
     access: ['admin'],
     body: createLinkSchema,
-    answer: anyObjectSchema,
+    answer: guardianLinkAnswerSchema,
     created: true,
   },
   {
@@ -378,7 +385,7 @@ export const OPERATIONS: readonly Operation[] = [
     summary: 'Give or withdraw consent',
     access: ['guardian'],
     body: consentSchema,
-    answer: anyObjectSchema,
+    answer: guardianLinkAnswerSchema,
   },
   {
     method: 'PUT',
@@ -387,7 +394,7 @@ export const OPERATIONS: readonly Operation[] = [
     summary: 'Family digest opt-in',
     access: ['guardian'],
     body: digestOptInSchema,
-    answer: anyObjectSchema,
+    answer: guardianLinkAnswerSchema,
   },
   {
     method: 'GET',
@@ -395,7 +402,7 @@ export const OPERATIONS: readonly Operation[] = [
     tag: 'Guardians',
     summary: "A linked child's summary",
     access: ['guardian'],
-    answer: anyObjectSchema,
+    answer: childSummarySchema,
   },
   {
     method: 'POST',
@@ -442,7 +449,14 @@ export const OPERATIONS: readonly Operation[] = [
     access: ['admin'],
     noContent: true,
   },
-  { method: 'GET', path: '/api/admin/outbox', tag: 'Admin', summary: "The club's mail outbox", access: ['admin'], answer: anyObjectSchema },
+  {
+    method: 'GET',
+    path: '/api/admin/outbox',
+    tag: 'Admin',
+    summary: "The club's mail outbox",
+    access: ['admin'],
+    answer: outboxListSchema,
+  },
   {
     method: 'POST',
     path: '/api/imports/roster',
@@ -485,7 +499,7 @@ export const OPERATIONS: readonly Operation[] = [
     summary: "Send the week's digests now (safe to repeat)",
     access: ['admin', 'head_coach'],
     body: runSchema,
-    answer: anyObjectSchema,
+    answer: digestRunResultSchema,
   },
   {
     method: 'GET',
@@ -493,7 +507,7 @@ export const OPERATIONS: readonly Operation[] = [
     tag: 'Mail',
     summary: 'Captured mail (development only, with the local fake SMTP server)',
     access: ['admin'],
-    answer: anyObjectSchema,
+    answer: capturedMailListSchema,
   },
   {
     method: 'GET',
@@ -501,6 +515,6 @@ export const OPERATIONS: readonly Operation[] = [
     tag: 'Mail',
     summary: 'One captured message (development only)',
     access: ['admin'],
-    answer: anyObjectSchema,
+    answer: capturedMailAnswerSchema,
   },
 ];

@@ -8,6 +8,8 @@
 import * as z from 'zod';
 import { sessionUserSchema } from '../../shared/schemas/auth';
 import { clubSettingsSchema } from '../../shared/schemas/club';
+import { groundSchema } from '../../shared/schemas/grounds';
+import { capturedMailMessageSchema, capturedMailSummarySchema, guardianLinkViewSchema, outboxMailSchema } from '../../shared/schemas/mail';
 import { apiErrorBodySchema, playerSummarySchema, squadSummarySchema } from '../../shared/schemas/squads';
 
 /** The error body every failing call answers with (4xx/5xx). */
@@ -43,18 +45,22 @@ export const playerListSchema = z.object({ players: z.array(playerSummarySchema)
 export const playerAnswerSchema = z.object({ player: playerSummarySchema });
 
 /** `GET /api/grounds`. */
-export const groundListSchema = z.object({
-  grounds: z.array(
-    z.object({
-      id: z.string(),
-      name: z.string(),
-      latitude: z.number().nullable(),
-      longitude: z.number().nullable(),
-      altitudeM: z.number(),
-      kickingBearingDeg: z.number(),
-    }),
-  ),
-});
+export const groundListSchema = z.object({ grounds: z.array(groundSchema) });
+
+/** `GET /api/guardians/links`. */
+export const guardianLinkListSchema = z.object({ links: z.array(guardianLinkViewSchema) });
+
+/** One guardian link created or changed (`POST /api/guardians/links`, consent, digest choice). */
+export const guardianLinkAnswerSchema = z.object({ link: guardianLinkViewSchema });
+
+/** `GET /api/admin/outbox`. */
+export const outboxListSchema = z.object({ mails: z.array(outboxMailSchema) });
+
+/** `GET /api/dev/mail`. */
+export const capturedMailListSchema = z.object({ messages: z.array(capturedMailSummarySchema) });
+
+/** `GET /api/dev/mail/:id`. */
+export const capturedMailAnswerSchema = z.object({ message: capturedMailMessageSchema });
 
 /** Any JSON object: answers documented by summary only. */
 export const anyObjectSchema = z.looseObject({});

@@ -76,7 +76,17 @@ describe('OpenAPI document', () => {
 
     it('covers the detailed GET answers', () => {
       expect(detailed.map((op) => op.path)).toEqual(
-        jasmine.arrayContaining(['/api/health', '/api/me', '/api/club/settings', '/api/squads', '/api/players', '/api/grounds']),
+        jasmine.arrayContaining([
+          '/api/health',
+          '/api/me',
+          '/api/club/settings',
+          '/api/squads',
+          '/api/players',
+          '/api/grounds',
+          '/api/guardians/links',
+          '/api/admin/outbox',
+          '/api/dev/mail',
+        ]),
       );
     });
 
@@ -131,6 +141,31 @@ describe('OpenAPI document', () => {
       const pushOp = OPERATIONS.find((o) => o.method === 'POST' && o.path === '/api/sync/push')!;
       const parsed = (pushOp.answer as z.ZodType).safeParse(push.body);
       expect(parsed.success ? [] : parsed.error.issues).toEqual([]);
+    });
+
+    it('GET answers of a ground’s conditions and a guardian’s child summary', async () => {
+      const admin = tokens.get('admin')!;
+      const groundId = (
+        (await request(t.app).get('/api/grounds').set('Authorization', `Bearer ${admin}`)).body as { grounds: { id: string }[] }
+      ).grounds[0]!.id;
+      const guardian = (await signIn(t.app, DEMO_ACCOUNTS.guardian)).accessToken;
+      const childId = (
+        (await request(t.app).get('/api/me').set('Authorization', `Bearer ${guardian}`)).body as { childPlayerIds: string[] }
+      ).childPlayerIds[0]!;
+      const calls: [string, string, string][] = [
+        ['/api/grounds/:id/conditions', `/api/grounds/${groundId}/conditions`, admin],
+        ['/api/guardians/children/:playerId/summary', `/api/guardians/children/${childId}/summary`, guardian],
+      ];
+      for (const [documented, path, token] of calls) {
+        const op = OPERATIONS.find((o) => o.method === 'GET' && o.path === documented)!;
+        expect(op.answer).withContext(documented).not.toBe(anyObjectSchema);
+        const res = await request(t.app).get(path).set('Authorization', `Bearer ${token}`);
+        expect(res.status).withContext(path).toBe(200);
+        const parsed = (op.answer as z.ZodType).safeParse(res.body);
+        expect(parsed.success ? [] : parsed.error.issues.slice(0, 3))
+          .withContext(path)
+          .toEqual([]);
+      }
     });
 
     it('references payloads defined once in shared/ from components.schemas', () => {

@@ -141,10 +141,11 @@ describe('a deploy while kicks wait to sync (end to end, Chromium, service worke
     const sessionId = new URL(page.url()).pathname.split('/').at(-1) ?? '';
     await page.getByRole('button', { name: 'Use this drill' }).click();
     await page.getByTestId('player-chip').first().waitFor();
-    await page
-      .getByTestId('sync-badge')
-      .filter({ hasText: /all synced/i })
-      .waitFor({ timeout: 30_000 });
+    const badge = page.getByTestId('sync-badge');
+    // The session and its drill reach the server (and the phone hears so) before the signal goes.
+    await until('the session to sync', async () => /all synced/i.test(await badge.innerText()), 90_000).catch(async (error: unknown) => {
+      throw new Error(`${String(error)}; sync badge: ${await badge.innerText()}`);
+    });
 
     // No signal: three repetitions wait in the outbox.
     gate.refusePushes = true;
