@@ -166,7 +166,15 @@ describe('a deploy while kicks wait to sync (end to end, Chromium, service worke
     await page.getByLabel('Carry').fill('31.5');
     deployNewBuild(clientDir);
     await context.setOffline(false);
-    await page.getByRole('status').filter({ hasText: 'it will be offered once this repetition is saved' }).waitFor({ timeout: 60_000 });
+    await page
+      .getByRole('status')
+      .filter({ hasText: 'it will be offered once this repetition is saved' })
+      .waitFor({ timeout: 60_000 })
+      .catch(async (error: unknown) => {
+        // The Angular service worker's own debug page says which versions it has and why an update failed.
+        const state = await page.evaluate(() => fetch('/ngsw/state').then((r) => r.text()));
+        throw new Error(`${String(error)}\n${state}`);
+      });
     expect(await page.getByRole('button', { name: 'Reload now' }).count()).toBe(0);
     await until('the push to be refused', () => gate.refused > 0);
     await page.getByTestId('sync-badge').filter({ hasText: '3 unsynced' }).waitFor();
