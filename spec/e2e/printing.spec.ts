@@ -25,7 +25,9 @@ async function printA4(page: Page): Promise<number> {
   const pdf = await page.pdf({ preferCSSPageSize: true, printBackground: true });
   expect(pdf.subarray(0, 5).toString('latin1')).toBe('%PDF-');
   const pages = pdfPages(pdf);
-  const declared = Number(/\/Type\s*\/Pages\b[\s\S]*?\/Count\s+(\d+)/.exec(pdf.toString('latin1'))?.[1] ?? NaN);
+  // The root of the page tree counts every page (the tree may nest; ISO 32000-1, 7.7.3.2).
+  const counts = [...pdf.toString('latin1').matchAll(/\/Type\s*\/Pages\b[^>]*?\/Count\s+(\d+)/g)].map((m) => Number(m[1]));
+  const declared = Math.max(...counts);
   expect(pages.length).withContext('page objects match the page tree count').toBe(declared);
   for (const size of pages) {
     expect(size.width).toBeCloseTo(A4_PT.width, 0);
@@ -46,7 +48,8 @@ async function printedView(page: Page): Promise<{ text: string; chromeShown: str
       return { text: document.body.innerText, chromeShown };
     });
   } finally {
-    await page.emulateMedia({ media: 'screen' });
+    // Back to no emulation (not "screen": page.pdf() would then print the screen layout).
+    await page.emulateMedia({ media: null });
   }
 }
 

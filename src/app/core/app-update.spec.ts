@@ -58,9 +58,11 @@ describe('AppUpdate (new version offer)', () => {
     expect(update.offer()).toBeFalse();
   });
 
-  it('asks the service worker for a new version when the connection returns and when the app comes back into view', () => {
+  it('asks the service worker for a new version when the connection returns and when the app comes back into view', async () => {
     TestBed.inject(AppUpdate);
     window.dispatchEvent(new Event('online'));
+    // One check at a time: the next event counts once the first check has answered.
+    await new Promise((done) => setTimeout(done));
     document.dispatchEvent(new Event('visibilitychange'));
     expect(checks).toBe(document.visibilityState === 'visible' ? 2 : 1);
   });
