@@ -227,40 +227,50 @@ export const pushRequestSchema = z.strictObject({
 });
 
 /** How the server answered one mutation. */
-export type MutationStatus = 'applied' | 'duplicate' | 'conflict' | 'rejected';
-
-/** The server's answer for one mutation. */
-export interface MutationResult {
-  id: string;
-  status: MutationStatus;
-  error?: { code: string; message: string; fields?: { field: string; message: string }[] };
-  /** For `conflict`: the server's row as it stands (the server wins). */
-  current?: SyncRow;
-}
+export const MUTATION_STATUSES = ['applied', 'duplicate', 'conflict', 'rejected'] as const;
+export type MutationStatus = (typeof MUTATION_STATUSES)[number];
 
 /** A synced row as the server sends it: the entity's data plus its bookkeeping. */
-export type SyncRow = Record<string, unknown> & { id: string; version: number; updatedAt: string; deletedAt: string | null };
+export const syncRowSchema = z
+  .looseObject({ id: z.string(), version: z.number().int(), updatedAt: z.string(), deletedAt: z.string().nullable() })
+  .meta({ id: 'SyncRow', description: "The entity's fields (as in the push payloads) plus its bookkeeping" });
+export type SyncRow = z.infer<typeof syncRowSchema>;
+
+/** The server's answer for one mutation. */
+export const mutationResultSchema = z
+  .object({
+    id: z.string(),
+    status: z.enum(MUTATION_STATUSES),
+    error: z
+      .object({ code: z.string(), message: z.string(), fields: z.array(z.object({ field: z.string(), message: z.string() })).optional() })
+      .optional(),
+    /** For `conflict`: the server's row as it stands (the server wins). */
+    current: syncRowSchema.optional(),
+  })
+  .meta({ id: 'MutationResult' });
+export type MutationResult = z.infer<typeof mutationResultSchema>;
 
 /** Answer of `POST /api/sync/push`. */
-export interface PushResponse {
-  results: MutationResult[];
-  /** The server's latest change sequence after this push (the client still pulls from its own cursor). */
-  cursor: number;
-}
+export const pushResponseSchema = z
+  .object({
+    results: z.array(mutationResultSchema),
+    /** The server's latest change sequence after this push (the client still pulls from its own cursor). */
+    cursor: z.number().int(),
+  })
+  .meta({ id: 'PushResponse' });
+export type PushResponse = z.infer<typeof pushResponseSchema>;
 
 /** One change in a pull. */
-export interface SyncChange {
-  entity: SyncEntity;
-  changeSeq: number;
-  data: SyncRow;
-}
+export const syncChangeSchema = z
+  .object({ entity: z.enum(SYNC_ENTITIES), changeSeq: z.number().int(), data: syncRowSchema })
+  .meta({ id: 'SyncChange' });
+export type SyncChange = z.infer<typeof syncChangeSchema>;
 
 /** Answer of `GET /api/sync/pull`. */
-export interface PullResponse {
-  changes: SyncChange[];
-  cursor: number;
-  hasMore: boolean;
-}
+export const pullResponseSchema = z
+  .object({ changes: z.array(syncChangeSchema), cursor: z.number().int(), hasMore: z.boolean() })
+  .meta({ id: 'PullResponse' });
+export type PullResponse = z.infer<typeof pullResponseSchema>;
 
 /**
  * Which part of the data a pull covers. Without `part`, every change after `since`. A new device

@@ -1,3 +1,4 @@
+import { ClubFormat } from '../core/club-format';
 import {
   ChangeDetectionStrategy,
   Component,
@@ -170,6 +171,9 @@ export class TrajectoryChart {
     return this.view() === 'side' ? Math.round(Math.min(300, Math.max(170, w * 0.38))) : Math.round(Math.min(240, Math.max(140, w * 0.28)));
   });
 
+  /** Numbers in the club's locale (the axes, like the sandbox's controls, stay in metres). */
+  private readonly fmt = inject(ClubFormat).format;
+
   constructor() {
     const host = inject<ElementRef<HTMLElement>>(ElementRef).nativeElement;
     const observer = new ResizeObserver((entries) => {
@@ -303,7 +307,7 @@ export class TrajectoryChart {
       .attr('text-anchor', 'start')
       .attr('x', (d) => x(d) + Math.max(4, (x(0.3) - x(0)) / 2) + 3)
       .attr('y', side ? y(0) - 4 : y(-2.5) - 2)
-      .text((d) => `wall ${d.toFixed(2)} m`);
+      .text((d) => `wall ${this.fmt().fixed(d, 2)} m`);
     const goal = marks.goalAtM === undefined ? [] : [marks.goalAtM];
     const c = marks.goalCentreM ?? 0;
     g.selectAll<SVGPathElement, number>('path.ll-trajectory__goal')
