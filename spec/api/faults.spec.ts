@@ -119,7 +119,8 @@ describe('faults: crashes and a locked database', () => {
   }
 
   beforeAll(async () => {
-    server = await startE2eServer();
+    // A server that loads the demo itself: these specs need no fitted profiles, only the rows.
+    server = await startE2eServer({ seedOnStart: true });
     first = server;
     token = await signIn();
     squad = read(

@@ -57,10 +57,18 @@ export interface E2eServer {
 }
 
 /** Starts the server; pass `dbPath`/`port` to restart on the same database and port, `env` for more settings (e.g. `WEATHER_URL`). */
-export async function startE2eServer(options: { dbPath?: string; port?: number; env?: Record<string, string> } = {}): Promise<E2eServer> {
+export async function startE2eServer(
+  options: {
+    dbPath?: string;
+    port?: number;
+    env?: Record<string, string>;
+    /** Whether the server starts on an empty database and loads the demo itself (no template, no fitted profiles). */
+    seedOnStart?: boolean;
+  } = {},
+): Promise<E2eServer> {
   const dir = options.dbPath ? null : mkdtempSync(join(tmpdir(), 'loftline-e2e-'));
   const dbPath = options.dbPath ?? join(dir!, 'e2e.db');
-  if (!options.dbPath) copyFileSync(demoTemplate(), dbPath);
+  if (!options.dbPath && !options.seedOnStart) copyFileSync(demoTemplate(), dbPath);
   const server = await spawnApiServer(
     { NODE_ENV: 'test', LOFTLINE_DB: dbPath, LOFTLINE_JWT_SECRET: 'e2e-secret-0123456789-0123456789-abcdef', ...options.env },
     { ...(options.port === undefined ? {} : { port: options.port }), readyTimeoutMs: 60_000 },
