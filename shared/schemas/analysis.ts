@@ -54,6 +54,8 @@ export interface PlayerKick {
   measuredSpeedMs: number | null;
   launchAngleDeg: number | null;
   measuredSpinRps: number | null;
+  /** Where the measured values came from ('device' import or phone 'video'); null when none were measured. */
+  measuredSource: 'device' | 'video' | null;
   /** Pitchside stopwatch reading (contact to first bounce), s, uncorrected; null when not timed. */
   hangTimeS: number | null;
 }
