@@ -108,7 +108,6 @@ const step = (name: string, limit: number) =>
     .min(-limit, { error: `${name} must be at least −${limit}` })
     .max(limit, { error: `${name} must be at most ${limit}` });
 
-
 /**
  * Bounds of a video track as synced: frames of up to 8K pixels (a tap may fall a little outside the
  * frame's edge when zoomed), clips of up to ten minutes, and the solver's own limits on taps and
