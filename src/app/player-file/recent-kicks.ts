@@ -144,6 +144,11 @@ export function kickRow(kick: PlayerKick, basis: CarryBasis, f: QuantityFormat):
       </table>
     </div>
     <mat-paginator [pageSizeOptions]="[10, 25, 50]" [pageSize]="10" aria-label="Pages of kicks" />
+    @if (measuredCounts(); as m) {
+      <p class="recent-kicks__note" data-testid="measured-count">
+        Measured launches in this list: {{ m.video }} from video, {{ m.device }} from a device, of {{ kicks().length }}.
+      </p>
+    }
     @if (total() > kicks().length) {
       <p class="recent-kicks__note">Showing the latest {{ kicks().length }} of {{ total() }} kicks.</p>
     }
@@ -203,6 +208,13 @@ export class RecentKicks {
   private readonly paginator = viewChild.required(MatPaginator);
   /** The club's formatter (distance unit, locale). */
   private readonly fmt = inject(ClubFormat).format;
+  /** How many of the listed kicks carry a measured launch, by source; null when none do. */
+  protected readonly measuredCounts = computed(() => {
+    const measured = this.kicks().filter((k) => k.measuredSpeedMs !== null || k.launchAngleDeg !== null);
+    if (measured.length === 0) return null;
+    const video = measured.filter((k) => k.measuredSource === 'video').length;
+    return { video, device: measured.length - video };
+  });
   private readonly rows = computed(() => this.kicks().map((k) => kickRow(k, this.basis(), this.fmt())));
 
   constructor() {
