@@ -87,7 +87,8 @@ export function resolveConditions(c: FlightConditions): Omit<FlightModel, 'axisX
     windYMs = -speed * Math.sin(from);
     if (c.wind.referenceHeightM !== undefined) {
       const h = requireInRange('wind.referenceHeightM', c.wind.referenceHeightM, LIMITS.windHeightM[0], LIMITS.windHeightM[1], 'm');
-      windLogScale = 1 / logHeightRatio(h);
+      // Still air needs no profile (and the uniform-wind solver settings are cheaper).
+      if (speed > 0) windLogScale = 1 / logHeightRatio(h);
     }
   }
   const aero = c.aero ?? {};

@@ -90,7 +90,7 @@ export class AimedSamples {
    * mean launch, then per dimension the linear and quadratic coefficients of ln ρ and of the bearing, then
    * the bearing of the intended ball in intention conditions (its aim-off).
    */
-  private readonly table: Float64Array;
+  private tableCache: Float64Array | null = null;
   private readonly fineIntentAngle: Float64Array;
   /** Per sample: deviations of elevation, backspin, sidespin from the mean. */
   private readonly deviations: Float64Array;
@@ -98,11 +98,24 @@ export class AimedSamples {
   private readonly lnCeilings: Float64Array;
   private readonly speedBase: Float64Array;
   private readonly azimuthRad: Float64Array;
-  /** Landings of the last distance filled. */
-  private readonly xs: Float64Array;
-  private readonly ys: Float64Array;
+  /** Landings of the last distance filled, in polar form: ln of the distance from the spot, and the bearing. */
+  private readonly lnRhos: Float64Array;
+  private readonly bearings: Float64Array;
   private readonly actual: ReturnType<typeof resolveConditions>;
+  private readonly intention: ReturnType<typeof resolveConditions>;
+  /** Whether the actual and the intention conditions are the same (the mean launch's flights are then shared). */
+  private readonly same: boolean;
+  /** ln speed of the speed nodes, and the intention flights' landing bearing (the aim-off) at each. */
+  private readonly nodeLn: number[] = [];
+  private readonly intentAngle: number[] = [];
+  /** The intention flights at the speed nodes, reused by the landing table when conditions are the same. */
+  private readonly intentFlights: { landing: { x: number; y: number } }[] = [];
 
+  /**
+   * Draws the samples and flies the mean launch at the speed nodes in intention conditions (what aiming
+   * needs). The landing table behind the reach curve (seven flights per node in actual conditions) is
+   * built on first use, so an envelope asked for without its curve does not pay for it.
+   */
   constructor(
     private readonly profile: KickProfile,
     conditions: FlightConditions,
@@ -110,22 +123,65 @@ export class AimedSamples {
     seed: number,
   ) {
     this.actual = resolveConditions(conditions ?? {});
-    const intention = resolveConditions(intentionConditions(conditions ?? {}));
-    const same = JSON.stringify(this.actual) === JSON.stringify(intention);
+    this.intention = resolveConditions(intentionConditions(conditions ?? {}));
+    this.same = JSON.stringify(this.actual) === JSON.stringify(this.intention);
     this.speedLogSd = predictiveSpeedLogSd(profile);
     this.lnCap = Math.log(Math.min(NODE_MAX_MS, speedCapOf(profile)));
     this.noises = drawLaunchNoise(profile, samples, seed);
+    const mean = meanLaunchOf(profile);
+    this.deviations = new Float64Array(samples * 3);
+    this.noises.forEach((n, i) => DIMS.forEach((d, j) => (this.deviations[3 * i + j] = n.launch[d] - mean[d])));
+    const [a, b] = [Math.log(NODE_MIN_MS), Math.log(NODE_MAX_MS)];
+    for (let k = 0; k < SPEED_NODES; k++) {
+      const lv = a + ((b - a) * k) / (SPEED_NODES - 1);
+      const fi = integrateFlight(buildModel(this.intention, { ...mean, azimuthDeg: 0, speed: Math.exp(lv) }), {
+        settings: DEFAULT_SOLVER_SETTINGS,
+      });
+      const lnCarry = Math.log(Math.max(1e-3, fi.carryM));
+      if (!this.intentLnCarry.length || lnCarry > this.intentLnCarry[this.intentLnCarry.length - 1]!) {
+        this.intentLnCarry.push(lnCarry);
+        this.intentLnSpeed.push(lv);
+      }
+      this.nodeLn.push(lv);
+      this.intentAngle.push(Math.atan2(fi.landing.y, fi.landing.x));
+      this.intentFlights.push(fi);
+    }
+    this.lnStep = (b - a) / (FINE_POINTS - 1);
+    this.fineIntentAngle = this.fine(this.intentAngle);
+    const a0 = profile.aimedSpeed;
+    this.lnCeilings = Float64Array.from(this.noises, (n) => n.lnCeiling);
+    this.speedBase = Float64Array.from(this.noises, (n) => a0.offsetLogMean + this.speedLogSd * n.zSpeed);
+    this.azimuthRad = Float64Array.from(this.noises, (n) => n.launch.azimuthDeg * DEG);
+    this.lnRhos = new Float64Array(samples);
+    this.bearings = new Float64Array(samples);
+  }
+
+  /** A node column resampled onto the fine uniform ln-speed grid (monotone cubics between the nodes). */
+  private fine(ys: readonly number[]): Float64Array {
+    const out = new Float64Array(FINE_POINTS);
+    for (let i = 0; i < FINE_POINTS; i++) out[i] = interpolate(this.nodeLn, ys as number[], this.lnMin + i * this.lnStep);
+    return out;
+  }
+
+  /** The interleaved landing table (see `tableCache`), built on first use. */
+  private get table(): Float64Array {
+    if (this.tableCache === null) this.tableCache = this.buildTable();
+    return this.tableCache;
+  }
+
+  /**
+   * Fine tables over ln speed, interleaved per grid point (TABLE_STRIDE columns): ln ρ and bearing of the
+   * mean launch, then per dimension the linear and quadratic coefficients of ln ρ and of the bearing, then
+   * the bearing of the intended ball in intention conditions (its aim-off).
+   */
+  private buildTable(): Float64Array {
+    const profile = this.profile;
     const mean = meanLaunchOf(profile);
     const spread: Record<Dim, number> = {
       elevationDeg: profile.sdElevationDeg,
       backspinRps: profile.sdBackspinRps,
       sidespinRps: profile.sdSidespinRps,
     };
-    this.deviations = new Float64Array(samples * 3);
-    this.noises.forEach((n, i) => DIMS.forEach((d, j) => (this.deviations[3 * i + j] = n.launch[d] - mean[d])));
-    const [a, b] = [Math.log(NODE_MIN_MS), Math.log(NODE_MAX_MS)];
-    const nodeLn: number[] = [];
-    const intentAngle: number[] = [];
     // Per quantity (ln ρ, bearing): [value, then (linear, quadratic) per dimension].
     const rhoCoef: number[][] = Array.from({ length: 1 + 2 * DIMS.length }, () => []);
     const angleCoef: number[][] = Array.from({ length: 1 + 2 * DIMS.length }, () => []);
@@ -135,19 +191,9 @@ export class AimedSamples {
       Math.log(Math.max(1e-3, Math.hypot(f.landing.x, f.landing.y))),
       Math.atan2(f.landing.y, f.landing.x),
     ];
-    for (let k = 0; k < SPEED_NODES; k++) {
-      const lv = a + ((b - a) * k) / (SPEED_NODES - 1);
+    this.nodeLn.forEach((lv, k) => {
       const speed = Math.exp(lv);
-      const fi = integrateFlight(buildModel(intention, { ...mean, azimuthDeg: 0, speed }), { settings: DEFAULT_SOLVER_SETTINGS });
-      const fa = same ? fi : fly(mean, speed);
-      const lnCarry = Math.log(Math.max(1e-3, fi.carryM));
-      if (!this.intentLnCarry.length || lnCarry > this.intentLnCarry[this.intentLnCarry.length - 1]!) {
-        this.intentLnCarry.push(lnCarry);
-        this.intentLnSpeed.push(lv);
-      }
-      nodeLn.push(lv);
-      intentAngle.push(Math.atan2(fi.landing.y, fi.landing.x));
-      const [r0, g0] = polar(fa);
+      const [r0, g0] = polar(this.same ? this.intentFlights[k]! : fly(mean, speed));
       rhoCoef[0]!.push(r0);
       angleCoef[0]!.push(g0);
       DIMS.forEach((d, j) => {
@@ -171,26 +217,14 @@ export class AimedSamples {
         angleCoef[1 + 2 * j]!.push((gp - gm) / (2 * h));
         angleCoef[2 + 2 * j]!.push((gp - 2 * g0 + gm) / (2 * h * h));
       });
-    }
-    this.lnStep = (b - a) / (FINE_POINTS - 1);
-    const fine = (ys: number[]): Float64Array => {
-      const out = new Float64Array(FINE_POINTS);
-      for (let i = 0; i < FINE_POINTS; i++) out[i] = interpolate(nodeLn, ys, a + i * this.lnStep);
-      return out;
-    };
+    });
     const columns = [rhoCoef[0]!, angleCoef[0]!];
     DIMS.forEach((_, j) => columns.push(rhoCoef[1 + 2 * j]!, rhoCoef[2 + 2 * j]!, angleCoef[1 + 2 * j]!, angleCoef[2 + 2 * j]!));
-    columns.push(intentAngle);
-    const fineColumns = columns.map(fine);
-    this.table = new Float64Array(FINE_POINTS * TABLE_STRIDE);
-    for (let i = 0; i < FINE_POINTS; i++) fineColumns.forEach((c, q) => (this.table[i * TABLE_STRIDE + q] = c[i]!));
-    this.fineIntentAngle = fineColumns[INTENT_COLUMN]!;
-    const a0 = profile.aimedSpeed;
-    this.lnCeilings = Float64Array.from(this.noises, (n) => n.lnCeiling);
-    this.speedBase = Float64Array.from(this.noises, (n) => a0.offsetLogMean + this.speedLogSd * n.zSpeed);
-    this.azimuthRad = Float64Array.from(this.noises, (n) => n.launch.azimuthDeg * DEG);
-    this.xs = new Float64Array(samples);
-    this.ys = new Float64Array(samples);
+    const fineColumns = columns.map((c) => this.fine(c));
+    fineColumns.push(this.fineIntentAngle);
+    const table = new Float64Array(FINE_POINTS * TABLE_STRIDE);
+    for (let i = 0; i < FINE_POINTS; i++) fineColumns.forEach((c, q) => (table[i * TABLE_STRIDE + q] = c[i]!));
+    return table;
   }
 
   /** Linear interpolation of a fine table at ln speed. */
@@ -227,24 +261,27 @@ export class AimedSamples {
   /** Every sample's landing (x along the line to the target, y to the left) when aimed at `distanceM`, from the table. */
   landingsAt(distanceM: number): { x: number; y: number }[] {
     this.fillLandings(distanceM);
-    return Array.from(this.xs, (x, i) => ({ x, y: this.ys[i]! }));
+    return Array.from(this.lnRhos, (lnRho, i) => {
+      const rho = Math.exp(lnRho);
+      return { x: rho * Math.cos(this.bearings[i]!), y: rho * Math.sin(this.bearings[i]!) };
+    });
   }
 
   /**
-   * Writes every sample's tabulated landing when aimed at `distanceM` into `xs`, `ys`. The hot loop of the
+   * Writes every sample's tabulated landing when aimed at `distanceM` into `lnRhos`, `bearings`. The hot loop of the
    * reach curve (2,000 samples × ~80 distances): typed arrays, the tables interleaved per grid point, and
    * the smooth minimum with the ceiling skipped where it is exact to 1e-9.
    */
   private fillLandings(distanceM: number): void {
     const lnNeed = this.lnNeedAt(distanceM);
-    const { deviations: dev, table, lnCeilings, speedBase, azimuthRad, xs, ys } = this;
+    const { deviations: dev, table, lnCeilings, speedBase, azimuthRad, lnRhos, bearings } = this;
     const stride = TABLE_STRIDE;
     const lnMin = this.lnMin;
     const inverseStep = 1 / this.lnStep;
     const last = FINE_POINTS - 1 - 1e-9;
     const lnCap = this.lnCap;
     const w = CEILING_SOFTNESS;
-    for (let i = 0; i < xs.length; i++) {
+    for (let i = 0; i < lnRhos.length; i++) {
       // softMinLog(lnNeed, ln ceiling), written out: the correction vanishes 20 widths from the corner.
       const lnC = lnCeilings[i]!;
       const lo = lnNeed < lnC ? lnNeed : lnC;
@@ -275,10 +312,8 @@ export class AimedSamples {
       const ki = Math.floor(ui);
       const aimOff =
         table[ki * stride + INTENT_COLUMN]! + (ui - ki) * (table[(ki + 1) * stride + INTENT_COLUMN]! - table[ki * stride + INTENT_COLUMN]!);
-      angle += azimuthRad[i]! - aimOff;
-      const rho = Math.exp(lnRho);
-      xs[i] = rho * Math.cos(angle);
-      ys[i] = rho * Math.sin(angle);
+      lnRhos[i] = lnRho;
+      bearings[i] = angle + (azimuthRad[i]! - aimOff);
     }
   }
 
@@ -301,13 +336,19 @@ export class AimedSamples {
     const r2 = CURVE_RADII_M.map((r) => r * r);
     const counts = new Float64Array(r2.length);
     const outer = r2[r2.length - 1]!;
+    const outerRadius = CURVE_RADII_M[CURVE_RADII_M.length - 1]!;
     const probability = distancesM.map((d) => {
       counts.fill(0);
       this.fillLandings(d);
-      const { xs, ys } = this;
-      for (let i = 0; i < xs.length; i++) {
-        const dx = xs[i]! - d;
-        const miss2 = dx * dx + ys[i]! * ys[i]!;
+      const { lnRhos, bearings } = this;
+      // A landing farther than the largest radius from the target in distance alone is a miss for every radius.
+      const [lnNear, lnFar] = [d > outerRadius ? Math.log(d - outerRadius) : -Infinity, Math.log(d + outerRadius)];
+      for (let i = 0; i < lnRhos.length; i++) {
+        const lnRho = lnRhos[i]!;
+        if (lnRho < lnNear || lnRho > lnFar) continue;
+        // Law of cosines: the miss distance from the landing's polar form, one cosine per landing.
+        const rho = Math.exp(lnRho);
+        const miss2 = rho * rho + d * d - 2 * rho * d * Math.cos(bearings[i]!);
         if (miss2 > outer) continue;
         // Radii ascend: the first one that holds the landing holds it for every larger radius too.
         for (let j = 0; j < r2.length; j++) {
@@ -344,20 +385,36 @@ export function reachCurve(given: KickProfile, conditions: FlightConditions, opt
 export function curveHitProbability(curve: ReachCurve, distanceM: number, radiusM: number): number {
   requireInHalfOpen('distanceM', distanceM, 0, 1000, 'm');
   requireInHalfOpen('radiusM', radiusM, 0, 100, 'm');
+  if (curve.distancesM.length === 0) throw new RangeError('curve has no distances');
+  return atRadius(curve, radiusM)(distanceM);
+}
+
+/**
+ * Hit probability by distance for one target radius: monotone cubics along distance in the two tabulated
+ * radii around it, linear between them (quadratic in the radius below the smallest). The columns are
+ * taken once, so scanning many distances (reliable reach) costs a lookup each.
+ */
+function atRadius(curve: ReachCurve, radiusM: number): (distanceM: number) => number {
   const { distancesM, radiiM, probability } = curve;
-  if (distancesM.length === 0) throw new RangeError('curve has no distances');
+  const last = distancesM[distancesM.length - 1]!;
   const column = (j: number): number[] => probability.map((row) => row[j]!);
-  const atRadius = (j: number): number => {
-    const last = distancesM[distancesM.length - 1]!;
-    if (distanceM > last) return 0;
-    return interpolate(distancesM, column(j), distanceM);
-  };
-  if (radiusM <= radiiM[0]!) return atRadius(0) * (radiusM / radiiM[0]!) ** 2;
-  if (radiusM >= radiiM[radiiM.length - 1]!) return atRadius(radiiM.length - 1);
+  const along =
+    (ys: number[]) =>
+    (distanceM: number): number =>
+      distanceM > last ? 0 : interpolate(distancesM, ys, distanceM);
+  if (radiusM <= radiiM[0]!) {
+    const first = along(column(0));
+    return (d) => first(d) * (radiusM / radiiM[0]!) ** 2;
+  }
+  if (radiusM >= radiiM[radiiM.length - 1]!) return along(column(radiiM.length - 1));
   let j = 0;
   while (radiiM[j + 1]! < radiusM) j++;
   const t = (radiusM - radiiM[j]!) / (radiiM[j + 1]! - radiiM[j]!);
-  return atRadius(j) + t * (atRadius(j + 1) - atRadius(j));
+  const [lo, hi] = [along(column(j)), along(column(j + 1))];
+  return (d) => {
+    const a = lo(d);
+    return a + t * (hi(d) - a);
+  };
 }
 
 /**
@@ -366,9 +423,12 @@ export function curveHitProbability(curve: ReachCurve, distanceM: number, radius
  */
 export function curveReliableReachM(curve: ReachCurve, radiusM: number, minProbability: number): number | null {
   requireInHalfOpen('minProbability', minProbability, 0, 1);
-  const last = curve.distancesM[curve.distancesM.length - 1] ?? 0;
+  requireInHalfOpen('radiusM', radiusM, 0, 100, 'm');
+  if (curve.distancesM.length === 0) return null;
+  const probabilityAt = atRadius(curve, radiusM);
+  const last = curve.distancesM[curve.distancesM.length - 1]!;
   for (let k = Math.floor(last * 10); k >= 1; k--) {
-    if (curveHitProbability(curve, k / 10, radiusM) >= minProbability) return k / 10;
+    if (probabilityAt(k / 10) >= minProbability) return k / 10;
   }
   return null;
 }

@@ -4,14 +4,17 @@ import { SeededRandom } from '../../shared/flight/random';
 function randomKicks(n: number, seed: number): KickInput[] {
   const rng = new SeededRandom(seed);
   const u = (lo: number, hi: number): number => lo + (hi - lo) * rng.uniform();
-  return Array.from({ length: n }, () => ({
+  // Wind of every kind: uniform (no height), a weather service's (10 m) and a coach's (head height), so the
+  // logarithmic profile and its steep part near the grass are on the tested path.
+  const heights = [undefined, 10, 1.8];
+  return Array.from({ length: n }, (_, i) => ({
     speed: u(12, 36),
     elevationDeg: u(4, 55),
     azimuthDeg: u(-10, 10),
     backspinRps: u(-10, 10),
     sidespinRps: u(-8, 8),
     air: { altitudeM: u(0, 2500), temperatureC: u(-5, 35) },
-    wind: { speedMs: u(0, 9), fromDeg: u(0, 360) },
+    wind: { speedMs: u(0, 9), fromDeg: u(0, 360), referenceHeightM: heights[i % 3] },
   }));
 }
 

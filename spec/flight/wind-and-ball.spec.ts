@@ -21,11 +21,23 @@ describe('wind with its reference height (logarithmic profile over grass)', () =
 
   it('scales a 10 m wind to head height as the log law says', () => {
     // Logarithmic profile u(z)/u(10) = ln(z/z₀)/ln(10/z₀); by calculator ln(60)/ln(333.3) = 4.094/5.809 = 0.705.
-    // The smooth floor √(z² + z_min²) moves it by under 0.5 % at 1.8 m.
-    expect(windHeightFactor(1.8, 10)).toBeCloseTo(0.705, 2);
+    expect(windHeightFactor(1.8, 10)).toBeCloseTo(0.705, 3);
+    // And 2 m against 10 m: ln(66.67)/ln(333.3) = 4.1997/5.8091 = 0.7230 (by calculator).
+    expect(windHeightFactor(2, 10)).toBeCloseTo(0.723, 3);
     expect(windHeightFactor(10, 10)).toBe(1);
     // The usual 1/7 power law over open land (common practice) gives (0.18)^(1/7) = 0.783: the same story within 10 %.
     expect(Math.abs(windHeightFactor(1.8, 10) / Math.pow(0.18, 1 / 7) - 1)).toBeLessThan(0.11);
+  });
+
+  it('is the log law itself above the blend height, to within 1.1 % from 0.5 m and 0.1 % from 1 m', () => {
+    // First principles: u(z)/u(z_ref) = ln(z/z₀)/ln(z_ref/z₀) (Stull 1988, §9.7), checked against the formula.
+    const law = (z: number, ref: number): number => Math.log(z / GRASS_ROUGHNESS_LENGTH_M) / Math.log(ref / GRASS_ROUGHNESS_LENGTH_M);
+    for (const ref of [WEATHER_WIND_HEIGHT_M, COACH_WIND_HEIGHT_M]) {
+      for (let z = 0.5; z <= 30; z += 0.1) {
+        const tolerance = z >= 1 ? 1e-3 : 0.011;
+        expect(Math.abs(windHeightFactor(z, ref) / law(z, ref) - 1)).toBeLessThan(tolerance);
+      }
+    }
   });
 
   it('grows with height and stays finite and positive at the grass', () => {

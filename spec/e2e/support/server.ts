@@ -3,10 +3,44 @@
  * (migrated and loaded with the demo scenario at start-up), the production client build.
  */
 import type { ChildProcess } from 'node:child_process';
-import { mkdtempSync, rmSync } from 'node:fs';
+import { copyFileSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { ProfileCache } from '../../../api/analysis/profile-cache';
+import { openDatabase } from '../../../api/db/client';
+import type { Technique } from '../../../shared/vocabulary';
+import { seedDemo } from '../../../seed/scenario';
 import { spawnApiServer } from '../../support/server-process';
+
+let templatePath: string | null = null;
+
+/**
+ * A database file with the demo loaded exactly as an empty server would load it (`seedDemo` with its
+ * defaults), and every player × technique profile fitted as the server's background refresher would fit
+ * it, built once per run. Generating the demo flies every repetition through the flight model, and each
+ * server would otherwise spend minutes of both cores refitting the same profiles while its specs run: the
+ * server finds the copy non-empty and up to date, and loads and refits nothing. (The refresher itself is
+ * covered by the Node specs of the profile cache.)
+ */
+export function demoTemplate(): string {
+  if (templatePath) return templatePath;
+  const dir = mkdtempSync(join(tmpdir(), 'loftline-e2e-template-'));
+  const path = join(dir, 'template.db');
+  const db = openDatabase(path);
+  seedDemo(db);
+  const cache = new ProfileCache(db);
+  const pairs = db.$client.prepare('SELECT DISTINCT player_id AS playerId, technique FROM kicks').all() as {
+    playerId: string;
+    technique: Technique;
+  }[];
+  for (const { playerId, technique } of pairs) if (cache.isStale(playerId, technique)) cache.compute(playerId, technique);
+  // Everything into the main file, so one file copy is the whole database.
+  db.$client.pragma('wal_checkpoint(TRUNCATE)');
+  db.$client.close();
+  process.once('exit', () => rmSync(dir, { recursive: true, force: true }));
+  templatePath = path;
+  return path;
+}
 
 /** A server process under test. */
 export interface E2eServer {
@@ -26,6 +60,7 @@ export interface E2eServer {
 export async function startE2eServer(options: { dbPath?: string; port?: number; env?: Record<string, string> } = {}): Promise<E2eServer> {
   const dir = options.dbPath ? null : mkdtempSync(join(tmpdir(), 'loftline-e2e-'));
   const dbPath = options.dbPath ?? join(dir!, 'e2e.db');
+  if (!options.dbPath) copyFileSync(demoTemplate(), dbPath);
   const server = await spawnApiServer(
     { NODE_ENV: 'test', LOFTLINE_DB: dbPath, LOFTLINE_JWT_SECRET: 'e2e-secret-0123456789-0123456789-abcdef', ...options.env },
     { ...(options.port === undefined ? {} : { port: options.port }), readyTimeoutMs: 60_000 },
