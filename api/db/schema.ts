@@ -9,7 +9,7 @@
  */
 import { sql } from 'drizzle-orm';
 import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
-import { FEET, OUTCOMES, TECHNIQUES } from '../../shared/vocabulary';
+import { FEET, MEASURED_SOURCES, OUTCOMES, TECHNIQUES } from '../../shared/vocabulary';
 
 const createdAt = () =>
   text('created_at')
@@ -324,6 +324,10 @@ export const kicks = sqliteTable(
     measuredSpinRps: real('measured_spin_rps'),
     /** Hang time as tapped on the Pitchside stopwatch (foot contact → first bounce), seconds, uncorrected. */
     hangTimeS: real('hang_time_s'),
+    /** Where the measured speed, angle and spin came from: 'device' (an import) or 'video' (a solved phone track). */
+    measuredSource: text('measured_source', { enum: MEASURED_SOURCES }),
+    /** A video measurement's taps, ground marks and fit (shared/schemas/sync.ts `videoTrackSchema`), JSON. */
+    videoTrackJson: text('video_track_json'),
     recordedAt: text('recorded_at').notNull(),
     recordedBy: text('recorded_by').references(() => users.id),
     deviceId: text('device_id'),

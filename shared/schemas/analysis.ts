@@ -7,7 +7,7 @@
  */
 import * as z from 'zod';
 import { PROFILE_WARNINGS, type KickProfile, type ProfileWarning } from '../flight/profile-types';
-import { FEET, OUTCOMES, TECHNIQUES } from '../vocabulary';
+import { FEET, MEASURED_SOURCES, OUTCOMES, TECHNIQUES } from '../vocabulary';
 
 const technique = z.enum(TECHNIQUES);
 const outcome = z.enum(OUTCOMES);
@@ -62,6 +62,10 @@ export const playerKickSchema = z
     measuredSpeedMs: z.number().nullable(),
     launchAngleDeg: z.number().nullable(),
     measuredSpinRps: z.number().nullable(),
+    measuredSource: z
+      .enum(MEASURED_SOURCES)
+      .nullable()
+      .describe("Where the measured values came from ('device' import or phone 'video'); null when none were measured"),
     hangTimeS: z.number().nullable().describe('Pitchside stopwatch reading (contact to first bounce), s, uncorrected'),
   })
   .meta({ id: 'PlayerKick' });

@@ -77,6 +77,12 @@ export const routes: Routes = [
         loadComponent: () => import('./pitchside/pitchside').then((m) => m.Pitchside),
       },
       {
+        path: 'measure/:kickId',
+        title: 'Measure from video · Loftline',
+        canMatch: [requireStaff],
+        loadComponent: () => import('./measure/video-measure').then((m) => m.VideoMeasure),
+      },
+      {
         path: 'sandbox',
         title: 'Flight sandbox · Loftline',
         canMatch: [requireSandboxAccess],
