@@ -15,7 +15,7 @@ import { GOAL_WIDTH_M, TECHNIQUES, type Technique } from '../../../shared/flight
 import { AnalysisCache } from '../core/analysis/analysis-cache';
 import { LoadFailure } from '../ui/load-failure';
 import { SliderField } from '../ui/slider-field';
-import { TrajectoryChart, type TrajectoryLandmarks, type TrajectoryTrace } from '../ui/trajectory-chart';
+import { TrajectoryChart, type TrajectoryLandmarks, type TrajectoryTrace } from '../ui/charts/trajectory-chart';
 import { GoalMouthView } from './goal-mouth-view';
 import { PLANNER_CACHE } from './planner-cache';
 import type { RankedPlayer } from './planner-rank';
