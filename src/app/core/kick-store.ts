@@ -1,7 +1,6 @@
+import { liveSignal } from './live-signal';
 import { Injectable, Signal, inject } from '@angular/core';
-import { toObservable, toSignal } from '@angular/core/rxjs-interop';
-import { Dexie, liveQuery } from 'dexie';
-import { from, of, switchMap } from 'rxjs';
+import { Dexie } from 'dexie';
 import { kickDataSchema, type KickData } from '../../../shared/schemas/sync';
 import { AuthSession } from './auth/auth-session';
 import { InvalidEntryError, validateEntry } from './entry-validation';
@@ -112,24 +111,16 @@ export class KickStore {
 
   /** The session's kicks that are not voided, newest first, live. */
   liveKicks(sessionId: Signal<string | null>): Signal<LocalKick[] | undefined> {
-    return toSignal(
-      toObservable(sessionId).pipe(
-        switchMap((id) =>
-          id === null
-            ? of([])
-            : from(
-                liveQuery(() =>
-                  this.db.kicks
-                    .where('[sessionId+recordedAt]')
-                    .between([id, Dexie.minKey], [id, Dexie.maxKey])
-                    .reverse()
-                    .filter((k) => !k.deletedAt)
-                    .toArray(),
-                ),
-              ),
-        ),
-      ),
-      { initialValue: undefined },
+    return liveSignal(
+      sessionId,
+      (id) =>
+        this.db.kicks
+          .where('[sessionId+recordedAt]')
+          .between([id, Dexie.minKey], [id, Dexie.maxKey])
+          .reverse()
+          .filter((k) => !k.deletedAt)
+          .toArray(),
+      { whenNull: [], initial: undefined },
     );
   }
 
