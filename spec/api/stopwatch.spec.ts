@@ -107,6 +107,7 @@ describe('hang-time stopwatch: kicks, club timing settings and spin estimates', 
       dragCrisisRe: DEFAULT_DRAG_CRISIS_RE,
       distanceUnit: 'm',
       locale: 'en-GB',
+      repLimitPerSession: 40,
     });
     expect((await request(t.app).put('/api/club/settings').set(auth(coach)).send({ timingBiasS: 0.1, timingSdS: 0.05 })).status).toBe(403);
     const bad = await request(t.app).put('/api/club/settings').set(auth(admin)).send({ timingBiasS: 0.1, timingSdS: 0.9 });
@@ -124,6 +125,7 @@ describe('hang-time stopwatch: kicks, club timing settings and spin estimates', 
       dragCrisisRe: DEFAULT_DRAG_CRISIS_RE,
       distanceUnit: 'm',
       locale: 'en-GB',
+      repLimitPerSession: 40,
     });
     await request(t.app).put('/api/club/settings').set(auth(admin)).send({ timingBiasS: 0.2, timingSdS: 0.08 });
   });
