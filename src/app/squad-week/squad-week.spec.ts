@@ -15,7 +15,7 @@ import type { CarryBasis } from '../../../shared/schemas/analysis';
 import { BROWSER_STORAGE } from '../core/browser-storage';
 import { signedInStorage, until } from '../core/spec-support';
 import { FIXTURE_IDS, FIXTURE_SQUAD, fixtureProfile, fixtureUser, fixtureWeek, profileEntry } from '../core/analysis/spec-fixtures';
-import { ANSWER_STORE, MemoryAnswerStore } from '../core/analysis/cached-answer';
+import { ANSWER_STORE, MemoryAnswerStore } from '../core/offline-cache';
 import { SquadWeek } from './squad-week';
 import { FileDownload } from '../core/file-download';
 import { REVIEW_CLOCK } from './week-dates';
