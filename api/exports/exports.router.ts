@@ -2,6 +2,7 @@
  * `/api/exports`: kicks as CSV (RFC 4180) for a squad or a player and a date range, and a
  * player's full data as JSON for a data-access request (admin). Every export is audited.
  */
+import { idSchema } from '../id-param';
 import { audit } from '../audit';
 import { eq } from 'drizzle-orm';
 import { Router } from 'express';
@@ -98,7 +99,7 @@ export function exportsRouter(db: Db): Router {
   });
 
   router.get('/players/:id.json', requireRole('admin'), (req, res) => {
-    const id = parseOrThrow(z.uuid({ error: 'id must be a UUID' }), req.params['id'], 'Player id');
+    const id = parseOrThrow(idSchema, req.params['id'], 'Player id');
     const scope = scopeOf(req);
     const player = db.select().from(players).where(eq(players.id, id)).get();
     if (!player || player.clubId !== scope.user.clubId) throw new NotFound('No such player in your club');

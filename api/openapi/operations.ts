@@ -18,8 +18,8 @@ import {
   resetPasswordSchema,
 } from '../../shared/schemas/mail';
 import { pullQuerySchema, pushRequestSchema } from '../../shared/schemas/sync';
-import { usersQuerySchema } from '../admin/admin.router';
-import { runSchema } from '../digests/digests.router';
+import { usersQuerySchema } from '../admin/admin.schemas';
+import { runSchema } from '../digests/digests.schemas';
 import { eraseSchema } from '../exports/erasure.router';
 import { kicksQuery } from '../exports/exports.router';
 import { kicksQuerySchema, listPlayersQuerySchema, profileQuerySchema, progressQuerySchema } from '../players/players.schemas';

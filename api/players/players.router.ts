@@ -1,6 +1,6 @@
 /** `/api/players`: the players the caller may see, and (staff and the player themself) each one's progress, kicks and profile. */
+import { idSchema } from '../id-param';
 import { Router } from 'express';
-import * as z from 'zod';
 import type { ProfileCache } from '../analysis/profile-cache';
 import type { Db } from '../db/client';
 import { requireRole } from '../auth/passport';
@@ -11,8 +11,6 @@ import { kicksQuerySchema, listPlayersQuerySchema, profileQuerySchema, progressQ
 import { getPlayer, listPlayers } from './players.service';
 import { playerProgress } from './progress.service';
 import { playerSpinEstimates } from './spin.service';
-
-const idSchema = z.uuid({ error: 'id must be a UUID' });
 
 /**
  * Raw training data (progress, kicks, profile, spin estimates) is for staff and the player themself. A

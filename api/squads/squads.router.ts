@@ -1,4 +1,5 @@
 /** `/api/squads`: the caller's squads and each squad's week. */
+import { idSchema } from '../id-param';
 import { Router } from 'express';
 import * as z from 'zod';
 import { requireRole } from '../auth/passport';
@@ -23,13 +24,13 @@ export function squadsRouter(db: Db, profiles: ProfileCache): Router {
     res.json({ squads: listSquads(db, scopeOf(req)) });
   });
   router.get('/:id/week', requireRole('admin', 'head_coach', 'assistant_coach'), (req, res) => {
-    const id = parseOrThrow(z.uuid({ error: 'id must be a UUID' }), req.params['id'], 'Squad id');
+    const id = parseOrThrow(idSchema, req.params['id'], 'Squad id');
     if (!scopeOf(req).canReadSquad(id)) throw new NotFound('No such squad among yours');
     const { start, carry } = parseOrThrow(weekQuerySchema, req.query, 'Query');
     res.json(squadWeek(db, profiles, scopeOf(req), id, start, carry));
   });
   router.get('/:id/profiles', requireRole('admin', 'head_coach', 'assistant_coach'), (req, res) => {
-    const id = parseOrThrow(z.uuid({ error: 'id must be a UUID' }), req.params['id'], 'Squad id');
+    const id = parseOrThrow(idSchema, req.params['id'], 'Squad id');
     if (!scopeOf(req).canReadSquad(id)) throw new NotFound('No such squad among yours');
     const { technique } = parseOrThrow(profileQuerySchema, req.query, 'Query');
     res.json(squadProfiles(db, profiles, scopeOf(req), id, technique));

@@ -48,7 +48,8 @@ export function squadWeek(
     .where(and(eq(squads.id, squadId), eq(squads.clubId, scope.user.clubId), isNull(squads.deletedAt)))
     .get();
   if (!squad) throw new NotFound('No such squad among yours');
-  const limit = db.select({ l: clubs.repLimitPerSession }).from(clubs).where(eq(clubs.id, squad.clubId)).get()?.l ?? DEFAULT_REP_LIMIT_PER_SESSION;
+  const limit =
+    db.select({ l: clubs.repLimitPerSession }).from(clubs).where(eq(clubs.id, squad.clubId)).get()?.l ?? DEFAULT_REP_LIMIT_PER_SESSION;
   const weekStart = isoWeekStart(start);
   const prevStart = addDays(weekStart, -7);
   const weekEnd = addDays(weekStart, 7);
