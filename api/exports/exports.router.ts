@@ -7,7 +7,7 @@ import { audit } from '../audit';
 import { eq } from 'drizzle-orm';
 import { Router } from 'express';
 import * as z from 'zod';
-import { requireRole } from '../auth/passport';
+import { requireRole, requireStaff } from '../auth/passport';
 import type { Db } from '../db/client';
 import { guardianLinks, kicks, players, playerProfiles, squads, trainingSessions, users } from '../db/schema';
 import { Forbidden, NotFound, parseOrThrow } from '../errors';
@@ -66,7 +66,7 @@ function inClubUnit(rows: CsvCell[][], unit: DistanceUnit): { header: string[]; 
 /** Builds the exports router (behind authentication and scope). */
 export function exportsRouter(db: Db): Router {
   const router = Router();
-  router.get('/kicks.csv', requireRole('admin', 'head_coach', 'assistant_coach'), (req, res) => {
+  router.get('/kicks.csv', requireStaff(), (req, res) => {
     const q = parseOrThrow(kicksQuery, req.query, 'Query');
     const scope = scopeOf(req);
     if (q.squadId && !scope.canReadSquad(q.squadId)) throw new NotFound('No such squad among yours');

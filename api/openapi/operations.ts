@@ -4,7 +4,7 @@
  * with the routes Express actually has, so a new route without an entry here fails the build.
  */
 import type * as z from 'zod';
-import { ROLES, type Role } from '../../shared/roles';
+import { ROLES, STAFF_ROLES, type Role } from '../../shared/roles';
 import { loginRequestSchema, refreshRequestSchema } from '../../shared/schemas/auth';
 import { clubSettingsUpdateSchema } from '../../shared/schemas/club';
 import { groundInputSchema } from '../../shared/schemas/grounds';
@@ -61,7 +61,7 @@ export interface Operation {
   readonly created?: boolean;
 }
 
-const STAFF: readonly Role[] = ['admin', 'head_coach', 'assistant_coach'];
+const STAFF: readonly Role[] = STAFF_ROLES;
 const ALL: readonly Role[] = ROLES;
 
 /** The documented operations (the reference page lists them in this order). */

@@ -3,6 +3,7 @@ import { idSchema } from '../id-param';
 import { Router } from 'express';
 import type { ProfileCache } from '../analysis/profile-cache';
 import type { Db } from '../db/client';
+import { STAFF_ROLES } from '../../shared/roles';
 import { requireRole } from '../auth/passport';
 import { parseOrThrow } from '../errors';
 import { scopeOf } from '../scope/scope.middleware';
@@ -16,7 +17,7 @@ import { playerSpinEstimates } from './spin.service';
  * Raw training data (progress, kicks, profile, spin estimates) is for staff and the player themself. A
  * guardian gets the child summary (`/api/guardians/children/:playerId/summary`), as the README promises.
  */
-const rawDataReaders = requireRole('admin', 'head_coach', 'assistant_coach', 'player');
+const rawDataReaders = requireRole(...STAFF_ROLES, 'player');
 
 /** Builds the players router (mounted behind authentication and scope). */
 export function playersRouter(db: Db, profiles: ProfileCache): Router {
