@@ -4,7 +4,7 @@
  */
 import bcrypt from 'bcryptjs';
 import type { Express } from 'express';
-import { mkdtempSync, rmSync } from 'node:fs';
+import { copyFileSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pino } from 'pino';
@@ -44,9 +44,32 @@ export interface TestApp {
 /** Cheap bcrypt hash of the demo password: tests do not need cost 12 for every account. */
 const cheapHash = bcrypt.hashSync(DEMO_PASSWORD, 4);
 
-/** Creates the app on a fresh temp database. */
+let templatePath: string | null = null;
+
+/**
+ * The path of a database file holding the migrated demo plus the second club, built once per process.
+ * Generating the demo flies every repetition through the flight model (about 3.4 s of CPU), and forty-odd
+ * specs each want a fresh copy: copying the finished file gives each the same rows at a file copy's cost.
+ */
+function demoTemplate(): string {
+  if (templatePath) return templatePath;
+  const dir = mkdtempSync(join(tmpdir(), 'loftline-spec-template-'));
+  const path = join(dir, 'template.db');
+  const db = openDatabase(path);
+  seedDemo(db, { now: FIXTURE_NOW, passwordHash: cheapHash });
+  addOtherClub(db);
+  // Everything into the main file, so one file copy is the whole database.
+  db.$client.pragma('wal_checkpoint(TRUNCATE)');
+  db.$client.close();
+  process.once('exit', () => rmSync(dir, { recursive: true, force: true }));
+  templatePath = path;
+  return path;
+}
+
+/** Creates the app on a fresh temp database (a copy of the demo template). */
 export function createTestApp(overrides: Partial<AppConfig> = {}): TestApp {
   const dir = mkdtempSync(join(tmpdir(), 'loftline-spec-'));
+  copyFileSync(demoTemplate(), join(dir, 'test.db'));
   const config = loadConfig(
     {
       NODE_ENV: 'test',
@@ -57,8 +80,6 @@ export function createTestApp(overrides: Partial<AppConfig> = {}): TestApp {
     { bcryptCost: 4, clientDir: join(dir, 'no-client'), ...overrides },
   );
   const db = openDatabase(config.dbPath);
-  seedDemo(db, { now: FIXTURE_NOW, passwordHash: cheapHash });
-  addOtherClub(db);
   const app = createApp({ db, config, logger: pino({ level: 'silent' }) });
   return {
     app,

@@ -66,10 +66,11 @@ function kicksCsv(): string {
   const start = Date.UTC(2026, 10, 22, 9, 0, 0);
   for (let i = 0; i < ROWS; i++) {
     // Wall-clock times without a zone: each is read in the club's time zone (the path that was slow).
+    // Spin is the device's total rate, never negative (KICK_DOMAIN.measuredSpinRps): 0–8 rev/s.
     const when = new Date(start + i * 7000).toISOString().slice(0, 19).replace('T', ' ');
     const speed = (18 + (i % 70) / 10).toFixed(1);
     const carry = (22 + (i % 160) / 10).toFixed(1);
-    lines.push(`${when},${(i % 25) + 1},${speed},${14 + (i % 12)},${(i % 9) - 2},${carry},${((i % 21) - 10) / 5}`);
+    lines.push(`${when},${(i % 25) + 1},${speed},${14 + (i % 12)},${i % 9},${carry},${((i % 21) - 10) / 5}`);
   }
   return lines.join('\n') + '\n';
 }
