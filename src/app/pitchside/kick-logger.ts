@@ -39,7 +39,7 @@ import { metresValidator, optionalMetres } from './metres-field';
 import { OutcomePad } from './outcome-pad';
 import { OUTCOME_LABELS, TECHNIQUE_LABELS, backspinLabel, sidespinLabel } from '../../../shared/vocabulary';
 import { PlayerChips } from './player-chips';
-import { StepControl } from './step-control';
+import { BackspinControl, CurlControl } from './spin-controls';
 import { StopwatchDrills } from './stopwatch-drills';
 
 /**
@@ -64,7 +64,8 @@ import { StopwatchDrills } from './stopwatch-drills';
     HangTimer,
     OutcomePad,
     PlayerChips,
-    StepControl,
+    BackspinControl,
+    CurlControl,
   ],
   templateUrl: './kick-logger.html',
   styleUrl: './kick-logger.scss',
@@ -118,8 +119,6 @@ export class KickLogger {
     validators: metresValidator(kickDataSchema.shape.hangTimeS, 'seconds'),
   });
 
-  protected readonly backspinLabel = backspinLabel;
-  protected readonly sidespinLabel = sidespinLabel;
   protected readonly techniqueLabels = TECHNIQUE_LABELS;
 
   /** The drill repetitions are logged against: the one chosen, else the latest added. */
