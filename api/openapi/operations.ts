@@ -4,7 +4,7 @@
  * with the routes Express actually has, so a new route without an entry here fails the build.
  */
 import type * as z from 'zod';
-import { ROLES, type Role } from '../../shared/roles';
+import { ROLES, STAFF_ROLES, type Role } from '../../shared/roles';
 import { loginRequestSchema, refreshRequestSchema } from '../../shared/schemas/auth';
 import { clubSettingsUpdateSchema } from '../../shared/schemas/club';
 import { groundConditionsSchema, groundInputSchema, groundSchema } from '../../shared/schemas/grounds';
@@ -28,8 +28,8 @@ import {
   squadWeekSchema,
 } from '../../shared/schemas/analysis';
 import { pullQuerySchema, pullResponseSchema, pushRequestSchema, pushResponseSchema } from '../../shared/schemas/sync';
-import { usersQuerySchema } from '../admin/admin.router';
-import { runSchema } from '../digests/digests.router';
+import { usersQuerySchema } from '../admin/admin.schemas';
+import { runSchema } from '../digests/digests.schemas';
 import { eraseSchema } from '../exports/erasure.router';
 import { kicksQuery } from '../exports/exports.router';
 import { kicksQuerySchema, listPlayersQuerySchema, profileQuerySchema, progressQuerySchema } from '../players/players.schemas';
@@ -77,7 +77,7 @@ export interface Operation {
   readonly created?: boolean;
 }
 
-const STAFF: readonly Role[] = ['admin', 'head_coach', 'assistant_coach'];
+const STAFF: readonly Role[] = STAFF_ROLES;
 const ALL: readonly Role[] = ROLES;
 
 /** The documented operations (the reference page lists them in this order). */

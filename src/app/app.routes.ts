@@ -1,10 +1,7 @@
 import { Routes } from '@angular/router';
-import { requireAdmin } from './core/auth/admin-guard';
 import { requireSignedIn, requireSignedOut } from './core/auth/auth-guard';
-import { requireStaff } from './core/auth/staff-guard';
-import { requireGuardian } from './guardian/guardian-guard';
+import { requireAdmin, requireGuardian, requireSandboxAccess, requireStaff } from './core/auth/role-guard';
 import { guardianLanding } from './home/guardian-landing';
-import { requireSandboxAccess } from './sandbox/sandbox-access';
 
 /**
  * The app's routes. Sign-in stands alone; everything else sits inside the shell behind

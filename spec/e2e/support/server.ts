@@ -81,3 +81,19 @@ export async function startE2eServer(
     },
   };
 }
+
+/**
+ * Starts one server (fresh temporary database) before a spec file's tests and stops it and removes
+ * its files after them; `keep` receives it, so tests read `server.baseUrl` as before.
+ */
+export function useE2eServer(keep: (server: E2eServer) => void): void {
+  let started: E2eServer | null = null;
+  beforeAll(async () => {
+    started = await startE2eServer();
+    keep(started);
+  }, 90_000);
+  afterAll(async () => {
+    await started?.stop();
+    started?.cleanup();
+  });
+}

@@ -1,7 +1,6 @@
+import { liveSignal } from './live-signal';
 import { Injectable, Signal, inject } from '@angular/core';
-import { toObservable, toSignal } from '@angular/core/rxjs-interop';
-import { Dexie, liveQuery } from 'dexie';
-import { from, of, switchMap } from 'rxjs';
+import { Dexie } from 'dexie';
 import { SPIN_STEP_RPS } from '../../../shared/flight/constants';
 import { kickDataSchema, type KickData, type VideoTrack } from '../../../shared/schemas/sync';
 import { AuthSession } from './auth/auth-session';
@@ -161,43 +160,28 @@ export class KickStore {
 
   /** One kick, live: undefined while loading, null when it is not on this device (or voided). */
   liveKick(id: Signal<string | null>): Signal<LocalKick | null | undefined> {
-    return toSignal(
-      toObservable(id).pipe(
-        switchMap((kickId) =>
-          kickId === null
-            ? of(null)
-            : from(
-                liveQuery(async () => {
-                  const row = await this.db.kicks.get(kickId);
-                  return row && !row.deletedAt ? row : null;
-                }),
-              ),
-        ),
-      ),
-      { initialValue: undefined },
+    return liveSignal(
+      id,
+      async (kickId) => {
+        const row = await this.db.kicks.get(kickId);
+        return row && !row.deletedAt ? row : null;
+      },
+      { whenNull: null, initial: undefined },
     );
   }
 
   /** The session's kicks that are not voided, newest first, live. */
   liveKicks(sessionId: Signal<string | null>): Signal<LocalKick[] | undefined> {
-    return toSignal(
-      toObservable(sessionId).pipe(
-        switchMap((id) =>
-          id === null
-            ? of([])
-            : from(
-                liveQuery(() =>
-                  this.db.kicks
-                    .where('[sessionId+recordedAt]')
-                    .between([id, Dexie.minKey], [id, Dexie.maxKey])
-                    .reverse()
-                    .filter((k) => !k.deletedAt)
-                    .toArray(),
-                ),
-              ),
-        ),
-      ),
-      { initialValue: undefined },
+    return liveSignal(
+      sessionId,
+      (id) =>
+        this.db.kicks
+          .where('[sessionId+recordedAt]')
+          .between([id, Dexie.minKey], [id, Dexie.maxKey])
+          .reverse()
+          .filter((k) => !k.deletedAt)
+          .toArray(),
+      { whenNull: [], initial: undefined },
     );
   }
 

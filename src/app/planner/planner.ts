@@ -11,12 +11,10 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
 import { map } from 'rxjs';
 import { GOAL_WIDTH_M, TECHNIQUES, type Technique } from '../../../shared/flight';
-import { AnalysisCache } from '../core/analysis/analysis-cache';
 import { LoadFailure } from '../ui/load-failure';
 import { SliderField } from '../ui/slider-field';
-import { TrajectoryChart, type TrajectoryLandmarks, type TrajectoryTrace } from '../ui/trajectory-chart';
+import { TrajectoryChart, type TrajectoryLandmarks, type TrajectoryTrace } from '../ui/charts/trajectory-chart';
 import { GoalMouthView } from './goal-mouth-view';
-import { PLANNER_CACHE } from './planner-cache';
 import type { RankedPlayer } from './planner-rank';
 import { PLANNER_SAMPLES, PlannerStore } from './planner-store';
 import { ClubFormat } from '../core/club-format';
@@ -53,7 +51,7 @@ const WIDE_TABLE_QUERY = '(min-width: 720px)';
     TrajectoryChart,
   ],
   // Profiles and rankings live in the app's IndexedDB analysis cache, so the planner opens offline.
-  providers: [PlannerStore, { provide: PLANNER_CACHE, useExisting: AnalysisCache }],
+  providers: [PlannerStore],
   templateUrl: './planner.html',
   styleUrl: './planner.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

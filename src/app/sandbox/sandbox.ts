@@ -13,7 +13,7 @@ import { WALL_DISTANCE_M, type Flight } from '../../../shared/flight';
 import { FlightEngine } from '../flight/flight-engine';
 import { latestWhenIdle } from '../flight/latest-when-idle';
 import { SliderField } from '../ui/slider-field';
-import { TrajectoryChart, type TrajectoryTrace } from '../ui/trajectory-chart';
+import { TrajectoryChart, type TrajectoryTrace } from '../ui/charts/trajectory-chart';
 import {
   CONDITION_FIELDS,
   DEFAULT_KICK,

@@ -13,7 +13,7 @@ import { Subject, combineLatest, of, startWith, switchMap } from 'rxjs';
 import type { Technique } from '../../../shared/schemas/sync';
 import { LOADING, type LoadState } from '../core/load-state';
 import type { SquadWeek as SquadWeekAnswer } from '../../../shared/schemas/analysis';
-import type { Answer } from '../core/analysis/cached-answer';
+import type { Answer } from '../core/offline-cache';
 import { oldestCachedAt, readyValue, toAnswerState, updatedLabel } from '../core/analysis/answer-state';
 import { CarryBasisChoice } from '../ui/carry-basis-choice';
 import { CalibrationChart, type CalibrationMark } from '../ui/charts/calibration-chart';
