@@ -39,7 +39,7 @@ export interface SolverSettings {
  *
  * Uniform wind (or none): tolerance in effect absolute, 1e-4 (rtol 1e-7 adds at most 1e-5 for states of
  * order 1–100 and sets odex's starting order); a first step of 0.6 s (flights last 1–5 s); a small
- * extrapolation table (fewer arrays to allocate per solve); no stability checks (the problem is not
+ * extrapolation table (a lower order cap); no stability checks (the problem is not
  * stiff). Worst carry error 0.40 mm, ~61 right-hand-side evaluations per kick.
  *
  * Wind growing with height: on those settings the worst carry error was 22 mm (the landing and launch
