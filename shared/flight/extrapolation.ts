@@ -165,7 +165,8 @@ export class GbsSolver<C> {
     const km = settings.maxExtrapolationColumns;
     if (km <= 2) throw new Error('maxExtrapolationColumns must be > 2');
     if (settings.maxSteps <= 0) throw new Error('maxSteps must be positive');
-    if (settings.interpolationFormulaDegree <= 0 || settings.interpolationFormulaDegree >= 7) throw new Error('bad interpolationFormulaDegree');
+    if (settings.interpolationFormulaDegree <= 0 || settings.interpolationFormulaDegree >= 7)
+      throw new Error('bad interpolationFormulaDegree');
     this.s = { ...settings };
     this.n = n;
     this.km = km;
@@ -197,9 +198,11 @@ export class GbsSolver<C> {
       this.errfac[mu] = prod;
     }
     this.extrapFactor = new Float64Array((km + 1) * (km + 1));
-    for (let j = 1; j <= km; ++j) for (let l = 2; l <= j; ++l) this.extrapFactor[j * (km + 1) + l] = (this.nj[j]! / this.nj[l - 1]!) ** 2 - 1;
+    for (let j = 1; j <= km; ++j)
+      for (let l = 2; l <= j; ++l) this.extrapFactor[j * (km + 1) + l] = (this.nj[j]! / this.nj[l - 1]!) ** 2 - 1;
     this.midFactor = new Float64Array((km + 1) * (2 * km + 1));
-    for (let kk = 1; kk <= km; ++kk) for (let kmi = 1; kmi <= 2 * km; ++kmi) this.midFactor[kk * (2 * km + 1) + kmi] = (this.nj[kk]! / 2) ** (kmi - 1);
+    for (let kk = 1; kk <= km; ++kk)
+      for (let kmi = 1; kmi <= 2 * km; ++kmi) this.midFactor[kk * (2 * km + 1) + kmi] = (this.nj[kk]! / 2) ** (kmi - 1);
     this.facMinOf = new Float64Array(km + 1);
     for (let j = 1; j <= km; ++j) this.facMinOf[j] = FAC1 ** (1 / (2 * j - 1));
     const log10 = (v: number): number => Math.log(v) / Math.LN10;
@@ -460,7 +463,7 @@ export class GbsSolver<C> {
     const sd = nrd + 1;
     const km1 = this.km + 1;
     const mk = 2 * this.km + 1;
-    const { y, dz, yh1, yh2, t, ySafe, fSafe, dens, icom, nj, iPoint, scal } = this;
+    const { y, dz, yh1, yh2, t, ySafe, fSafe, dens, icom, iPoint, scal } = this;
     const kc = this.kc;
     const h = this.h;
     this.xOld = this.x;
@@ -478,7 +481,8 @@ export class GbsSolver<C> {
     for (let j = 2; j <= kc; ++j) {
       for (let l = j; l >= 2; --l) {
         const factor = this.extrapFactor[j * km1 + l]!;
-        for (let i = 1; i <= nrd; ++i) ySafe[(l - 1) * sd + i] = ySafe[l * sd + i]! + (ySafe[l * sd + i]! - ySafe[(l - 1) * sd + i]!) / factor;
+        for (let i = 1; i <= nrd; ++i)
+          ySafe[(l - 1) * sd + i] = ySafe[l * sd + i]! + (ySafe[l * sd + i]! - ySafe[(l - 1) * sd + i]!) / factor;
       }
     }
     let krn = 4 * nrd;
@@ -502,7 +506,8 @@ export class GbsSolver<C> {
       for (let j = kbeg + 1; j <= kc; ++j) {
         for (let l = j; l >= kbeg + 1; --l) {
           const factor = this.extrapFactor[j * km1 + l]!;
-          for (let i = 1; i <= nrd; ++i) ySafe[(l - 1) * sd + i] = ySafe[l * sd + i]! + (ySafe[l * sd + i]! - ySafe[(l - 1) * sd + i]!) / factor;
+          for (let i = 1; i <= nrd; ++i)
+            ySafe[(l - 1) * sd + i] = ySafe[l * sd + i]! + (ySafe[l * sd + i]! - ySafe[(l - 1) * sd + i]!) / factor;
         }
       }
       krn = (kmi + 4) * nrd;
@@ -524,7 +529,8 @@ export class GbsSolver<C> {
       for (let kk = ((kmi + 2) / 2) | 0; kk <= kc; ++kk) {
         const lbeg = iPoint[kk + 1]! - 1;
         const lend = iPoint[kk]! + kmi + 2;
-        for (let l = lbeg; l >= lend; l -= 2) for (let i = 1; i <= nrd; ++i) fSafe[l * sd + i] = fSafe[l * sd + i]! - fSafe[(l - 2) * sd + i]!;
+        for (let l = lbeg; l >= lend; l -= 2)
+          for (let i = 1; i <= nrd; ++i) fSafe[l * sd + i] = fSafe[l * sd + i]! - fSafe[(l - 2) * sd + i]!;
       }
     }
     this.interp(kmit);

@@ -56,11 +56,7 @@ function withOdex(model: FlightModel, s: Readonly<SolverSettings>, xEnd: number)
   return { steps, evals, outcome: result.outcome };
 }
 
-function withPort(
-  solver: GbsSolver<FlightModel>,
-  model: FlightModel,
-  xEnd: number,
-): { steps: Step[]; evals: number; outcome: number } {
+function withPort(solver: GbsSolver<FlightModel>, model: FlightModel, xEnd: number): { steps: Step[]; evals: number; outcome: number } {
   const steps: Step[] = [];
   const outcome = solver.solve(derivative, model, 0, model.initialState, xEnd, (nr, xOld, x, y, dense) =>
     nr === 1 || !dense ? undefined : record(steps, xOld, x, y, dense),
