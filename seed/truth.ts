@@ -1,7 +1,7 @@
 /**
  * The demo academy's hidden truth: how each Kestrel Vale player really kicks each technique. The
  * repetitions the demo logs are flown from these values through the flight model (`kick-physics.ts`),
- * so fitting the logs should give them back — the recovery specs (`spec/seed/recovery.spec.ts`) check
+ * so fitting the logs should give them back — the recovery specs (`spec/recovery/recovery.spec.ts`) check
  * that. The truth lives here for the generator and the specs only: the API never serves it and it never
  * reaches the database.
  *

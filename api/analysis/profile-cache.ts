@@ -31,9 +31,11 @@ export const PROFILE_ENVELOPE_SEED = 20_260_101;
  * Version of the profile model. 2: launch speed relative to the speed each target needs, with a
  * ceiling, and reach curves per distance (rows of version 1 pooled every target into one speed spread).
  * 3: launch angle and spin uncertainty integrated into the fit and drawn by sampling, a physiological
- * speed cap, a one-sided ceiling posterior, priors by ball size, and warnings.
+ * speed cap, a one-sided ceiling posterior, priors by ball size, and warnings. 4: the coach's eye taken
+ * out of logged spin (profile-spin.ts), speed read against the usual launch, aim read against the usual
+ * ball's aim-off with its unknown turn as per-observation variance, and a speed-spread prior about need.
  */
-export const PROFILE_MODEL_VERSION = 3;
+export const PROFILE_MODEL_VERSION = 4;
 /** Target radius used for reliable reach when a player's logs give none (common practice). */
 export const DEFAULT_REACH_RADIUS_M = 3;
 

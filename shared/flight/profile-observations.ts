@@ -29,6 +29,8 @@ export interface Censored {
   hi: number;
   /** For a point: its own measurement spread as a fraction of the value (a timed repetition's speed). */
   relSd?: number;
+  /** Variance added to the fitted spread for this observation alone (an aim read through an uncertain spin's curl). */
+  extraVar?: number;
 }
 
 /** One repetition after validation, with the launch the model will use for it. */
@@ -107,20 +109,29 @@ export function prepareKick(kick: LoggedKick, index: number): PreparedKick {
   };
 }
 
-/** The unknown part of one repetition's launch, as standard deviations at launch-noise scale 1. */
+/**
+ * The unknown part of one repetition's launch: the elevation spread at launch-noise scale 1 (the fit
+ * scales it by λ), and the spread of its real backspin about the best guess (profile-spin.ts; not scaled).
+ */
 export interface LaunchUnknowns {
   elevationSdDeg: number;
   backspinSdRps: number;
 }
 
-/**
- * How an unknown launch moves a repetition's speed evidence: Δ = ln V(carry, actual launch) − ln V(carry,
- * assumed launch), where V is the inverse (speed for a carry). Its mean (second order in the spread) and
- * variance, at launch-noise scale 1; the fit scales them by λ² (mean) and λ² (variance).
- */
-export interface LaunchShift {
+/** Mean (second order in the spread) and variance of a shift in ln speed. */
+export interface ShiftMoments {
   meanLog: number;
   varLog: number;
+}
+
+/**
+ * How an unknown launch moves a repetition's speed evidence: Δ = ln V(carry, actual launch) − ln V(carry,
+ * assumed launch), where V is the inverse (speed for a carry). The elevation part is given at
+ * launch-noise scale 1 (the fit scales mean and variance by λ²); the spin part is the real backspin's
+ * remaining uncertainty after the eye's error was taken out, used as it is.
+ */
+export interface LaunchShift extends ShiftMoments {
+  spin: ShiftMoments;
 }
 
 /** Three-point Gauss–Hermite nodes for a normal variable: ±√3 σ with weight 1/6, 0 with weight 2/3 (Abramowitz & Stegun 25.4.46). */
@@ -133,27 +144,27 @@ const GH_NODE = Math.sqrt(3);
  * clamp (1 or 60 m/s): large, as it should be, since such a launch cannot explain the log.
  */
 export function launchShift(kick: PreparedKick, carryM: number, unknowns: LaunchUnknowns, bounds: SpeedBounds): LaunchShift {
-  if (!(carryM > 0.5)) return { meanLog: 0, varLog: 0 };
+  const none = (): ShiftMoments => ({ meanLog: 0, varLog: 0 });
+  if (!(carryM > 0.5)) return { ...none(), spin: none() };
   const base = Math.log(bounds.speedFor(kick, carryM));
-  let meanLog = 0;
-  let varLog = 0;
-  const add = (plus: PreparedKick, minus: PreparedKick): void => {
+  const moments = (plus: PreparedKick, minus: PreparedKick): ShiftMoments => {
     const dp = Math.log(bounds.speedFor(plus, carryM)) - base;
     const dm = Math.log(bounds.speedFor(minus, carryM)) - base;
     const m = (dp + dm) / 6;
-    meanLog += m;
-    varLog += Math.max(0, (dp * dp + dm * dm) / 6 - m * m);
+    return { meanLog: m, varLog: Math.max(0, (dp * dp + dm * dm) / 6 - m * m) };
   };
+  let elevation = none();
+  let spin = none();
   if (unknowns.elevationSdDeg > 0) {
     const h = GH_NODE * unknowns.elevationSdDeg;
     const at = (e: number): PreparedKick => ({ ...kick, elevationDeg: Math.min(85, Math.max(1, e)) });
-    add(at(kick.elevationDeg + h), at(kick.elevationDeg - h));
+    elevation = moments(at(kick.elevationDeg + h), at(kick.elevationDeg - h));
   }
   if (unknowns.backspinSdRps > 0) {
     const h = GH_NODE * unknowns.backspinSdRps;
-    add({ ...kick, backspinRps: kick.backspinRps + h }, { ...kick, backspinRps: kick.backspinRps - h });
+    spin = moments({ ...kick, backspinRps: kick.backspinRps + h }, { ...kick, backspinRps: kick.backspinRps - h });
   }
-  return { meanLog, varLog };
+  return { ...elevation, spin };
 }
 
 /** The carry a repetition's speed evidence is read at (for its launch shift), or null when it has none. */
@@ -249,14 +260,36 @@ export function speedObservation(kick: PreparedKick, bounds: SpeedBounds): Censo
   }
 }
 
+/** Landings turned more than this off the kick's line say nothing about aim (a ball held up or blown back by the wind), degrees. */
+const MAX_AIM_READING_DEG = 45;
+
+/** What is not known of a repetition's launch when its aim is read: spreads about the launch it is read at. */
+export interface AimUnknowns {
+  elevationSdDeg: number;
+  backspinSdRps: number;
+  sidespinSdRps: number;
+}
+
 /**
- * The aim error (launch azimuth, degrees, relative to the aim that brings this kick's own curl back onto
- * the target line) a repetition gives, or null. Players aim off for the curl they put on the ball, so
- * the lateral offset maps to an aim error through the kick's reference flight: in still air a kick
- * turned by an angle lands at its reference landing point turned by it, so lateral = ρ sin(a) once the
- * curl angle φ₀ is aimed off. With wind this is an approximation.
+ * The aim error (launch azimuth, degrees) a repetition gives, or null. Players aim off for the curl of the
+ * ball they mean to strike — `intended`, the player's usual launch, judged in still air (as sampling and
+ * reach curves assume) — so the landing's bearing is the aim error plus how far this ball turned beyond
+ * that: its own curl (at its best-guess spin) and the wind's drift, in its own conditions. In still air a
+ * kick turned by an angle lands at its reference landing point turned by it, so lateral = ρ sin(bearing).
+ *
+ * How far the ball turned depends on the parts of its launch that are not known (`unknowns`): the
+ * sidespin's curl, and in wind the drift of a ball that reached this carry higher or lower, with more or
+ * less backspin. Their variance (one-at-a-time central differences, the carry held) is added to this
+ * observation alone (`extraVar`): sampling draws those launch spreads itself, so the aim spread must not
+ * carry them too.
  */
-export function aimObservation(kick: PreparedKick, speedMs: number): Censored | null {
+export function aimObservation(
+  kick: PreparedKick,
+  speedMs: number,
+  intended?: AimLaunchOf,
+  unknowns?: AimUnknowns,
+  bounds: SpeedBounds = new SpeedBounds(),
+): Censored | null {
   const r = kick.targetRadiusM;
   let lateral: Censored | null = null;
   if (kick.lateralM !== null) lateral = { lo: kick.lateralM, hi: kick.lateralM };
@@ -267,13 +300,48 @@ export function aimObservation(kick: PreparedKick, speedMs: number): Censored | 
   const ref = referenceFlight(kick, speedMs);
   const rho = Math.hypot(ref.landingX, ref.landingY);
   if (!(rho > 0.5)) return null;
-  // Players aim off for the curl they mean (judged in still air, as sampling assumes), not for the wind:
-  // the wind's drift of this ball is taken out, so a windy session does not read as a wide aim spread.
-  const intended = referenceFlight(kick, speedMs, intentionConditions(kick.conditions));
-  const driftDeg = (Math.atan2(ref.landingY, ref.landingX) - Math.atan2(intended.landingY, intended.landingX)) / DEG;
+  const meant = intended ? { ...kick, ...intended } : kick;
+  const still = referenceFlight(meant, speedMs, intentionConditions(kick.conditions));
+  const [landed, aimedOff] = [bearingDeg(ref), bearingDeg(still)];
+  if (Math.abs(landed) > MAX_AIM_READING_DEG || Math.abs(aimedOff) > MAX_AIM_READING_DEG) return null;
+  const turnDeg = landed - aimedOff;
+  const extraVar = unknowns ? turnVariance(kick, speedMs, ref.carryM, unknowns, bounds) : 0;
   const toAzimuth = (lat: number): number => {
     if (lat === Number.POSITIVE_INFINITY || lat === Number.NEGATIVE_INFINITY) return lat;
-    return Math.asin(Math.max(-1, Math.min(1, lat / rho))) / DEG - driftDeg;
+    return Math.asin(Math.max(-1, Math.min(1, lat / rho))) / DEG - turnDeg;
   };
-  return { lo: toAzimuth(lateral.lo), hi: toAzimuth(lateral.hi) };
+  return { lo: toAzimuth(lateral.lo), hi: toAzimuth(lateral.hi), ...(extraVar > 0 ? { extraVar } : {}) };
 }
+
+function bearingDeg(f: { landingX: number; landingY: number }): number {
+  return Math.atan2(f.landingY, f.landingX) / DEG;
+}
+
+/**
+ * Variance (degrees²) of how far a repetition turned, over its unknown launch: sidespin at the reading's
+ * speed; elevation and backspin with the speed re-solved so the ball still carries `carryM` (what the log
+ * says), which in still air barely turns it and in a crosswind changes its drift.
+ */
+function turnVariance(kick: PreparedKick, speedMs: number, carryM: number, unknowns: AimUnknowns, bounds: SpeedBounds): number {
+  let v = 0;
+  const half = (plus: PreparedKick, minus: PreparedKick, keepCarry: boolean): number => {
+    const speedOf = (k: PreparedKick): number => (keepCarry ? bounds.speedFor(k, carryM) : speedMs);
+    const [sp, sm] = [speedOf(plus), speedOf(minus)];
+    if (!(sp > 1 && sm > 1 && sp < 60 && sm < 60)) return 0;
+    return (bearingDeg(referenceFlight(plus, sp)) - bearingDeg(referenceFlight(minus, sm))) / 2;
+  };
+  const h = unknowns.sidespinSdRps;
+  if (h > 0) v += half({ ...kick, sidespinRps: kick.sidespinRps + h }, { ...kick, sidespinRps: kick.sidespinRps - h }, false) ** 2;
+  const windy = (kick.conditions.wind?.speedMs ?? 0) > 0;
+  if (windy && carryM > 0.5) {
+    const e = unknowns.elevationSdDeg;
+    const at = (x: number): PreparedKick => ({ ...kick, elevationDeg: Math.min(85, Math.max(1, x)) });
+    if (e > 0) v += half(at(kick.elevationDeg + e), at(kick.elevationDeg - e), true) ** 2;
+    const b = unknowns.backspinSdRps;
+    if (b > 0) v += half({ ...kick, backspinRps: kick.backspinRps + b }, { ...kick, backspinRps: kick.backspinRps - b }, true) ** 2;
+  }
+  return v;
+}
+
+/** The launch a player means to strike, apart from speed. */
+export type AimLaunchOf = Pick<PreparedKick, 'elevationDeg' | 'backspinRps' | 'sidespinRps'>;

@@ -3,19 +3,30 @@
  * to every repetition's censored ln-speed evidence, with the repetition's unknown launch integrated out.
  *
  * A repetition logged without a measured angle was kicked at *some* angle near the technique's default,
- * and a spin step logged by eye is right only to about a step. Its speed evidence, read at the assumed
- * launch, is then off by Δ = ln V(actual) − ln V(assumed) (profile-observations.ts, launchShift), so with
- * ln v ~ N(c, σ²) the evidence is ln v − Δ ~ N(c − λ²·E[Δ], σ² + λ²·Var[Δ]): the censoring interval is
- * widened by the launch uncertainty. λ (the launch-noise scale) multiplies the assumed spreads and is
- * fitted with a weak prior centred on 1, so a tight record on a small target can say the launches were tighter
- * than assumed, and wild logs cannot be blamed on inconsistency alone.
+ * and its real backspin is known only about its best guess from the eye-logged step (profile-spin.ts).
+ * Its speed evidence, read at that launch, is then off by Δ = ln V(actual) − ln V(assumed)
+ * (profile-observations.ts, launchShift), so with ln v ~ N(c, σ²) the evidence is
+ * ln v − Δ ~ N(c − λ²·E[Δₑ] − E[Δₛ], σ² + λ²·Var[Δₑ] + Var[Δₛ]): the censoring interval is widened by the
+ * launch uncertainty. λ (the launch-noise scale) multiplies the assumed elevation spread and is fitted
+ * with a weak prior centred on 1, so a tight record on a small target can say the launches were tighter
+ * than assumed, and wild logs cannot be blamed on inconsistency alone; the spin part Δₛ is the player's
+ * own, estimated from the logs, and is not scaled. The speed each repetition needed is that of the
+ * player's usual launch: they strike for the ball they mean, and this one's launch moves where it lands.
  *
  * The ceiling is bounded by the physiological speed cap (profile-priors.ts): the fit may not explain a
  * log with a kick no one strikes.
  */
 
-import { type AimedSpeedFit, NeededSpeeds, softMinLog } from './aimed-speed';
-import { type Censored, evidenceCarryM, launchShift, type LaunchUnknowns, type PreparedKick, SpeedBounds } from './profile-observations';
+import { type AimLaunch, type AimedSpeedFit, NeededSpeeds, softMinLog } from './aimed-speed';
+import {
+  type Censored,
+  evidenceCarryM,
+  launchShift,
+  type LaunchShift,
+  type LaunchUnknowns,
+  type PreparedKick,
+  SpeedBounds,
+} from './profile-observations';
 import { CEILING_PRIOR_LOG_SD, type ProfilePrior } from './profile-types';
 import { inverseHessian, logNormalIntervalProbability, logNormalPdf, nelderMead } from './stats';
 
@@ -40,7 +51,7 @@ export interface SpeedEvidence {
   lnNeed: number;
   /** A point's own measurement spread (a timed repetition), ln units. */
   relSd: number;
-  shift: { meanLog: number; varLog: number };
+  shift: LaunchShift;
 }
 
 /** Result of the speed fit. */
@@ -68,6 +79,7 @@ export function speedEvidence(
   unknownsOf: (k: PreparedKick) => LaunchUnknowns,
   bounds: SpeedBounds,
   needs: NeededSpeeds,
+  intended: AimLaunch,
 ): SpeedEvidence[] {
   const out: SpeedEvidence[] = [];
   prepared.forEach((k, i) => {
@@ -78,9 +90,10 @@ export function speedEvidence(
       index: i,
       lo: logBound(o.lo),
       hi: logBound(o.hi),
-      lnNeed: Math.log(needs.neededMs(k.targetDistanceM, k, k.conditions)),
+      // The player strikes for the ball they mean (their usual launch); this one's own launch moves where it lands.
+      lnNeed: Math.log(needs.neededMs(k.targetDistanceM, intended, k.conditions)),
       relSd: o.relSd ?? 0,
-      shift: carry === null ? { meanLog: 0, varLog: 0 } : launchShift(k, carry, unknownsOf(k), bounds),
+      shift: carry === null ? { meanLog: 0, varLog: 0, spin: { meanLog: 0, varLog: 0 } } : launchShift(k, carry, unknownsOf(k), bounds),
     });
   });
   return out;
@@ -88,8 +101,8 @@ export function speedEvidence(
 
 /** See SpeedFit.evidenceProbability. */
 function surprise(o: SpeedEvidence, centre: number, sd: number, lambda2: number): number {
-  const c = centre - lambda2 * o.shift.meanLog;
-  const s2 = sd * sd + lambda2 * o.shift.varLog;
+  const c = centre - lambda2 * o.shift.meanLog - o.shift.spin.meanLog;
+  const s2 = sd * sd + lambda2 * o.shift.varLog + o.shift.spin.varLog;
   if (o.lo === o.hi) {
     const z = Math.abs(o.lo - c) / Math.sqrt(s2 + o.relSd * o.relSd);
     return 2 * Math.exp(logNormalIntervalProbability(Number.NEGATIVE_INFINITY, -z));
@@ -99,8 +112,8 @@ function surprise(o: SpeedEvidence, centre: number, sd: number, lambda2: number)
 }
 
 function logProbability(o: SpeedEvidence, centre: number, sd: number, lambda2: number): number {
-  const c = centre - lambda2 * o.shift.meanLog;
-  const s2 = sd * sd + lambda2 * o.shift.varLog;
+  const c = centre - lambda2 * o.shift.meanLog - o.shift.spin.meanLog;
+  const s2 = sd * sd + lambda2 * o.shift.varLog + o.shift.spin.varLog;
   if (o.lo === o.hi) {
     const s = Math.sqrt(s2 + o.relSd * o.relSd);
     return logNormalPdf((o.lo - c) / s) - Math.log(s);

@@ -128,14 +128,14 @@ export interface KickProfile {
   backspinRps: number;
   sidespinRps: number;
   /**
-   * Spread of backspin between kicks, rev/s, as drawn: the larger of the spread of the logged rates and
-   * the eye-logging uncertainty (a step counts as ±1 step; measured or timed spins count as exact) scaled
-   * by `launchNoiseScale`. Likewise `sdSidespinRps`.
+   * Spread of backspin between kicks, rev/s, as drawn: the player's own, estimated as the logged rates'
+   * spread less the eye's logging error (a step counts as ±1 step; a measured rate pins the backspin when
+   * no sidespin was logged), shrunk toward half a rev/s (profile-spin.ts). Likewise `sdSidespinRps`.
    */
   sdBackspinRps: number;
   sdSidespinRps: number;
   /**
-   * Share of the assumed launch uncertainty (prior elevation spread, eye-logged spin) the logs support,
+   * Share of the assumed elevation spread (the technique's prior) the logs support,
    * fitted in [0.05, 2] with a prior centred on 1: a tight record on a small target shrinks it.
    */
   launchNoiseScale: number;
@@ -162,11 +162,15 @@ export const CEILING_PRIOR_LOG_SD = 0.2;
 
 /**
  * Default priors by technique (common practice, no source): 20–30 m/s is typical for
- * free kicks and long passes; chips are struck softer. Azimuth spread 3°, worth three repetitions.
+ * free kicks and long passes; chips are struck softer. The speed spread is the spread of a player's
+ * strikes about the speed the target needed — about 6 % (the fit reads it as σ of ln speed relative to
+ * need, aimed-speed.ts): not the spread of their speeds across drills at different distances, which the
+ * aimed-speed model takes out; a larger prior pulls every fitted spread up and every reach down.
+ * Azimuth spread 3°, worth three repetitions.
  */
 export const DEFAULT_PRIORS: Readonly<Record<Technique, ProfilePrior>> = {
-  driven: { meanSpeedMs: 25, sdSpeedMs: 2.5, meanAzimuthDeg: 0, sdAzimuthDeg: 3, weightReps: 3 },
-  lofted: { meanSpeedMs: 23, sdSpeedMs: 2.5, meanAzimuthDeg: 0, sdAzimuthDeg: 3, weightReps: 3 },
-  chipped: { meanSpeedMs: 17, sdSpeedMs: 2, meanAzimuthDeg: 0, sdAzimuthDeg: 3, weightReps: 3 },
-  curled: { meanSpeedMs: 23, sdSpeedMs: 2.5, meanAzimuthDeg: 0, sdAzimuthDeg: 3, weightReps: 3 },
+  driven: { meanSpeedMs: 25, sdSpeedMs: 1.5, meanAzimuthDeg: 0, sdAzimuthDeg: 3, weightReps: 3 },
+  lofted: { meanSpeedMs: 23, sdSpeedMs: 1.4, meanAzimuthDeg: 0, sdAzimuthDeg: 3, weightReps: 3 },
+  chipped: { meanSpeedMs: 17, sdSpeedMs: 1, meanAzimuthDeg: 0, sdAzimuthDeg: 3, weightReps: 3 },
+  curled: { meanSpeedMs: 23, sdSpeedMs: 1.4, meanAzimuthDeg: 0, sdAzimuthDeg: 3, weightReps: 3 },
 };

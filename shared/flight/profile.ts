@@ -21,15 +21,8 @@ import {
   SpeedBounds,
   speedObservation,
 } from './profile-observations';
-import {
-  backspinLogSdRps,
-  ballSizeOf,
-  CEILINGS_BY_BALL_MS,
-  ELEVATION_SD_PRIOR_DEG,
-  LAUNCH_SPEED_CAP_MS,
-  PRIORS_BY_BALL,
-  sidespinLogSdRps,
-} from './profile-priors';
+import { ballSizeOf, CEILINGS_BY_BALL_MS, ELEVATION_SD_PRIOR_DEG, LAUNCH_SPEED_CAP_MS, PRIORS_BY_BALL } from './profile-priors';
+import { playerSpin } from './profile-spin';
 import { fitAimedSpeed, type SpeedEvidence, speedEvidence } from './profile-speed-fit';
 import { CEILING_PRIOR_LOG_SD, type FitOptions, type KickProfile, type LoggedKick, type ProfilePrior } from './profile-types';
 import { fitWarnings } from './profile-warnings';
@@ -49,7 +42,8 @@ interface NormalFit {
 }
 
 /**
- * Negative log-posterior of (μ, ln σ): censored normal likelihood plus a prior worth n₀ repetitions,
+ * Negative log-posterior of (μ, ln σ): censored normal likelihood (an observation's own `extraVar` added
+ * to σ²) plus a prior worth n₀ repetitions,
  * μ ~ N(μ₀, σ₀²/n₀) and ln σ ~ N(ln σ₀, 1/(2n₀)) (the sampling variance of ln σ̂ from n₀ normal draws).
  */
 function negativeLogPosterior(obs: readonly Censored[], prior: { mean: number; sd: number; weight: number }) {
@@ -60,8 +54,9 @@ function negativeLogPosterior(obs: readonly Censored[], prior: { mean: number; s
     const sd = Math.exp(logSd);
     let nlp = 0;
     for (const o of obs) {
-      if (o.lo === o.hi) nlp -= logNormalPdf((o.lo - mu) / sd) - logSd;
-      else nlp -= logNormalIntervalProbability((o.lo - mu) / sd, (o.hi - mu) / sd);
+      const s = o.extraVar ? Math.sqrt(sd * sd + o.extraVar) : sd;
+      if (o.lo === o.hi) nlp -= logNormalPdf((o.lo - mu) / s) - Math.log(s);
+      else nlp -= logNormalIntervalProbability((o.lo - mu) / s, (o.hi - mu) / s);
     }
     const dm = (mu - prior.mean) / prior.sd;
     const ds = logSd - Math.log(prior.sd);
@@ -142,19 +137,22 @@ export function fitProfile(
   const usedPrior = validatePrior(prior ?? PRIORS_BY_BALL[ballSize][technique]);
   const ceilingPriorMs = Math.min(capMs, usedPrior.ceilingMs ?? CEILINGS_BY_BALL_MS[ballSize][technique]);
   const launch = launchSummary(prepared, technique);
+  // The player's own spin with the coach's eye taken out; each repetition is read at its best-guess spin.
+  const spin = playerSpin(prepared);
+  const readAt = prepared.map((k, i) => ({ ...k, backspinRps: spin.back.best[i]!, sidespinRps: spin.side.best[i]! }));
   const unknownsOf = (k: PreparedKick): LaunchUnknowns => ({
     elevationSdDeg: k.angleMeasured ? 0 : ELEVATION_SD_PRIOR_DEG[technique],
-    backspinSdRps: k.spinMeasured ? 0 : backspinLogSdRps(k.backspinStep),
+    backspinSdRps: spin.back.postSd[k.index] ?? 0,
   });
+  const meanLaunch = { elevationDeg: launch.elevationDeg, backspinRps: launch.backspinRps, sidespinRps: launch.sidespinRps };
 
   const bounds = new SpeedBounds();
   const needs = new NeededSpeeds();
-  const speedObs: (Censored | null)[] = prepared.map((k, i) => {
+  const speedObs: (Censored | null)[] = readAt.map((k, i) => {
     const t = timed[i];
     return t ? { lo: t.speedMs, hi: t.speedMs, relSd: t.speedSdMs / t.speedMs } : speedObservation(k, bounds);
   });
-  const evidence = speedEvidence(prepared, speedObs, unknownsOf, bounds, needs);
-  const meanLaunch = { elevationDeg: launch.elevationDeg, backspinRps: launch.backspinRps, sidespinRps: launch.sidespinRps };
+  const evidence = speedEvidence(readAt, speedObs, unknownsOf, bounds, needs, meanLaunch);
   const conditions0 = prepared[0]?.conditions ?? {};
   const sd0 = usedPrior.sdSpeedMs / usedPrior.meanSpeedMs;
   let aimed: AimedSpeedFit;
@@ -200,14 +198,21 @@ export function fitProfile(
     };
   }
   const intendedLogs = prepared.map((k) =>
-    evidence.length === 0 ? Math.log(described.mean) : intendedLog(needs.neededMs(k.targetDistanceM, k, k.conditions), aimed.ceilingMs),
+    evidence.length === 0
+      ? Math.log(described.mean)
+      : intendedLog(needs.neededMs(k.targetDistanceM, meanLaunch, k.conditions), aimed.ceilingMs),
   );
 
-  const aimObs = prepared.map((k, i) => {
+  const aimObs = readAt.map((k, i) => {
     const s = speedObs[i];
     const expected = Math.exp(intendedLogs[i]! + aimed.offsetLogMean);
     const representative = s ? Math.min(Math.max(expected, s.lo), s.hi) : expected;
-    return aimObservation(k, Math.min(60, Math.max(1, representative)));
+    const unknowns = {
+      elevationSdDeg: k.angleMeasured ? 0 : lambda * ELEVATION_SD_PRIOR_DEG[technique],
+      backspinSdRps: spin.back.postSd[i]!,
+      sidespinSdRps: spin.side.postSd[i]!,
+    };
+    return aimObservation(k, Math.min(60, Math.max(1, representative)), meanLaunch, unknowns, bounds);
   });
   const aimList = aimObs.filter((o): o is Censored => o !== null);
   const aim = fitNormal(aimList, {
@@ -223,7 +228,7 @@ export function fitProfile(
       if (o.lo === o.hi) return kind === 'point';
       return Number.isFinite(o.lo) && Number.isFinite(o.hi) ? kind === 'interval' : kind === 'bound';
     }).length;
-  const spreads = launchSpreads(prepared, technique, lambda);
+  const spreads = launchSpreads(prepared, technique, lambda, spin);
 
   return {
     technique,
@@ -302,35 +307,21 @@ function launchSummary(
 /**
  * The launch spreads sampling draws (see KickProfile.sdElevationDeg and sdBackspinRps): measured angles
  * (three or more) give the elevation spread, else the technique's prior scaled by λ; each spin spread is
- * the larger of the logged rates' spread and the mean eye-logging uncertainty scaled by λ.
+ * the player's own, with the coach's eye taken out (profile-spin.ts) — the logged steps' own scatter
+ * would count the eye's error twice, once in the spin drawn and once in the speed and aim it blurred.
  */
 function launchSpreads(
   prepared: readonly PreparedKick[],
   technique: Technique,
   lambda: number,
+  spin: ReturnType<typeof playerSpin>,
 ): Pick<KickProfile, 'sdElevationDeg' | 'elevationSdSource' | 'sdBackspinRps' | 'sdSidespinRps'> {
-  const spread = (values: number[]): number => (values.length >= 3 ? sampleSd(values) : 0);
   const measured = prepared.filter((k) => k.angleMeasured).map((k) => k.elevationDeg);
   const fromLogs = measured.length >= 3;
-  const eye = prepared.filter((k) => !k.spinMeasured);
-  const eyeShare = prepared.length ? eye.length / prepared.length : 1;
-  const meanOf = (values: number[], fallback: number): number => (values.length ? mean(values) : fallback);
-  const backEye =
-    eyeShare *
-    meanOf(
-      eye.map((k) => backspinLogSdRps(k.backspinStep)),
-      backspinLogSdRps(0),
-    );
-  const sideEye =
-    eyeShare *
-    meanOf(
-      eye.map((k) => sidespinLogSdRps(k.sidespinStep)),
-      sidespinLogSdRps(0),
-    );
   return {
     sdElevationDeg: fromLogs ? sampleSd(measured) : lambda * ELEVATION_SD_PRIOR_DEG[technique],
     elevationSdSource: fromLogs ? 'logged' : 'prior',
-    sdBackspinRps: Math.max(spread(prepared.map((k) => k.backspinRps)), lambda * backEye),
-    sdSidespinRps: Math.max(spread(prepared.map((k) => k.sidespinRps)), lambda * sideEye),
+    sdBackspinRps: spin.back.sd,
+    sdSidespinRps: spin.side.sd,
   };
 }

@@ -5,8 +5,8 @@
  * the fitted error) or, where no target applies, the player's usual ball (`meanSpeedMs`).
  *
  * Every sample draws its own launch elevation, backspin and sidespin around the profile's means with the
- * profile's spreads (`sdElevationDeg`, `sdBackspinRps`, `sdSidespinRps`: the spreads the fit assumed and
- * scaled, or measured), its aim from the predictive aim spread, and its ceiling from the one-sided
+ * profile's spreads (`sdElevationDeg`: the spread the fit assumed and scaled, or measured;
+ * `sdBackspinRps`, `sdSidespinRps`: the player's own, with the coach's eye taken out, profile-spin.ts), its aim from the predictive aim spread, and its ceiling from the one-sided
  * posterior: a normal in ln speed truncated below at `aimedSpeed.ceilingFloorMs` (what the player has
  * demonstrably reached) and above at the speed cap. No speed exceeds `speedCapMs`. Set pieces
  * (`sampleLaunches`) get the same launch draws, so a chosen kick is flown with the player's own spreads.

@@ -3,13 +3,14 @@
  * service worker controlling the page, Chromium's own installability check passing, and the
  * app shell opening with no network. "No network" is the server process stopped (the service
  * worker's own fetches ignore `context.setOffline`) plus `setOffline` for the page's events.
- * Pitchside's offline logging is covered by pitchside.spec.ts; this covers the shell itself.
+ * Pitchside's offline logging is covered by pitchside.spec.ts; this covers the shell itself and what
+ * the first visit stores (Home and Pitchside; other screens the first time they open).
  */
 import type { BrowserContext, Page } from 'playwright-core';
 import { DEMO_ACCOUNTS } from '../../seed/scenario';
 import { launchContext } from './support/browser';
 import { startE2eServer, type E2eServer } from './support/server';
-import { untilAppCached } from './support/waiting';
+import { until, untilAppCached } from './support/waiting';
 import { signInThroughUi } from './support/sign-in';
 
 /** The parts of a web app manifest this spec reads. */
@@ -136,25 +137,38 @@ describe('installable PWA (end to end, Chromium, production build)', () => {
       .toBe(hexToRgb(manifest.background_color ?? '#000000'));
   }, 60_000);
 
-  it('opens the app shell and a screen never visited before with the server gone', async () => {
+  it('opens the shell, Pitchside never visited, and a screen opened once, with the server gone; says when a screen is not stored', async () => {
     await signInThroughUi(page, server.baseUrl, DEMO_ACCOUNTS.assistant_coach);
     await page.getByRole('heading', { level: 1, name: /Hello/ }).waitFor();
     await untilAppCached(page);
+    // Screens other than Home and Pitchside are stored the first time they open through the service worker.
+    await until('the service worker to control the page', () => page.evaluate(() => navigator.serviceWorker.controller !== null));
+    const nav = page.getByRole('navigation', { name: 'Main' });
+    await nav.getByRole('link', { name: 'Flight sandbox' }).click();
+    await page.getByRole('heading', { level: 1, name: 'Flight sandbox' }).waitFor();
+    await nav.getByRole('link', { name: 'Home' }).click();
+    await page.getByRole('heading', { level: 1, name: /Hello/ }).waitFor();
 
     await server.stop();
     await context.setOffline(true);
     try {
       await page.reload();
       await page.getByRole('heading', { level: 1, name: /Hello/ }).waitFor({ timeout: 20_000 });
-      expect(await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Pitchside' }).count()).toBe(1);
-      // A lazy screen this phone has never opened comes from the prefetched cache, fonts included.
-      await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Flight sandbox' }).click();
-      await page.getByRole('heading', { level: 1, name: 'Flight sandbox' }).waitFor({ timeout: 20_000 });
+      // Pitchside has never been opened on this phone: it comes from the cache filled at the first visit, fonts included.
+      await nav.getByRole('link', { name: 'Pitchside' }).click();
+      await page.locator('ll-session-start form').waitFor({ timeout: 20_000 });
       const fonts = await page.evaluate(async () => {
         await document.fonts.ready;
         return document.fonts.check('16px "Atkinson Hyperlegible"');
       });
       expect(fonts).toBeTrue();
+      // Opened once with a signal: stored then.
+      await nav.getByRole('link', { name: 'Flight sandbox' }).click();
+      await page.getByRole('heading', { level: 1, name: 'Flight sandbox' }).waitFor({ timeout: 20_000 });
+      // Never opened and not prefetched: the app says so instead of doing nothing.
+      await nav.getByRole('link', { name: 'Set-piece planner' }).click();
+      await page.getByRole('alert').filter({ hasText: 'not stored on this phone yet' }).waitFor({ timeout: 20_000 });
+      expect(await page.getByRole('heading', { level: 1, name: 'Flight sandbox' }).count()).toBe(1);
     } finally {
       await context.setOffline(false);
     }

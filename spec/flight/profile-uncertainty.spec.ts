@@ -17,6 +17,7 @@ import {
   type LoggedKick,
 } from '../../shared/flight';
 import { launchShift, prepareKick, SpeedBounds } from '../../shared/flight/profile-observations';
+import { SPIN_PRIOR_WEIGHT_REPS, SPIN_SD_PRIOR_RPS, spinAxis } from '../../shared/flight/profile-spin';
 import { AimedSamples } from '../../shared/flight/reach-curve';
 import { drawLaunchNoise } from '../../shared/flight/sampling';
 import { SeededRandom } from '../../shared/flight/random';
@@ -35,8 +36,18 @@ const onTarget = (n: number, technique: LoggedKick['technique'], d: number, extr
 describe('profile model 3: bounds and warnings', () => {
   let driven: KickProfile;
   beforeAll(() => {
-    // The case: twenty on-target driven balls at 30 m, four logged "light topspin".
-    driven = fitProfile(onTarget(20, 'driven', 30, (i) => ({ backspinStep: i < 4 ? -1 : 0 })));
+    // Twenty on-target driven balls at 30 m, all logged "light topspin": at the default 12° they need about
+    // 40 m/s (first principles: topspin's Magnus force points down).
+    driven = fitProfile(onTarget(20, 'driven', 30, () => ({ backspinStep: -1 })));
+  });
+
+  it("reads the issue's case (four of twenty logged light topspin) as the eye's error, within the cap", () => {
+    // Sixteen "no spin" and four "light topspin" on the same drill: the steps scatter no more than an eye's
+    // error, so the player's spin is taken as steady (profile-spin.ts) and no speed beyond the cap is needed.
+    const mixed = fitProfile(onTarget(20, 'driven', 30, (i) => ({ backspinStep: i < 4 ? -1 : 0 })));
+    expect(mixed.warnings).not.toContain('speed_beyond_cap');
+    expect(mixed.aimedSpeed.ceilingMs).toBeLessThanOrEqual(35 + 1e-9);
+    expect(mixed.sdBackspinRps).toBeLessThan(1);
   });
 
   it('keeps the fitted speeds under the physiological cap and says the logs ask for more', () => {
@@ -123,6 +134,33 @@ describe('profile model 3: the ceiling', () => {
     const draws = drawLaunchNoise(p, 4000, 7).map((n) => Math.exp(n.lnCeiling));
     expect(Math.min(...draws)).toBeGreaterThanOrEqual(floor - 1e-9);
     expect(Math.max(...draws)).toBeLessThanOrEqual(35 + 1e-9);
+  });
+});
+
+describe("profile model 4: the coach's eye taken out of logged spin", () => {
+  it('takes the logging variance off the logged rates (method of moments) and shrinks each rate by the reliability ratio', () => {
+    // Additive measurement error: var(logged) = var(real) + var(error) (Fuller 1987, Measurement Error Models, §1.1);
+    // the normal–normal posterior of a real rate given its logged one has mean m + κ(v − m), variance κe², κ = s²/(s² + e²).
+    // 200 rates about 6 rev/s with a sample variance (n − 1 denominator) of exactly 9.
+    const rates = Array.from({ length: 200 }, (_, i) => (i % 2 ? 3 : -3) * Math.sqrt(1 - 1 / 200) + 6);
+    const axis = spinAxis(
+      rates,
+      rates.map(() => 2),
+    );
+    const excess = 9 - 4;
+    const s2 = (SPIN_PRIOR_WEIGHT_REPS * SPIN_SD_PRIOR_RPS ** 2 + 199 * excess) / (SPIN_PRIOR_WEIGHT_REPS + 199);
+    expect(axis.sd).toBeCloseTo(Math.sqrt(s2), 9);
+    const kappa = s2 / (s2 + 4);
+    expect(axis.best[0]! - axis.mean).toBeCloseTo(kappa * (rates[0]! - axis.mean), 6);
+    expect(axis.postSd[0]).toBeCloseTo(Math.sqrt(kappa * 4), 6);
+  });
+
+  it('reads steps that scatter less than an eye errs as a steady spin, and trusts a measured rate as it is', () => {
+    const eyeOnly = spinAxis([3, 0, 3, 3, 0, 3, 3, 3], new Array<number>(8).fill(backspinLogSdRps(1)));
+    expect(eyeOnly.sd).toBeLessThan(SPIN_SD_PRIOR_RPS);
+    const measured = spinAxis([5.2, 6.1, 4.8], [0, 0, 0]);
+    expect(measured.best).toEqual([5.2, 6.1, 4.8]);
+    expect(measured.postSd).toEqual([0, 0, 0]);
   });
 });
 

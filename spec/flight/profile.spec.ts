@@ -12,7 +12,9 @@ describe('fitProfile (interval-censored maximum likelihood with shrinkage)', () 
 
   for (const seed of [101, 202]) {
     it(`recovers a known aimed-speed distribution from censored logs at mixed targets (seed ${seed})`, () => {
-      const logs = syntheticAimed(150, seed, truth, [24, 30, 36, 42, 48]);
+      // The angle as a device reads it: with an assumed angle spread, the launch-noise scale and σ trade off and
+      // neither is identified on its own (the synthetic player's launch is exact).
+      const logs = syntheticAimed(150, seed, truth, [24, 30, 36, 42, 48]).map((k) => ({ ...k, launchAngleDeg: 32 }));
       const p = fitProfile(logs);
       const a = p.aimedSpeed;
       // Asymptotic normality of the maximum-likelihood estimate (Casella & Berger, Statistical Inference, 2nd ed., §10.1): within 3 SE w.p. ≈ 0.997.
@@ -81,6 +83,9 @@ describe('fitProfile (interval-censored maximum likelihood with shrinkage)', () 
       backspinStep: 2,
       sidespinStep: 0,
       carryM: simulateKick({ speed, elevationDeg: 32, backspinRps: 6 }).carryM,
+      // The launch as a device reads it: an eye-logged step leaves the spin, and so the speed a carry needs, uncertain.
+      launchAngleDeg: 32,
+      measuredSpinRps: 6,
     }));
     const p = fitProfile(logs, { ...DEFAULT_PRIORS.lofted, weightReps: 0.1 });
     expect(p.observations.speedPoints).toBe(6);

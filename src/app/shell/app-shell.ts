@@ -1,6 +1,6 @@
 import { BreakpointObserver } from '@angular/cdk/layout';
-import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject } from '@angular/core';
-import { toSignal } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, signal } from '@angular/core';
+import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatDividerModule } from '@angular/material/divider';
@@ -9,7 +9,7 @@ import { MatListModule } from '@angular/material/list';
 import { MatMenuModule } from '@angular/material/menu';
 import { MatSidenavModule } from '@angular/material/sidenav';
 import { MatToolbarModule } from '@angular/material/toolbar';
-import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { NavigationEnd, NavigationError, Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { map } from 'rxjs';
 import { ROLE_LABELS } from '../../../shared/roles';
 import { DeviceHandover } from '../core/auth/device-handover';
@@ -98,6 +98,12 @@ export class AppShell {
     const label = `${offline ? 'Offline, ' : ''}${unsynced} ${unsynced === 1 ? 'change' : 'changes'} not synced`;
     return { offline, unsynced, label };
   });
+  /**
+   * A screen whose code could not be fetched: only Home and Pitchside (with sign-in and this frame) are
+   * stored on the phone at the first visit (ngsw-config.json); other screens are stored the first time
+   * they open with a signal. Cleared by the next navigation that succeeds.
+   */
+  protected readonly notOnPhone = signal(false);
   protected readonly themeToggleLabel = computed(() => (this.theme.isDark() ? 'Switch to light theme' : 'Switch to dark theme'));
 
   constructor() {
@@ -105,6 +111,11 @@ export class AppShell {
     inject(ProfileStore).ensureLoaded();
     // The club's distance unit and locale (cached on the device for offline use) for every screen.
     void inject(ClubFormat).refresh();
+    // A dynamic import that fails rejects with a TypeError in every browser; other navigation errors are not this.
+    this.router.events.pipe(takeUntilDestroyed()).subscribe((event) => {
+      if (event instanceof NavigationError) this.notOnPhone.set(event.error instanceof TypeError);
+      else if (event instanceof NavigationEnd) this.notOnPhone.set(false);
+    });
     // A printed sheet carries every chart's table: open the "Show as table" alternatives while printing.
     const opened: HTMLDetailsElement[] = [];
     const openTables = (): void => {

@@ -1,11 +1,9 @@
 import { HttpClient, HttpErrorResponse, HttpHeaders } from '@angular/common/http';
-import { DestroyRef, Injectable, PendingTasks, computed, inject, signal } from '@angular/core';
+import { DestroyRef, Injectable, Injector, PendingTasks, computed, inject, signal } from '@angular/core';
 import { Observable, catchError, finalize, from, map, shareReplay, switchMap, tap, throwError } from 'rxjs';
 import { ROLES, type Role } from '../../../../shared/roles';
 import type { AuthTokens, LoginRequest, MeResponse, SessionUser } from '../../../../shared/schemas/auth';
 import { BROWSER_STORAGE } from '../browser-storage';
-import { LOFTLINE_DB } from '../loftline-db';
-import { handOverDevice } from './device-handover';
 
 /** The localStorage key of the persisted session (versioned so a format change can start clean). */
 export const SESSION_STORAGE_KEY = 'loftline.session.v1';
@@ -49,7 +47,7 @@ export class SessionExpiredError extends Error {
 export class AuthSession {
   private readonly http = inject(HttpClient);
   private readonly storage = inject(BROWSER_STORAGE);
-  private readonly db = inject(LOFTLINE_DB);
+  private readonly injector = inject(Injector);
   private readonly pendingTasks = inject(PendingTasks);
   private readonly state = signal<StoredSession | null>(this.restore());
   private refreshInFlight: Observable<string> | null = null;
@@ -87,7 +85,7 @@ export class AuthSession {
       // A pending task, so the app (and a spec's whenStable) waits for the clean-up before the first screen.
       switchMap((tokens) => {
         const done = this.pendingTasks.add();
-        return from(handOverDevice(this.db, this.storage, tokens.user.id).finally(done)).pipe(map(() => tokens));
+        return from(this.handOver(tokens.user.id).finally(done)).pipe(map(() => tokens));
       }),
       tap((tokens) => this.store(tokens)),
       map((tokens) => tokens.user),
@@ -152,6 +150,15 @@ export class AuthSession {
       return;
     }
     this.persist({ ...current, user: me.user, club: { id: me.club.id, name: me.club.name } });
+  }
+
+  /**
+   * The hand-over and the device's database (Dexie) load on the first sign-in, not with the app: the
+   * sign-in screen draws without them and a phone on a weak signal gets its form sooner.
+   */
+  private async handOver(userId: string): Promise<void> {
+    const { handOverDeviceOf } = await import('./device-handover');
+    await handOverDeviceOf(this.injector, this.storage, userId);
   }
 
   private store(tokens: AuthTokens): void {

@@ -1,4 +1,4 @@
-import { Injectable, computed, inject, type Signal } from '@angular/core';
+import { Injectable, computed, inject, type Injector, type Signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { liveQuery } from 'dexie';
 import { from, of, switchMap } from 'rxjs';
@@ -62,6 +62,11 @@ export async function handOverDevice(db: LoftlineDb, storage: Storage, userId: s
     return { cleared: false, keptForOthers: await othersEntries(db, userId) };
   }
   return clearOtherUsersData(db, userId);
+}
+
+/** `handOverDevice` on the app's own database, for `AuthSession`, which loads this module only when someone signs in. */
+export function handOverDeviceOf(injector: Injector, storage: Storage, userId: string): Promise<HandoverResult> {
+  return handOverDevice(injector.get(LOFTLINE_DB), storage, userId);
 }
 
 function othersEntries(db: LoftlineDb, userId: string): Promise<number> {

@@ -5,8 +5,9 @@ import type { LocalRow } from './outbox';
 /**
  * The Dexie side of a sync round, kept apart from the scheduling in `SyncQueue`: taking a
  * batch from the outbox, settling the server's answers, and landing pulled rows. Each function
- * is one transaction, so a crash between two of them leaves the outbox consistent (at worst a
- * mutation is sent again, which the server acknowledges as a duplicate).
+ * is one transaction (landing a pulled page: slices, the cursor moving with the last), so a crash
+ * between two of them leaves the outbox consistent (at worst a mutation is sent again, which the
+ * server acknowledges as a duplicate, or a page is pulled again).
  */
 
 /** Fields that say nothing about the coach's data when comparing two versions of a row. */
@@ -154,37 +155,43 @@ export function differingFields(mine: Record<string, unknown>, theirs: Record<st
 }
 
 /**
- * Lands one pulled page and moves the user's cursor, in one transaction. A row with outbox
- * entries keeps the device's version (those edits are still on their way) and only records
- * the server's copy as the confirmed one.
+ * Rows landed per transaction. IndexedDB copies each row on the calling thread as it is put, so a
+ * 500-row page put in one go is a long task on a phone (hundreds of milliseconds under a 4× slower
+ * CPU); slices of this size stay near the 50 ms a tap can wait unnoticed, with a pause between them.
  */
-export function landPulledChanges(
+export const LAND_SLICE_ROWS = 100;
+
+/**
+ * Lands one pulled page and moves the user's cursor. A row with outbox entries keeps the device's
+ * version (those edits are still on their way) and only records the server's copy as the confirmed one.
+ *
+ * The rows land in slices of {@link LAND_SLICE_ROWS}, each its own transaction, with `pause()` between
+ * them so input and rendering run; the cursor moves in the last slice's transaction. A page cut short
+ * (the tab closed between two slices) is pulled again from the old cursor and landed again: landing is
+ * idempotent, because every pulled row is the server's state at or after that cursor. Each slice looks
+ * for outbox entries inside its own transaction, so an edit made between two slices is never overwritten.
+ */
+export async function landPulledChanges(
   db: LoftlineDb,
   userId: string,
   changes: readonly SyncChange[],
   cursor: number,
   progress: Partial<Pick<SyncStateRow, 'firstPullFrom' | 'history'>> = {},
+  pause: () => Promise<void> = () => Promise.resolve(),
 ): Promise<void> {
-  return db.transaction('rw', [db.sessions, db.drills, db.kicks, db.outbox, db.syncState], async () => {
-    const ids = changes.map((c) => c.data.id);
-    const busy = new Set((await db.outbox.where('entityId').anyOf(ids).toArray()).map((e) => e.entityId));
-    const latest = new Map<string, SyncChange>();
-    for (const change of changes) {
-      latest.set(change.data.id, change);
-    }
-    const puts: Record<SyncEntity, LocalRow[]> = { training_session: [], drill: [], kick: [] };
-    for (const change of latest.values()) {
-      if (busy.has(change.data.id)) {
-        await tableFor(db, change.entity).update(change.data.id, { confirmed: change.data });
-      } else {
-        puts[change.entity].push(change.data as unknown as LocalRow);
-      }
-    }
-    for (const entity of Object.keys(puts) as SyncEntity[]) {
-      if (puts[entity].length > 0) {
-        await tableFor(db, entity).bulkPut(puts[entity]);
-      }
-    }
+  const latest = new Map<string, SyncChange>();
+  for (const change of changes) {
+    latest.set(change.data.id, change);
+  }
+  const rows = [...latest.values()];
+  let start = 0;
+  for (; start + LAND_SLICE_ROWS < rows.length; start += LAND_SLICE_ROWS) {
+    const slice = rows.slice(start, start + LAND_SLICE_ROWS);
+    await db.transaction('rw', [db.sessions, db.drills, db.kicks, db.outbox], () => landRows(db, slice));
+    await pause();
+  }
+  await db.transaction('rw', [db.sessions, db.drills, db.kicks, db.outbox, db.syncState], async () => {
+    await landRows(db, rows.slice(start));
     const state: SyncStateRow = {
       ...(await db.syncState.get(userId)),
       ...progress,
@@ -197,6 +204,26 @@ export function landPulledChanges(
     if ('history' in progress && progress.history === undefined) delete state.history;
     await db.syncState.put(state);
   });
+}
+
+/** Puts pulled rows (one per id) inside the caller's transaction; rows with outbox entries only get their confirmed copy. */
+async function landRows(db: LoftlineDb, changes: readonly SyncChange[]): Promise<void> {
+  if (changes.length === 0) return;
+  const ids = changes.map((c) => c.data.id);
+  const busy = new Set((await db.outbox.where('entityId').anyOf(ids).toArray()).map((e) => e.entityId));
+  const puts: Record<SyncEntity, LocalRow[]> = { training_session: [], drill: [], kick: [] };
+  for (const change of changes) {
+    if (busy.has(change.data.id)) {
+      await tableFor(db, change.entity).update(change.data.id, { confirmed: change.data });
+    } else {
+      puts[change.entity].push(change.data as unknown as LocalRow);
+    }
+  }
+  for (const entity of Object.keys(puts) as SyncEntity[]) {
+    if (puts[entity].length > 0) {
+      await tableFor(db, entity).bulkPut(puts[entity]);
+    }
+  }
 }
 
 /**

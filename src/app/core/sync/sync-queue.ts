@@ -95,7 +95,7 @@ const PATIENT_REASONS: readonly SyncReason[] = ['write', 'periodic'];
 
 class UserChanged extends Error {}
 
-/** Lets input and rendering run between two pulled pages, so landing a long pull never freezes a tap. */
+/** Lets input and rendering run between two pulled pages (and two slices of one), so landing a long pull never freezes a tap. */
 function yieldToInput(): Promise<void> {
   return new Promise((resolve) => setTimeout(resolve, 0));
 }
@@ -294,6 +294,10 @@ export class SyncQueue {
         page.changes,
         page.cursor,
         firstPullDone ? { firstPullFrom: undefined, history: { upTo: page.cursor, cursor: 0 } } : {},
+        async () => {
+          await yieldToInput();
+          this.checkUser(userId);
+        },
       );
       if (firstPullDone) firstPullFrom = undefined;
       cursor = page.cursor;
