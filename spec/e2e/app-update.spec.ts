@@ -10,60 +10,43 @@
 import Database from 'better-sqlite3';
 import { createHash } from 'node:crypto';
 import { cpSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { connect, createServer, type AddressInfo, type Server, type Socket } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import type { BrowserContext, Page } from 'playwright-core';
 import { DEMO_ACCOUNTS } from '../../seed/scenario';
 import { launchContext } from './support/browser';
 import { startE2eServer, type E2eServer } from './support/server';
+import { startsSyncPush, TcpRelay } from './support/tcp-relay';
 import { signInThroughUi } from './support/sign-in';
 import { until, untilAppCached } from './support/waiting';
 
 /** Forwards TCP to the server, closing any connection that starts a sync push while pushes are refused. */
 class PushGate {
-  private listener: Server | null = null;
-  private readonly sockets = new Set<Socket>();
   refusePushes = false;
   refused = 0;
-  port = 0;
+  private readonly relay: TcpRelay<null>;
 
-  constructor(private readonly targetPort: () => number) {}
-
-  async start(): Promise<void> {
-    this.listener = createServer((client) => this.relay(client));
-    await new Promise<void>((done) => this.listener!.listen(0, '127.0.0.1', done));
-    this.port = (this.listener.address() as AddressInfo).port;
-  }
-
-  async stop(): Promise<void> {
-    for (const socket of this.sockets) socket.destroy();
-    await new Promise<void>((done) => this.listener?.close(() => done()) ?? done());
-  }
-
-  private relay(client: Socket): void {
-    const upstream = connect(this.targetPort(), '127.0.0.1');
-    this.sockets.add(client).add(upstream);
-    const closeBoth = (): void => {
-      client.destroy();
-      upstream.destroy();
-    };
-    client.on('data', (chunk) => {
-      if (this.refusePushes && chunk.toString('latin1').startsWith('POST /api/sync/push')) {
+  constructor(targetPort: () => number) {
+    this.relay = new TcpRelay(targetPort, {
+      newConnection: () => null,
+      fromClient: (chunk) => {
+        if (!this.refusePushes || !startsSyncPush(chunk)) return 'forward';
         this.refused++;
-        closeBoth();
-        return;
-      }
-      upstream.write(chunk);
+        return 'close';
+      },
     });
-    upstream.on('data', (chunk) => client.write(chunk));
-    for (const socket of [client, upstream]) {
-      socket.on('error', closeBoth);
-      socket.on('close', () => {
-        this.sockets.delete(socket);
-        closeBoth();
-      });
-    }
+  }
+
+  get port(): number {
+    return this.relay.port;
+  }
+
+  start(): Promise<void> {
+    return this.relay.start();
+  }
+
+  stop(): Promise<void> {
+    return this.relay.stop();
   }
 }
 

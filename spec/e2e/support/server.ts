@@ -7,9 +7,8 @@ import { copyFileSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { ProfileCache } from '../../../api/analysis/profile-cache';
-import { openDatabase } from '../../../api/db/client';
 import type { Technique } from '../../../shared/vocabulary';
-import { seedDemo } from '../../../seed/scenario';
+import { buildDemoTemplate } from '../../support/demo-template';
 import { spawnApiServer } from '../../support/server-process';
 
 let templatePath: string | null = null;
@@ -23,23 +22,15 @@ let templatePath: string | null = null;
  * covered by the Node specs of the profile cache.)
  */
 export function demoTemplate(): string {
-  if (templatePath) return templatePath;
-  const dir = mkdtempSync(join(tmpdir(), 'loftline-e2e-template-'));
-  const path = join(dir, 'template.db');
-  const db = openDatabase(path);
-  seedDemo(db);
-  const cache = new ProfileCache(db);
-  const pairs = db.$client.prepare('SELECT DISTINCT player_id AS playerId, technique FROM kicks').all() as {
-    playerId: string;
-    technique: Technique;
-  }[];
-  for (const { playerId, technique } of pairs) if (cache.isStale(playerId, technique)) cache.compute(playerId, technique);
-  // Everything into the main file, so one file copy is the whole database.
-  db.$client.pragma('wal_checkpoint(TRUNCATE)');
-  db.$client.close();
-  process.once('exit', () => rmSync(dir, { recursive: true, force: true }));
-  templatePath = path;
-  return path;
+  templatePath ??= buildDemoTemplate('e2e', {}, (db) => {
+    const cache = new ProfileCache(db);
+    const pairs = db.$client.prepare('SELECT DISTINCT player_id AS playerId, technique FROM kicks').all() as {
+      playerId: string;
+      technique: Technique;
+    }[];
+    for (const { playerId, technique } of pairs) if (cache.isStale(playerId, technique)) cache.compute(playerId, technique);
+  });
+  return templatePath;
 }
 
 /** A server process under test. */
