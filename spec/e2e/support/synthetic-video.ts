@@ -30,7 +30,7 @@ export interface SyntheticClip {
 export function ensureFfmpeg(): void {
   if (spawnSync('ffmpeg', ['-version']).status === 0) return;
   if (process.getuid?.() === 0) {
-    const install = spawnSync('apt-get', ['install', '-y', 'ffmpeg'], {
+    const install = spawnSync('apt-get', ['install', '-y', '--no-install-recommends', 'ffmpeg'], {
       stdio: 'ignore',
       env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' },
     });
