@@ -102,6 +102,8 @@ export function createApp(deps: AppDeps): Express {
           // Angular Material sets inline styles at run time; scripts stay same-origin only.
           'style-src': ["'self'", "'unsafe-inline'"],
           'worker-src': ["'self'"],
+          // Measure from video plays the coach's clip from an object URL: it never leaves the phone.
+          'media-src': ["'self'", 'blob:'],
           'upgrade-insecure-requests': config.env === 'production' ? [] : null,
         },
       },

@@ -80,3 +80,10 @@ export function sidespinLabel(step: number): string {
 export function isTechnique(value: unknown): value is Technique {
   return typeof value === 'string' && (TECHNIQUES as readonly string[]).includes(value);
 }
+
+/**
+ * Where a kick's measured launch (speed, angle, spin) came from: a ball-measuring device's export, or a
+ * side-on phone video solved through the flight model (`solveLaunchFromTrack`).
+ */
+export const MEASURED_SOURCES = ['device', 'video'] as const;
+export type MeasuredSource = (typeof MEASURED_SOURCES)[number];

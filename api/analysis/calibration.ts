@@ -27,7 +27,7 @@ export interface HeldOutCalibration {
 
 const KICK_COLUMNS = `k.technique, k.outcome, k.target_distance_m AS targetDistanceM, k.target_radius_m AS targetRadiusM,
   k.backspin_step AS backspinStep, k.sidespin_step AS sidespinStep, k.carry_m AS carryM, k.lateral_m AS lateralM,
-  k.measured_speed_ms AS measuredSpeedMs, k.launch_angle_deg AS launchAngleDeg, k.measured_spin_rps AS measuredSpinRps,
+  k.measured_speed_ms AS measuredSpeedMs, k.launch_angle_deg AS launchAngleDeg, k.measured_spin_rps AS measuredSpinRps, k.measured_source AS measuredSource,
   k.hang_time_s AS hangTimeS, s.id AS sessionId, s.temperature_c AS temperatureC, s.altitude_m AS altitudeM,
   s.relative_humidity_pct AS relativeHumidityPct, s.pressure_hpa AS pressureHpa, s.wind_speed_ms AS windSpeedMs,
   s.wind_from_deg AS windFromDeg, s.ball_size AS ballSize, s.conditions_source_json AS conditionsSourceJson`;

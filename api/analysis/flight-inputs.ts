@@ -66,6 +66,8 @@ export interface StoredKick {
   measuredSpeedMs: number | null;
   launchAngleDeg: number | null;
   measuredSpinRps: number | null;
+  /** Where the measured values came from (absent where the query does not read it: taken as a device). */
+  measuredSource?: 'device' | 'video' | null;
   /** Pitchside stopwatch reading, s, uncorrected (absent where the query does not read it). */
   hangTimeS?: number | null;
 }
@@ -116,6 +118,7 @@ export function loggedKickOf(k: StoredKick, s: SessionConditions): LoggedKick {
     measuredSpeedMs: k.measuredSpeedMs,
     launchAngleDeg: k.launchAngleDeg,
     measuredSpinRps: k.measuredSpinRps,
+    measuredSource: k.measuredSource ?? null,
     hangTimeS: k.hangTimeS ?? null,
     conditions: conditionsOf(s),
   };

@@ -6,7 +6,7 @@ import { eq } from 'drizzle-orm';
 import type { RequestHandler } from 'express';
 import { Passport } from 'passport';
 import { ExtractJwt, Strategy as JwtStrategy } from 'passport-jwt';
-import type { Role } from '../../shared/roles';
+import { STAFF_ROLES, type Role } from '../../shared/roles';
 import type { AppConfig } from '../config';
 import type { Db } from '../db/client';
 import { users } from '../db/schema';
@@ -70,4 +70,9 @@ export function requireRole(...roles: Role[]): RequestHandler {
     if (!roles.includes(req.user.role)) return next(new Forbidden());
     next();
   };
+}
+
+/** Allows club staff only (`STAFF_ROLES`: admin, head coach, assistant coach). */
+export function requireStaff(): RequestHandler {
+  return requireRole(...STAFF_ROLES);
 }

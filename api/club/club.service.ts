@@ -23,6 +23,7 @@ export function settingsOfClub(db: Db, clubId: string): Required<ClubSettings> {
       dragCrisisRe: clubs.dragCrisisRe,
       distanceUnit: clubs.distanceUnit,
       locale: clubs.locale,
+      repLimitPerSession: clubs.repLimitPerSession,
     })
     .from(clubs)
     .where(eq(clubs.id, clubId))

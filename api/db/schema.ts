@@ -7,9 +7,10 @@
  * `deleted_at` (tombstone), a per-row `version` for optimistic concurrency and a
  * server-assigned, strictly increasing `change_seq` that the pull cursor follows.
  */
+import { DEFAULT_REP_LIMIT_PER_SESSION } from '../../shared/schemas/club';
 import { sql } from 'drizzle-orm';
 import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
-import { FEET, OUTCOMES, TECHNIQUES } from '../../shared/vocabulary';
+import { FEET, MEASURED_SOURCES, OUTCOMES, TECHNIQUES } from '../../shared/vocabulary';
 
 const createdAt = () =>
   text('created_at')
@@ -26,7 +27,7 @@ export const clubs = sqliteTable('clubs', {
   name: text('name').notNull(),
   timezone: text('timezone').notNull().default('Europe/London'),
   /** Repetitions per player per session above which Pitchside shows the kicking-load caution. */
-  repLimitPerSession: integer('rep_limit_per_session').notNull().default(40),
+  repLimitPerSession: integer('rep_limit_per_session').notNull().default(DEFAULT_REP_LIMIT_PER_SESSION),
   /** Weekday (0 = Sunday … 6 = Saturday) and local time (HH:MM, club time zone) of the weekly digests. */
   digestWeekday: integer('digest_weekday').notNull().default(1),
   digestTime: text('digest_time').notNull().default('07:00'),
@@ -324,6 +325,10 @@ export const kicks = sqliteTable(
     measuredSpinRps: real('measured_spin_rps'),
     /** Hang time as tapped on the Pitchside stopwatch (foot contact → first bounce), seconds, uncorrected. */
     hangTimeS: real('hang_time_s'),
+    /** Where the measured speed, angle and spin came from: 'device' (an import) or 'video' (a solved phone track). */
+    measuredSource: text('measured_source', { enum: MEASURED_SOURCES }),
+    /** A video measurement's taps, ground marks and fit (shared/schemas/sync.ts `videoTrackSchema`), JSON. */
+    videoTrackJson: text('video_track_json'),
     recordedAt: text('recorded_at').notNull(),
     recordedBy: text('recorded_by').references(() => users.id),
     deviceId: text('device_id'),

@@ -3,6 +3,7 @@
  * summary per head coach. Safe to run twice or from two processes at once: each (recipient,
  * week) has a unique key in `mail_outbox`, so a second run queues nothing new.
  */
+import { DEFAULT_REP_LIMIT_PER_SESSION } from '../../shared/schemas/club';
 import { randomUUID } from 'node:crypto';
 import { and, eq, inArray } from 'drizzle-orm';
 import type { DigestRunResult } from '../../shared/schemas/mail';
@@ -179,7 +180,7 @@ export class DigestJob {
       .all()
       .filter((u) => !u.disabledAt);
     const club = this.db.select().from(clubs).where(eq(clubs.id, clubId)).get();
-    const limit = club?.repLimitPerSession ?? 40;
+    const limit = club?.repLimitPerSession ?? DEFAULT_REP_LIMIT_PER_SESSION;
     const f = clubFormat(this.db, clubId);
     let sent = 0;
     for (const coach of coaches) {

@@ -2,6 +2,7 @@
  * `POST /api/admin/players/:id/erase` (admin): erases a player on request (see erasure.service.ts).
  * Written to the audit log; the name must be typed to confirm.
  */
+import { idSchema } from '../id-param';
 import { Router } from 'express';
 import * as z from 'zod';
 import { requireRole } from '../auth/passport';
@@ -19,7 +20,7 @@ export const eraseSchema = z.strictObject({
 export function erasureRouter(db: Db): Router {
   const router = Router();
   router.post('/:id/erase', requireRole('admin'), (req, res) => {
-    const id = parseOrThrow(z.uuid({ error: 'id must be a UUID' }), req.params['id'], 'Player id', 'id').toLowerCase();
+    const id = parseOrThrow(idSchema, req.params['id'], 'Player id', 'id').toLowerCase();
     const { mode, confirmName } = parseOrThrow(eraseSchema, req.body, 'Erasure');
     const kicksAffected = erasePlayer(db, scopeOf(req).user, id, mode, confirmName);
     res.json({ erased: true, kicksAffected });

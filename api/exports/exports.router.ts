@@ -2,11 +2,12 @@
  * `/api/exports`: kicks as CSV (RFC 4180) for a squad or a player and a date range, and a
  * player's full data as JSON for a data-access request (admin). Every export is audited.
  */
+import { idSchema } from '../id-param';
 import { audit } from '../audit';
 import { eq } from 'drizzle-orm';
 import { Router } from 'express';
 import * as z from 'zod';
-import { requireRole } from '../auth/passport';
+import { requireRole, requireStaff } from '../auth/passport';
 import type { Db } from '../db/client';
 import { guardianLinks, kicks, players, playerProfiles, squads, trainingSessions, users } from '../db/schema';
 import { Forbidden, NotFound, parseOrThrow } from '../errors';
@@ -65,7 +66,7 @@ function inClubUnit(rows: CsvCell[][], unit: DistanceUnit): { header: string[]; 
 /** Builds the exports router (behind authentication and scope). */
 export function exportsRouter(db: Db): Router {
   const router = Router();
-  router.get('/kicks.csv', requireRole('admin', 'head_coach', 'assistant_coach'), (req, res) => {
+  router.get('/kicks.csv', requireStaff(), (req, res) => {
     const q = parseOrThrow(kicksQuery, req.query, 'Query');
     const scope = scopeOf(req);
     if (q.squadId && !scope.canReadSquad(q.squadId)) throw new NotFound('No such squad among yours');
@@ -98,7 +99,7 @@ export function exportsRouter(db: Db): Router {
   });
 
   router.get('/players/:id.json', requireRole('admin'), (req, res) => {
-    const id = parseOrThrow(z.uuid({ error: 'id must be a UUID' }), req.params['id'], 'Player id');
+    const id = parseOrThrow(idSchema, req.params['id'], 'Player id');
     const scope = scopeOf(req);
     const player = db.select().from(players).where(eq(players.id, id)).get();
     if (!player || player.clubId !== scope.user.clubId) throw new NotFound('No such player in your club');

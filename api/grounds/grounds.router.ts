@@ -1,6 +1,6 @@
 /** `/api/grounds`: the club's training grounds (staff read, admins edit) and the conditions measured at each. */
 import { Router } from 'express';
-import { requireRole } from '../auth/passport';
+import { requireRole, requireStaff } from '../auth/passport';
 import type { Db } from '../db/client';
 import { parseOrThrow } from '../errors';
 import { scopeOf } from '../scope/scope.middleware';
@@ -11,7 +11,7 @@ import { createGround, listGrounds, updateGround } from './grounds.service';
 /** Builds the grounds router (mounted behind authentication and scope). */
 export function groundsRouter(db: Db, conditions: GroundConditionsService): Router {
   const router = Router();
-  const staff = requireRole('admin', 'head_coach', 'assistant_coach');
+  const staff = requireStaff();
   router.get('/', staff, (req, res) => {
     res.json({ grounds: listGrounds(db, scopeOf(req)) });
   });

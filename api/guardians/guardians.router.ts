@@ -1,14 +1,12 @@
 /** `/api/guardians`: links, consent, digest opt-in and the child summary. */
+import { idSchema } from '../id-param';
 import { Router } from 'express';
-import * as z from 'zod';
 import { consentSchema, createLinkSchema, digestOptInSchema } from '../../shared/schemas/mail';
 import { requireRole } from '../auth/passport';
 import { parseOrThrow } from '../errors';
 import { scopeOf } from '../scope/scope.middleware';
 import { CONSENT_TEXT } from './consent-text';
 import type { GuardiansService } from './guardians.service';
-
-const idSchema = z.uuid({ error: 'id must be a UUID' });
 
 /** Builds the guardians router (behind authentication and scope). */
 export function guardiansRouter(guardians: GuardiansService): Router {

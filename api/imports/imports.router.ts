@@ -5,7 +5,7 @@
 import type { NextFunction, Request, Response } from 'express';
 import { Router } from 'express';
 import multer from 'multer';
-import { requireRole } from '../auth/passport';
+import { requireRole, requireStaff } from '../auth/passport';
 import { HttpError, Invalid } from '../errors';
 import { unsafeJsonPath } from '../json-guard';
 import { scopeOf } from '../scope/scope.middleware';
@@ -67,7 +67,7 @@ export function importsRouter(runner: ImportRunner): Router {
     const result = await runner.roster(scopeOf(req).user, fileOf(req), dryRunOf(req));
     res.status(result.dryRun || result.alreadyImported ? 200 : 201).json(result);
   });
-  router.post('/kicks', requireRole('admin', 'head_coach', 'assistant_coach'), receiveFile, async (req, res) => {
+  router.post('/kicks', requireStaff(), receiveFile, async (req, res) => {
     const body = req.body as Record<string, unknown>;
     let mapping: unknown;
     try {

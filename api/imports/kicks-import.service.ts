@@ -279,8 +279,8 @@ export function importKicks(
           const insert = cachedStatement(
             db.$client,
             `INSERT OR IGNORE INTO kicks (id, club_id, session_id, drill_id, player_id, technique, foot, backspin_step, sidespin_step, target_distance_m, target_radius_m,
-           outcome, carry_m, lateral_m, measured_speed_ms, launch_angle_deg, measured_spin_rps, recorded_at, recorded_by, device_id, change_seq)
-         VALUES (?, ?, ?, ?, ?, ?, ?, ?, 0, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, 'import', ?)`,
+           outcome, carry_m, lateral_m, measured_speed_ms, launch_angle_deg, measured_spin_rps, measured_source, recorded_at, recorded_by, device_id, change_seq)
+         VALUES (?, ?, ?, ?, ?, ?, ?, ?, 0, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, 'import', ?)`,
           );
           for (const r of fresh) {
             insert.run(
@@ -300,6 +300,8 @@ export function importKicks(
               r.speedMs,
               r.angleDeg,
               r.spinRps,
+              // A device export is the only source of measured values through this import.
+              r.speedMs === null && r.angleDeg === null && r.spinRps === null ? null : 'device',
               r.recordedAt,
               user,
               nextChangeSeq(db),

@@ -9,10 +9,26 @@ import { OPERATIONS, type Operation } from './operations';
 
 type Json = Record<string, unknown>;
 
-/** JSON Schema of a zod schema, for the given direction. */
-function schemaOf(schema: z.ZodType, io: 'input' | 'output'): Json {
-  const json = z.toJSONSchema(schema, { target: 'draft-2020-12', io, unrepresentable: 'any' }) as Json;
+/** Named schemas of the document (`components.schemas`), filled while the operations are rendered. */
+type Components = Record<string, Json>;
+
+/**
+ * JSON Schema of a zod schema, for the given direction. Payloads defined once in shared/ carry an `id`
+ * (zod metadata); zod renders them as `$defs`, which move to `components.schemas` so every operation
+ * references the one definition. Request shapes get an `Input` suffix: before defaults and transforms, a
+ * payload can differ from the answer with the same id.
+ */
+function schemaOf(schema: z.ZodType, io: 'input' | 'output', components: Components): Json {
+  const suffix = io === 'input' ? 'Input' : '';
+  const text = JSON.stringify(z.toJSONSchema(schema, { target: 'draft-2020-12', io, unrepresentable: 'any' })).replace(
+    /"#\/\$defs\/([^"]+)"/g,
+    (_, id: string) => `"#/components/schemas/${id}${suffix}"`,
+  );
+  const json = JSON.parse(text) as Json;
   delete json['$schema'];
+  const defs = (json['$defs'] ?? {}) as Record<string, Json>;
+  delete json['$defs'];
+  for (const [id, def] of Object.entries(defs)) components[id + suffix] = def;
   return json;
 }
 
@@ -21,7 +37,7 @@ export function openApiPath(expressPath: string): string {
   return expressPath.replace(/:([A-Za-z]+)/g, '{$1}');
 }
 
-function parameters(op: Operation): Json[] {
+function parameters(op: Operation, components: Components): Json[] {
   const out: Json[] = [...op.path.matchAll(/:([A-Za-z]+)/g)].map((m) => ({
     name: m[1],
     in: 'path',
@@ -29,7 +45,7 @@ function parameters(op: Operation): Json[] {
     schema: { type: 'string', format: 'uuid' },
   }));
   if (op.query) {
-    const query = schemaOf(op.query, 'input');
+    const query = schemaOf(op.query, 'input', components);
     const props = (query['properties'] ?? {}) as Record<string, Json>;
     const required = new Set((query['required'] ?? []) as string[]);
     for (const [name, schema] of Object.entries(props)) out.push({ name, in: 'query', required: required.has(name), schema });
@@ -37,12 +53,15 @@ function parameters(op: Operation): Json[] {
   return out;
 }
 
-function operation(op: Operation): Json {
+function operation(op: Operation, components: Components): Json {
   const success: Json = op.noContent
     ? { description: 'Done (no body)' }
     : op.produces
       ? { description: op.summary, content: { [op.produces]: { schema: { type: 'string' } } } }
-      : { description: op.summary, content: { 'application/json': { schema: schemaOf(op.answer ?? z.looseObject({}), 'output') } } };
+      : {
+          description: op.summary,
+          content: { 'application/json': { schema: schemaOf(op.answer ?? z.looseObject({}), 'output', components) } },
+        };
   const error = {
     description: 'Refused: the body names the reason (and, for 400, each field)',
     content: { 'application/json': { schema: { $ref: '#/components/schemas/Error' } } },
@@ -55,11 +74,11 @@ function operation(op: Operation): Json {
       op.access === 'public'
         ? 'No sign-in needed.'
         : `Signed-in roles: ${op.access.join(', ')}. Every answer is scoped to the caller's club.`,
-    parameters: parameters(op),
+    parameters: parameters(op, components),
     responses: { [op.noContent ? '204' : op.created ? '201' : '200']: success, '4XX': error },
   };
   if (op.access !== 'public') out['security'] = [{ bearer: [] }];
-  if (op.body) out['requestBody'] = { required: true, content: { 'application/json': { schema: schemaOf(op.body, 'input') } } };
+  if (op.body) out['requestBody'] = { required: true, content: { 'application/json': { schema: schemaOf(op.body, 'input', components) } } };
   if (op.upload) {
     out['requestBody'] = {
       required: true,
@@ -76,9 +95,11 @@ function operation(op: Operation): Json {
 /** Builds the document (cheap: done once per server). */
 export function buildOpenApiDocument(serverUrl: string): Json {
   const paths: Record<string, Json> = {};
+  const schemas: Components = {};
+  const error = schemaOf(errorBodySchema, 'output', schemas);
   for (const op of OPERATIONS) {
     const path = openApiPath(op.path);
-    paths[path] = { ...(paths[path] ?? {}), [op.method.toLowerCase()]: operation(op) };
+    paths[path] = { ...(paths[path] ?? {}), [op.method.toLowerCase()]: operation(op, schemas) };
   }
   return {
     openapi: '3.1.0',
@@ -93,7 +114,7 @@ export function buildOpenApiDocument(serverUrl: string): Json {
     servers: [{ url: serverUrl }],
     components: {
       securitySchemes: { bearer: { type: 'http', scheme: 'bearer', bearerFormat: 'JWT' } },
-      schemas: { Error: schemaOf(errorBodySchema, 'output') },
+      schemas: { ...schemas, ...('$ref' in error ? {} : { Error: error }) },
     },
     paths,
   };

@@ -4,22 +4,32 @@
  * with the routes Express actually has, so a new route without an entry here fails the build.
  */
 import type * as z from 'zod';
-import { ROLES, type Role } from '../../shared/roles';
+import { ROLES, STAFF_ROLES, type Role } from '../../shared/roles';
 import { loginRequestSchema, refreshRequestSchema } from '../../shared/schemas/auth';
 import { clubSettingsUpdateSchema } from '../../shared/schemas/club';
-import { groundInputSchema } from '../../shared/schemas/grounds';
+import { groundConditionsSchema, groundInputSchema, groundSchema } from '../../shared/schemas/grounds';
 import {
   acceptInviteSchema,
+  childSummarySchema,
   consentSchema,
   createLinkSchema,
   digestOptInSchema,
+  digestRunResultSchema,
   forgotPasswordSchema,
   inviteRequestSchema,
   resetPasswordSchema,
 } from '../../shared/schemas/mail';
-import { pullQuerySchema, pushRequestSchema } from '../../shared/schemas/sync';
-import { usersQuerySchema } from '../admin/admin.router';
-import { runSchema } from '../digests/digests.router';
+import {
+  playerKicksResponseSchema,
+  profileEntrySchema,
+  progressResponseSchema,
+  spinEstimatesResponseSchema,
+  squadProfilesResponseSchema,
+  squadWeekSchema,
+} from '../../shared/schemas/analysis';
+import { pullQuerySchema, pullResponseSchema, pushRequestSchema, pushResponseSchema } from '../../shared/schemas/sync';
+import { usersQuerySchema } from '../admin/admin.schemas';
+import { runSchema } from '../digests/digests.schemas';
 import { eraseSchema } from '../exports/erasure.router';
 import { kicksQuery } from '../exports/exports.router';
 import { kicksQuerySchema, listPlayersQuerySchema, profileQuerySchema, progressQuerySchema } from '../players/players.schemas';
@@ -27,11 +37,17 @@ import { weekQuerySchema } from '../squads/squads.router';
 import {
   anyObjectSchema,
   authTokensSchema,
+  capturedMailAnswerSchema,
+  capturedMailListSchema,
   clubSettingsAnswerSchema,
   digestOptInAnswerSchema,
   groundListSchema,
+  guardianLinkAnswerSchema,
+  guardianLinkListSchema,
   healthSchema,
   meSchema,
+  outboxListSchema,
+  playerAnswerSchema,
   playerListSchema,
   squadListSchema,
 } from './responses';
@@ -61,7 +77,7 @@ export interface Operation {
   readonly created?: boolean;
 }
 
-const STAFF: readonly Role[] = ['admin', 'head_coach', 'assistant_coach'];
+const STAFF: readonly Role[] = STAFF_ROLES;
 const ALL: readonly Role[] = ROLES;
 
 /** The documented operations (the reference page lists them in this order). */
@@ -219,7 +235,7 @@ export const OPERATIONS: readonly Operation[] = [
     summary: 'Squad week: per-player figures, zones, load cautions',
     access: STAFF,
     query: weekQuerySchema,
-    answer: anyObjectSchema,
+    answer: squadWeekSchema,
   },
   {
     method: 'GET',
@@ -228,7 +244,7 @@ export const OPERATIONS: readonly Operation[] = [
     summary: "Every player's fitted launch profile for one technique",
     access: STAFF,
     query: profileQuerySchema,
-    answer: anyObjectSchema,
+    answer: squadProfilesResponseSchema,
   },
   {
     method: 'GET',
@@ -239,7 +255,14 @@ export const OPERATIONS: readonly Operation[] = [
     query: listPlayersQuerySchema,
     answer: playerListSchema,
   },
-  { method: 'GET', path: '/api/players/:id', tag: 'Players', summary: 'One player', access: [...STAFF, 'player'], answer: anyObjectSchema },
+  {
+    method: 'GET',
+    path: '/api/players/:id',
+    tag: 'Players',
+    summary: 'One player',
+    access: [...STAFF, 'player'],
+    answer: playerAnswerSchema,
+  },
   {
     method: 'GET',
     path: '/api/players/:id/progress',
@@ -247,7 +270,7 @@ export const OPERATIONS: readonly Operation[] = [
     summary: 'Weekly progress per technique',
     access: [...STAFF, 'player'],
     query: progressQuerySchema,
-    answer: anyObjectSchema,
+    answer: progressResponseSchema,
   },
   {
     method: 'GET',
@@ -256,7 +279,7 @@ export const OPERATIONS: readonly Operation[] = [
     summary: 'Recent kicks',
     access: [...STAFF, 'player'],
     query: kicksQuerySchema,
-    answer: anyObjectSchema,
+    answer: playerKicksResponseSchema,
   },
   {
     method: 'GET',
@@ -265,7 +288,7 @@ export const OPERATIONS: readonly Operation[] = [
     summary: 'Fitted launch profile and reach curve for one technique',
     access: [...STAFF, 'player'],
     query: profileQuerySchema,
-    answer: anyObjectSchema,
+    answer: profileEntrySchema,
   },
   {
     method: 'GET',
@@ -273,7 +296,7 @@ export const OPERATIONS: readonly Operation[] = [
     tag: 'Players',
     summary: 'Spin and speed solved from timed repetitions',
     access: [...STAFF, 'player'],
-    answer: anyObjectSchema,
+    answer: spinEstimatesResponseSchema,
   },
   {
     method: 'POST',
@@ -282,7 +305,7 @@ export const OPERATIONS: readonly Operation[] = [
     summary: 'Push outbox mutations (each applied at most once)',
     access: STAFF,
     body: pushRequestSchema,
-    answer: anyObjectSchema,
+    answer: pushResponseSchema,
   },
   {
     method: 'GET',
@@ -291,7 +314,7 @@ export const OPERATIONS: readonly Operation[] = [
     summary: 'Changes since a cursor',
     access: [...STAFF, 'player'],
     query: pullQuerySchema,
-    answer: anyObjectSchema,
+    answer: pullResponseSchema,
   },
   { method: 'GET', path: '/api/grounds', tag: 'Grounds', summary: "The club's training grounds", access: STAFF, answer: groundListSchema },
   {
@@ -301,7 +324,7 @@ export const OPERATIONS: readonly Operation[] = [
     summary: 'Add a training ground',
     access: ['admin'],
     body: groundInputSchema,
-    answer: anyObjectSchema,
+    answer: groundSchema,
     created: true,
   },
   {
@@ -311,7 +334,7 @@ export const OPERATIONS: readonly Operation[] = [
     summary: 'Change a training ground',
     access: ['admin'],
     body: groundInputSchema,
-    answer: anyObjectSchema,
+    answer: groundSchema,
   },
   {
     method: 'GET',
@@ -319,7 +342,7 @@ export const OPERATIONS: readonly Operation[] = [
     tag: 'Grounds',
     summary: 'Weather at the ground now (or why not)',
     access: STAFF,
-    answer: anyObjectSchema,
+    answer: groundConditionsSchema,
   },
   {
     method: 'GET',
@@ -335,7 +358,7 @@ export const OPERATIONS: readonly Operation[] = [
     tag: 'Guardians',
     summary: 'Guardian links (admins: all; guardians: their own)',
     access: ['admin', 'guardian'],
-    answer: anyObjectSchema,
+    answer: guardianLinkListSchema,
   },
   {
     method: 'POST',
@@ -344,7 +367,7 @@ export const OPERATIONS: readonly Operation[] = [
     summary: 'Link a guardian to a player',
     access: ['admin'],
     body: createLinkSchema,
-    answer: anyObjectSchema,
+    answer: guardianLinkAnswerSchema,
     created: true,
   },
   {
@@ -362,7 +385,7 @@ export const OPERATIONS: readonly Operation[] = [
     summary: 'Give or withdraw consent',
     access: ['guardian'],
     body: consentSchema,
-    answer: anyObjectSchema,
+    answer: guardianLinkAnswerSchema,
   },
   {
     method: 'PUT',
@@ -371,7 +394,7 @@ export const OPERATIONS: readonly Operation[] = [
     summary: 'Family digest opt-in',
     access: ['guardian'],
     body: digestOptInSchema,
-    answer: anyObjectSchema,
+    answer: guardianLinkAnswerSchema,
   },
   {
     method: 'GET',
@@ -379,7 +402,7 @@ export const OPERATIONS: readonly Operation[] = [
     tag: 'Guardians',
     summary: "A linked child's summary",
     access: ['guardian'],
-    answer: anyObjectSchema,
+    answer: childSummarySchema,
   },
   {
     method: 'POST',
@@ -426,7 +449,14 @@ export const OPERATIONS: readonly Operation[] = [
     access: ['admin'],
     noContent: true,
   },
-  { method: 'GET', path: '/api/admin/outbox', tag: 'Admin', summary: "The club's mail outbox", access: ['admin'], answer: anyObjectSchema },
+  {
+    method: 'GET',
+    path: '/api/admin/outbox',
+    tag: 'Admin',
+    summary: "The club's mail outbox",
+    access: ['admin'],
+    answer: outboxListSchema,
+  },
   {
     method: 'POST',
     path: '/api/imports/roster',
@@ -469,7 +499,7 @@ export const OPERATIONS: readonly Operation[] = [
     summary: "Send the week's digests now (safe to repeat)",
     access: ['admin', 'head_coach'],
     body: runSchema,
-    answer: anyObjectSchema,
+    answer: digestRunResultSchema,
   },
   {
     method: 'GET',
@@ -477,7 +507,7 @@ export const OPERATIONS: readonly Operation[] = [
     tag: 'Mail',
     summary: 'Captured mail (development only, with the local fake SMTP server)',
     access: ['admin'],
-    answer: anyObjectSchema,
+    answer: capturedMailListSchema,
   },
   {
     method: 'GET',
@@ -485,6 +515,6 @@ export const OPERATIONS: readonly Operation[] = [
     tag: 'Mail',
     summary: 'One captured message (development only)',
     access: ['admin'],
-    answer: anyObjectSchema,
+    answer: capturedMailAnswerSchema,
   },
 ];

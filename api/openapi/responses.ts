@@ -1,20 +1,19 @@
 /**
  * Zod schemas of the answers the API documents in detail. The OpenAPI document is generated from them and
  * the API specs parse real answers with the same schemas, so the reference cannot drift from what the server
- * sends. Answers not (yet) described here are documented as "a JSON object" with a summary.
+ * sends. Payloads themselves are defined once in shared/schemas/ (the types both sides use are inferred from
+ * them); this file only wraps them in the envelopes the routes answer with. Answers not (yet) described are
+ * documented as "a JSON object" with a summary.
  */
 import * as z from 'zod';
 import { sessionUserSchema } from '../../shared/schemas/auth';
 import { clubSettingsSchema } from '../../shared/schemas/club';
+import { groundSchema } from '../../shared/schemas/grounds';
+import { capturedMailMessageSchema, capturedMailSummarySchema, guardianLinkViewSchema, outboxMailSchema } from '../../shared/schemas/mail';
+import { apiErrorBodySchema, playerSummarySchema, squadSummarySchema } from '../../shared/schemas/squads';
 
 /** The error body every failing call answers with (4xx/5xx). */
-export const errorBodySchema = z.object({
-  error: z.object({
-    code: z.string(),
-    message: z.string(),
-    fields: z.array(z.object({ field: z.string(), message: z.string() })).optional(),
-  }),
-});
+export const errorBodySchema = apiErrorBodySchema;
 
 /** `GET /api/health`. */
 export const healthSchema = z.object({ ok: z.literal(true) });
@@ -36,50 +35,32 @@ export const digestOptInAnswerSchema = z.object({ optIn: z.boolean() });
 /** `GET /api/club/settings` and `PUT /api/club/settings`. */
 export const clubSettingsAnswerSchema = clubSettingsSchema;
 
-const squadGroundSchema = z.object({ id: z.string(), name: z.string(), altitudeM: z.number(), kickingBearingDeg: z.number() });
-
 /** `GET /api/squads`. */
-export const squadListSchema = z.object({
-  squads: z.array(
-    z.object({
-      id: z.string(),
-      name: z.string(),
-      ageGroup: z.string(),
-      ballSize: z.number().int(),
-      playerCount: z.number().int(),
-      ground: squadGroundSchema.nullable().optional(),
-    }),
-  ),
-});
+export const squadListSchema = z.object({ squads: z.array(squadSummarySchema) });
 
 /** `GET /api/players`. */
-export const playerListSchema = z.object({
-  players: z.array(
-    z.object({
-      id: z.string(),
-      squadId: z.string(),
-      squadName: z.string(),
-      displayName: z.string(),
-      shirtNumber: z.number().int().nullable(),
-      dominantFoot: z.enum(['left', 'right']),
-      isMinor: z.boolean(),
-    }),
-  ),
-});
+export const playerListSchema = z.object({ players: z.array(playerSummarySchema) });
+
+/** `GET /api/players/:id`. */
+export const playerAnswerSchema = z.object({ player: playerSummarySchema });
 
 /** `GET /api/grounds`. */
-export const groundListSchema = z.object({
-  grounds: z.array(
-    z.object({
-      id: z.string(),
-      name: z.string(),
-      latitude: z.number().nullable(),
-      longitude: z.number().nullable(),
-      altitudeM: z.number(),
-      kickingBearingDeg: z.number(),
-    }),
-  ),
-});
+export const groundListSchema = z.object({ grounds: z.array(groundSchema) });
+
+/** `GET /api/guardians/links`. */
+export const guardianLinkListSchema = z.object({ links: z.array(guardianLinkViewSchema) });
+
+/** One guardian link created or changed (`POST /api/guardians/links`, consent, digest choice). */
+export const guardianLinkAnswerSchema = z.object({ link: guardianLinkViewSchema });
+
+/** `GET /api/admin/outbox`. */
+export const outboxListSchema = z.object({ mails: z.array(outboxMailSchema) });
+
+/** `GET /api/dev/mail`. */
+export const capturedMailListSchema = z.object({ messages: z.array(capturedMailSummarySchema) });
+
+/** `GET /api/dev/mail/:id`. */
+export const capturedMailAnswerSchema = z.object({ message: capturedMailMessageSchema });
 
 /** Any JSON object: answers documented by summary only. */
 export const anyObjectSchema = z.looseObject({});

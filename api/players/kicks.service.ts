@@ -18,7 +18,7 @@ export function playerKicks(
       `SELECT k.id, k.session_id AS sessionId, k.recorded_at AS recordedAt, k.technique, k.foot, k.backspin_step AS backspinStep,
               k.sidespin_step AS sidespinStep, k.target_distance_m AS targetDistanceM, k.target_radius_m AS targetRadiusM, k.outcome,
               k.carry_m AS carryM, k.still_air_carry_m AS stillAirCarryM, k.lateral_m AS lateralM, k.measured_speed_ms AS measuredSpeedMs,
-              k.launch_angle_deg AS launchAngleDeg, k.measured_spin_rps AS measuredSpinRps,
+              k.launch_angle_deg AS launchAngleDeg, k.measured_spin_rps AS measuredSpinRps, k.measured_source AS measuredSource,
               k.hang_time_s AS hangTimeS
          FROM kicks k WHERE ${where} ORDER BY k.recorded_at DESC LIMIT @limit`,
     )

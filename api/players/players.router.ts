@@ -1,8 +1,9 @@
 /** `/api/players`: the players the caller may see, and (staff and the player themself) each one's progress, kicks and profile. */
+import { idSchema } from '../id-param';
 import { Router } from 'express';
-import * as z from 'zod';
 import type { ProfileCache } from '../analysis/profile-cache';
 import type { Db } from '../db/client';
+import { STAFF_ROLES } from '../../shared/roles';
 import { requireRole } from '../auth/passport';
 import { parseOrThrow } from '../errors';
 import { scopeOf } from '../scope/scope.middleware';
@@ -12,13 +13,11 @@ import { getPlayer, listPlayers } from './players.service';
 import { playerProgress } from './progress.service';
 import { playerSpinEstimates } from './spin.service';
 
-const idSchema = z.uuid({ error: 'id must be a UUID' });
-
 /**
  * Raw training data (progress, kicks, profile, spin estimates) is for staff and the player themself. A
  * guardian gets the child summary (`/api/guardians/children/:playerId/summary`), as the README promises.
  */
-const rawDataReaders = requireRole('admin', 'head_coach', 'assistant_coach', 'player');
+const rawDataReaders = requireRole(...STAFF_ROLES, 'player');
 
 /** Builds the players router (mounted behind authentication and scope). */
 export function playersRouter(db: Db, profiles: ProfileCache): Router {

@@ -1,7 +1,8 @@
 /** `/api/squads`: the caller's squads and each squad's week. */
+import { idSchema } from '../id-param';
 import { Router } from 'express';
 import * as z from 'zod';
-import { requireRole } from '../auth/passport';
+import { requireStaff } from '../auth/passport';
 import type { ProfileCache } from '../analysis/profile-cache';
 import type { Db } from '../db/client';
 import { profileQuerySchema } from '../players/players.schemas';
@@ -22,14 +23,14 @@ export function squadsRouter(db: Db, profiles: ProfileCache): Router {
   router.get('/', (req, res) => {
     res.json({ squads: listSquads(db, scopeOf(req)) });
   });
-  router.get('/:id/week', requireRole('admin', 'head_coach', 'assistant_coach'), (req, res) => {
-    const id = parseOrThrow(z.uuid({ error: 'id must be a UUID' }), req.params['id'], 'Squad id');
+  router.get('/:id/week', requireStaff(), (req, res) => {
+    const id = parseOrThrow(idSchema, req.params['id'], 'Squad id');
     if (!scopeOf(req).canReadSquad(id)) throw new NotFound('No such squad among yours');
     const { start, carry } = parseOrThrow(weekQuerySchema, req.query, 'Query');
     res.json(squadWeek(db, profiles, scopeOf(req), id, start, carry));
   });
-  router.get('/:id/profiles', requireRole('admin', 'head_coach', 'assistant_coach'), (req, res) => {
-    const id = parseOrThrow(z.uuid({ error: 'id must be a UUID' }), req.params['id'], 'Squad id');
+  router.get('/:id/profiles', requireStaff(), (req, res) => {
+    const id = parseOrThrow(idSchema, req.params['id'], 'Squad id');
     if (!scopeOf(req).canReadSquad(id)) throw new NotFound('No such squad among yours');
     const { technique } = parseOrThrow(profileQuerySchema, req.query, 'Query');
     res.json(squadProfiles(db, profiles, scopeOf(req), id, technique));

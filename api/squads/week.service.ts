@@ -3,6 +3,7 @@
  * best technique and kicking-load flags, aggregated in SQLite through the sessions of the
  * squad in the two weeks (training_sessions_squad_started_idx, then kicks_session_idx).
  */
+import { DEFAULT_REP_LIMIT_PER_SESSION } from '../../shared/schemas/club';
 import { and, eq, isNull } from 'drizzle-orm';
 import type { CalibrationPoint, CarryBasis, SquadWeek, SquadWeekPlayer, ZoneHitRate } from '../../shared/schemas/analysis';
 import type { Technique } from '../../shared/schemas/sync';
@@ -47,7 +48,8 @@ export function squadWeek(
     .where(and(eq(squads.id, squadId), eq(squads.clubId, scope.user.clubId), isNull(squads.deletedAt)))
     .get();
   if (!squad) throw new NotFound('No such squad among yours');
-  const limit = db.select({ l: clubs.repLimitPerSession }).from(clubs).where(eq(clubs.id, squad.clubId)).get()?.l ?? 40;
+  const limit =
+    db.select({ l: clubs.repLimitPerSession }).from(clubs).where(eq(clubs.id, squad.clubId)).get()?.l ?? DEFAULT_REP_LIMIT_PER_SESSION;
   const weekStart = isoWeekStart(start);
   const prevStart = addDays(weekStart, -7);
   const weekEnd = addDays(weekStart, 7);

@@ -1,7 +1,7 @@
 /** `/api/sync`: push the device's outbox, pull changes since a cursor. */
 import { Router } from 'express';
 import { pullQuerySchema, pushRequestSchema, type PullWindow } from '../../shared/schemas/sync';
-import { requireRole } from '../auth/passport';
+import { requireStaff } from '../auth/passport';
 import type { Db } from '../db/client';
 import { parseOrThrow } from '../errors';
 import { scopeOf } from '../scope/scope.middleware';
@@ -10,7 +10,7 @@ import { pull, push } from './sync.service';
 /** Builds the sync router (mounted behind authentication and scope). Players and guardians cannot push. */
 export function syncRouter(db: Db): Router {
   const router = Router();
-  router.post('/push', requireRole('admin', 'head_coach', 'assistant_coach'), (req, res) => {
+  router.post('/push', requireStaff(), (req, res) => {
     const body = parseOrThrow(pushRequestSchema, req.body, 'Push');
     res.json(push(db, scopeOf(req), body.deviceId, body.mutations));
   });

@@ -2,7 +2,7 @@
  * Mapping between database rows and the synced `data` shape of each entity, so push and
  * pull speak exactly the contract of `shared/schemas/sync.ts`.
  */
-import type { DrillData, KickData, SessionData, SyncEntity, SyncRow } from '../../shared/schemas/sync';
+import type { DrillData, KickData, SessionData, SyncEntity, SyncRow, VideoTrack } from '../../shared/schemas/sync';
 import { drills, kicks, trainingSessions } from '../db/schema';
 
 type SessionRow = typeof trainingSessions.$inferSelect;
@@ -77,6 +77,8 @@ export function kickToSync(r: KickRow): SyncRow {
     launchAngleDeg: r.launchAngleDeg,
     measuredSpinRps: r.measuredSpinRps,
     hangTimeS: r.hangTimeS,
+    measuredSource: r.measuredSource,
+    videoTrack: r.videoTrackJson ? (JSON.parse(r.videoTrackJson) as VideoTrack) : null,
     recordedAt: r.recordedAt,
     recordedBy: r.recordedBy,
   };
@@ -136,6 +138,11 @@ export function kickColumns(d: KickData) {
     launchAngleDeg: d.launchAngleDeg ?? null,
     measuredSpinRps: d.measuredSpinRps ?? null,
     hangTimeS: d.hangTimeS ?? null,
+    // Undefined (an older client that does not know the fields) keeps the stored measurement's source and
+    // track (`keepMeasurement`); null clears them.
+    measuredSource: d.measuredSource ?? null,
+    videoTrackJson: d.videoTrack ? JSON.stringify(d.videoTrack) : null,
+    keepMeasurement: d.measuredSource === undefined && d.videoTrack === undefined ? 1 : 0,
     recordedAt: d.recordedAt,
   };
 }

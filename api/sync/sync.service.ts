@@ -311,15 +311,17 @@ type KickRow = typeof kicks.$inferSelect;
 
 const INSERT_KICK = `INSERT INTO kicks (id, club_id, session_id, drill_id, player_id, technique, foot, backspin_step, sidespin_step,
     target_distance_m, target_radius_m, outcome, carry_m, lateral_m, measured_speed_ms, launch_angle_deg, measured_spin_rps,
-    hang_time_s, recorded_at, recorded_by, device_id, updated_at, version, change_seq)
+    hang_time_s, measured_source, video_track_json, recorded_at, recorded_by, device_id, updated_at, version, change_seq)
   VALUES (@id, @clubId, @sessionId, @drillId, @playerId, @technique, @foot, @backspinStep, @sidespinStep, @targetDistanceM,
-    @targetRadiusM, @outcome, @carryM, @lateralM, @measuredSpeedMs, @launchAngleDeg, @measuredSpinRps, @hangTimeS, @recordedAt,
-    @recordedBy, @deviceId, @updatedAt, 1, @changeSeq)`;
+    @targetRadiusM, @outcome, @carryM, @lateralM, @measuredSpeedMs, @launchAngleDeg, @measuredSpinRps, @hangTimeS,
+    @measuredSource, @videoTrackJson, @recordedAt, @recordedBy, @deviceId, @updatedAt, 1, @changeSeq)`;
 
 const UPDATE_KICK = `UPDATE kicks SET session_id = @sessionId, drill_id = @drillId, player_id = @playerId, technique = @technique, foot = @foot,
     backspin_step = @backspinStep, sidespin_step = @sidespinStep, target_distance_m = @targetDistanceM, target_radius_m = @targetRadiusM,
     outcome = @outcome, carry_m = @carryM, lateral_m = @lateralM, measured_speed_ms = @measuredSpeedMs, launch_angle_deg = @launchAngleDeg,
-    measured_spin_rps = @measuredSpinRps, hang_time_s = @hangTimeS, recorded_at = @recordedAt, updated_at = @updatedAt, version = version + 1, change_seq = @changeSeq,
+    measured_spin_rps = @measuredSpinRps, hang_time_s = @hangTimeS,
+    measured_source = CASE WHEN @keepMeasurement = 1 THEN measured_source ELSE @measuredSource END,
+    video_track_json = CASE WHEN @keepMeasurement = 1 THEN video_track_json ELSE @videoTrackJson END, recorded_at = @recordedAt, updated_at = @updatedAt, version = version + 1, change_seq = @changeSeq,
     still_air_carry_m = NULL
   WHERE id = @id`;
 

@@ -1,12 +1,12 @@
 /**
- * One trajectory with odex (Gragg–Bulirsch–Stoer, dense output). Ground contact, apex and plane
- * crossings are roots of odex's dense-output polynomials found with Brent's method inside the step
+ * One trajectory with ODEX (Gragg–Bulirsch–Stoer, dense output; our allocation-free port of odex in
+ * extrapolation.ts). Ground contact, apex and plane crossings are roots of its dense-output polynomials found with Brent's method inside the step
  * that contains them, so their accuracy is the integrator's, not that of a linear interpolation.
  */
 
 import { FLIGHT_TIME_CAP_S, PATH_SAMPLE_INTERVAL_S } from './constants';
 import { derivative, type FlightModel } from './model';
-import { Solver, type OdexDense } from './odex-solver';
+import { GBS_CONVERGED, GbsSolver, type GbsDense } from './extrapolation';
 import { brentRoot } from './roots';
 import type { Flight, PathPoint, PlaneCrossing } from './types';
 
@@ -18,7 +18,7 @@ export interface SolverSettings {
   initialStepS: number;
   /** Longest step allowed, s (absent or 0: no limit beyond the flight-time cap). */
   maxStepS?: number;
-  /** Extrapolation table size; odex allocates O(k²) arrays per solve, so smaller is cheaper. */
+  /** Extrapolation table size (KM); a smaller table caps the order and the work per step. */
   maxExtrapolationColumns: number;
   /** odex interpolationFormulaDegree (1..6): higher = cheaper, less accurate dense output. */
   interpolationDegree: number;
@@ -39,7 +39,7 @@ export interface SolverSettings {
  *
  * Uniform wind (or none): tolerance in effect absolute, 1e-4 (rtol 1e-7 adds at most 1e-5 for states of
  * order 1–100 and sets odex's starting order); a first step of 0.6 s (flights last 1–5 s); a small
- * extrapolation table (fewer arrays to allocate per solve); no stability checks (the problem is not
+ * extrapolation table (a lower order cap); no stability checks (the problem is not
  * stiff). Worst carry error 0.40 mm, ~61 right-hand-side evaluations per kick.
  *
  * Wind growing with height: on those settings the worst carry error was 22 mm (the landing and launch
@@ -109,22 +109,25 @@ export interface GeneralCrossing extends PlaneCrossing {
  */
 export const integratorWork = { flights: 0, rhsEvaluations: 0 };
 
-const solvers = new WeakMap<Readonly<SolverSettings>, Solver>();
+const solvers = new WeakMap<Readonly<SolverSettings>, GbsSolver<FlightModel>>();
 
-function solverFor(settings: Readonly<SolverSettings>): Solver {
+/** One reusable solver per settings object: its tables are allocated once, not per flight. */
+function solverFor(settings: Readonly<SolverSettings>): GbsSolver<FlightModel> {
   let solver = solvers.get(settings);
   if (!solver) {
-    solver = new Solver(6);
-    solver.denseOutput = true;
-    solver.denseComponents = [0, 1, 2, 5];
-    solver.relativeTolerance = settings.relativeTolerance;
-    solver.absoluteTolerance = settings.absoluteTolerance;
-    solver.initialStepSize = settings.initialStepS;
-    solver.maxExtrapolationColumns = settings.maxExtrapolationColumns;
-    solver.maxSteps = 5000;
-    solver.interpolationFormulaDegree = settings.interpolationDegree;
-    solver.stabilityCheckCount = settings.stabilityCheckCount;
-    solver.maxStepSize = settings.maxStepS ?? 0;
+    solver = new GbsSolver<FlightModel>({
+      n: 6,
+      // x, y, z and vz only: horizontal velocity at landing comes from the position polynomials.
+      denseComponents: [0, 1, 2, 5],
+      relativeTolerance: settings.relativeTolerance,
+      absoluteTolerance: settings.absoluteTolerance,
+      initialStepSize: settings.initialStepS,
+      maxExtrapolationColumns: settings.maxExtrapolationColumns,
+      maxSteps: 5000,
+      interpolationFormulaDegree: settings.interpolationDegree,
+      stabilityCheckCount: settings.stabilityCheckCount,
+      maxStepSize: settings.maxStepS ?? 0,
+    });
     solvers.set(settings, solver);
   }
   return solver;
@@ -157,14 +160,6 @@ export function integrateFlight(model: FlightModel, options: IntegrateOptions = 
     };
   }
 
-  const out = [0, 0, 0, 0, 0, 0];
-  let evaluations = 0;
-  const f = (t: number, y: number[]): number[] => {
-    evaluations++;
-    derivative(model, t, y, out);
-    return out;
-  };
-
   let prevT = 0;
   let prevZ = 0;
   let prevVz = s0[5]!;
@@ -181,7 +176,7 @@ export function integrateFlight(model: FlightModel, options: IntegrateOptions = 
   let sampleIndex = 1;
   if (wantPath) path.push({ t: 0, x: 0, y: 0, z: 0 });
 
-  const observer = (nr: number, tOld: number, t: number, y: number[], dense?: OdexDense): boolean | void => {
+  const observer = (nr: number, tOld: number, t: number, y: Float64Array, dense?: GbsDense): boolean | void => {
     if (nr === 1 || !dense) return;
     const zEnd = y[2]!;
     const vzEnd = y[5]!;
@@ -245,7 +240,9 @@ export function integrateFlight(model: FlightModel, options: IntegrateOptions = 
 
   const given = options.settings ?? DEFAULT_SOLVER_SETTINGS;
   const settings = model.windLogScale > 0 && given.windProfile ? given.windProfile : given;
-  const result = solverFor(settings).solve(f, 0, s0, FLIGHT_TIME_CAP_S, observer);
+  const solver = solverFor(settings);
+  const outcome = solver.solve(derivative, model, 0, s0, FLIGHT_TIME_CAP_S, observer);
+  const evaluations = solver.rhsCalls;
   let state: ArrayLike<number>;
   let flightTimeS: number;
   if (landed) {
@@ -253,9 +250,9 @@ export function integrateFlight(model: FlightModel, options: IntegrateOptions = 
     flightTimeS = tLand;
     if (wantPath && path[path.length - 1]!.t < tLand) path.push({ t: tLand, x: landState[0]!, y: landState[1]!, z: 0 });
   } else {
-    // Still airborne at the cap (or odex gave up): report where the ball was, flagged as not landed.
-    state = result.outcome === 0 ? result.y : prevState;
-    flightTimeS = result.outcome === 0 ? FLIGHT_TIME_CAP_S : prevT;
+    // Still airborne at the cap (or the solver gave up): report where the ball was, flagged as not landed.
+    state = outcome === GBS_CONVERGED ? solver.state.slice() : prevState;
+    flightTimeS = outcome === GBS_CONVERGED ? FLIGHT_TIME_CAP_S : prevT;
   }
   integratorWork.flights++;
   integratorWork.rhsEvaluations += evaluations;

@@ -4,7 +4,7 @@
  *
  *   dv/dt = −g ẑ − k C_D(Re, S) |u| u + k C_L(S) |u|² (ω̂ × û),   k = ρA/(2m),   u = v − w.
  *
- * Both the odex integration and the benchmark's fixed-step baseline call `derivative`, so any speed-up
+ * Both the ODEX integration and the benchmark's fixed-step baseline call `derivative`, so any speed-up
  * here helps every envelope.
  */
 

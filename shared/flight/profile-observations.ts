@@ -78,7 +78,11 @@ export function prepareKick(kick: LoggedKick, index: number): PreparedKick {
   const hangTimeS = optional(at('hangTimeS'), kick.hangTimeS, (f, v) => requireInRange(f, v, 0.2, 10, 's'));
   let backspinRps = SPIN_STEP_RPS[backStep];
   let sidespinRps = SIDESPIN_STEP_RPS[sideStep];
-  if (spin !== null) {
+  if (spin !== null && kick.measuredSource === 'video') {
+    // A side-on video measures the backspin component only; its sign rides on the logged step (the
+    // measuring screen sets the step's direction from the fit), sidespin stays the eye-logged step.
+    backspinRps = backStep < 0 ? -spin : spin;
+  } else if (spin !== null) {
     // A device measures the total rate; keep the logged direction (backspin if none was logged).
     const logged = Math.hypot(backspinRps, sidespinRps);
     if (logged > 0) {

@@ -23,6 +23,11 @@ export interface LoggedKick {
   launchAngleDeg?: number | null;
   /** Measured total spin, rev/s. */
   measuredSpinRps?: number | null;
+  /**
+   * Where the measured values came from. A device reports the total spin rate; a side-on video sees only
+   * the backspin component (signed by the logged backspin step), so sidespin stays as logged.
+   */
+  measuredSource?: 'device' | 'video' | null;
   /** Pitchside stopwatch reading (foot contact → first bounce), s, uncorrected for the hand's delay. */
   hangTimeS?: number | null;
   /** The session's conditions; `{}` or absent = defaults (still air, ISA sea level, size 5). */

@@ -1,7 +1,7 @@
 /**
  * Brent's method (R. P. Brent, Algorithms for Minimization without Derivatives, 1973, ch. 4): a
  * bracketing root finder that is as safe as bisection and usually as fast as the secant method. Used on
- * odex's dense output (ground contact, apex, plane crossings) and for the inverse problem.
+ * ODEX's dense output (ground contact, apex, plane crossings) and for the inverse problem.
  */
 
 /**

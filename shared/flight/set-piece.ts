@@ -2,7 +2,7 @@
  * Set-piece check: for a free-kick position, the share of a player's kicks that clear a wall at 9.15 m
  * (IFAB Laws of the Game, Law 13) and cross the goal line inside the posts and under the bar of a
  * 7.32 × 2.44 m goal (Law 1). Each player takes the kick they would choose for this spot (set-piece-aim.ts)
- * and their own spreads scatter it. Crossings are roots on odex's dense output, like landing.
+ * and their own spreads scatter it. Crossings are roots on ODEX's dense output, like landing.
  */
 
 import { WALL_DISTANCE_M } from './constants';

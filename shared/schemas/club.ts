@@ -20,6 +20,13 @@ export const TIMING_SD_RANGE_S: readonly [number, number] = [0.01, 0.5];
  */
 export const DEFAULT_TIMING = { biasS: 0.2, sdS: 0.08 } as const;
 
+/**
+ * Repetitions per player per session above which Pitchside shows the kicking-load caution, for a club
+ * that has not set its own (docs/design.md §10: repeated maximal kicking strains hips and groin; the
+ * figure is common practice, not a medical limit — the club's medical staff set the real one).
+ */
+export const DEFAULT_REP_LIMIT_PER_SESSION = 40;
+
 const seconds = (name: string, [min, max]: readonly [number, number]) =>
   z
     .number({ error: `${name} must be a number of seconds` })
@@ -75,6 +82,8 @@ export const clubSettingsSchema = z.strictObject({
   dragCrisisRe: dragCrisisReSchema.optional(),
   distanceUnit: distanceUnitSchema,
   locale: z.string(),
+  /** The club's kicking-load limit (repetitions per player per session); read-only here. */
+  repLimitPerSession: z.number().int().positive().optional(),
 });
 export type ClubSettings = z.infer<typeof clubSettingsSchema>;
 

@@ -33,43 +33,51 @@ export const groundInputSchema = z.strictObject({
 export type GroundInput = z.infer<typeof groundInputSchema>;
 
 /** A training ground as the API lists it (grounds made before coordinates were asked for may lack them). */
-export interface Ground extends Omit<GroundInput, 'latitude' | 'longitude'> {
-  id: string;
-  latitude: number | null;
-  longitude: number | null;
-}
+export const groundSchema = z
+  .object({
+    id: z.string(),
+    name: z.string(),
+    latitude: z.number().nullable(),
+    longitude: z.number().nullable(),
+    altitudeM: z.number(),
+    kickingBearingDeg: z.number().describe('0 = north, 90 = east'),
+  })
+  .meta({ id: 'Ground' });
+export type Ground = z.infer<typeof groundSchema>;
 
 /** Where a session's condition value came from. */
 export type ConditionSource = 'coach' | 'ground' | 'weather' | 'default';
 
 /** Conditions measured by the weather service at a ground, converted to the flight model's units. */
-export interface MeasuredConditions {
-  source: 'weather';
-  groundId: string;
-  /** When the service measured (or modelled) the values, ISO 8601 UTC. */
-  observedAt: string;
-  /** When Loftline asked the service (answers are cached for ten minutes), ISO 8601 UTC. */
-  fetchedAt: string;
-  temperatureC: number;
-  relativeHumidityPct: number;
-  /** Air pressure at the ground's surface (not reduced to sea level), hPa. */
-  pressureHpa: number;
-  windSpeedMs: number;
-  /** Compass bearing the wind comes from (WMO convention: clockwise from north). */
-  windFromBearingDeg: number;
-  /** The same wind relative to the ground's kicking direction: 0 = headwind, 90 = from the left, 180 = tailwind. */
-  windFromDeg: number;
-  /** The ground's altitude, m (the session stores it as coming from the ground). */
-  altitudeM: number;
-}
+export const measuredConditionsSchema = z
+  .object({
+    source: z.literal('weather'),
+    groundId: z.string(),
+    observedAt: z.string().describe('When the service measured (or modelled) the values, ISO 8601 UTC'),
+    fetchedAt: z.string().describe('When Loftline asked the service (answers are cached for ten minutes), ISO 8601 UTC'),
+    temperatureC: z.number(),
+    relativeHumidityPct: z.number(),
+    pressureHpa: z.number().describe("Air pressure at the ground's surface (not reduced to sea level), hPa"),
+    windSpeedMs: z.number(),
+    windFromBearingDeg: z.number().describe('Compass bearing the wind comes from (WMO convention: clockwise from north)'),
+    windFromDeg: z
+      .number()
+      .describe("The wind relative to the ground's kicking direction: 0 = headwind, 90 = from the left, 180 = tailwind"),
+    altitudeM: z.number().describe("The ground's altitude, m"),
+  })
+  .meta({ id: 'MeasuredConditions' });
+export type MeasuredConditions = z.infer<typeof measuredConditionsSchema>;
 
 /** No measurement: the service is not configured, timed out or failed; Pitchside keeps the coach's taps. */
-export interface UnavailableConditions {
-  source: 'unavailable';
-  groundId: string;
-  /** Why, in words a coach or an admin can act on. */
-  reason: string;
-}
+export const unavailableConditionsSchema = z
+  .object({
+    source: z.literal('unavailable'),
+    groundId: z.string(),
+    reason: z.string().describe('Why, in words a coach or an admin can act on'),
+  })
+  .meta({ id: 'UnavailableConditions' });
+export type UnavailableConditions = z.infer<typeof unavailableConditionsSchema>;
 
 /** Answer of `GET /api/grounds/:id/conditions`. */
-export type GroundConditions = MeasuredConditions | UnavailableConditions;
+export const groundConditionsSchema = z.discriminatedUnion('source', [measuredConditionsSchema, unavailableConditionsSchema]);
+export type GroundConditions = z.infer<typeof groundConditionsSchema>;

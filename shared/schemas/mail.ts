@@ -71,65 +71,68 @@ export const consentSchema = z.discriminatedUnion(
 export const digestOptInSchema = z.strictObject({ optIn: z.boolean({ error: 'optIn must be true or false' }) });
 
 /** A guardian link as the API shows it. */
-export interface GuardianLinkView {
-  id: string;
-  guardianUserId: string;
-  guardianName: string;
-  guardianEmail: string;
-  playerId: string;
-  playerName: string;
-  playerFirstName: string;
-  squadName: string;
-  relationship: string;
-  consentAt: string | null;
-  consentTextVersion: string | null;
-  consentRecordedByName: string | null;
-  consentWithdrawnAt: string | null;
-  digestOptIn: boolean;
-}
+export const guardianLinkViewSchema = z
+  .object({
+    id: z.string(),
+    guardianUserId: z.string(),
+    guardianName: z.string(),
+    guardianEmail: z.string(),
+    playerId: z.string(),
+    playerName: z.string(),
+    playerFirstName: z.string(),
+    squadName: z.string(),
+    relationship: z.string(),
+    consentAt: z.string().nullable(),
+    consentTextVersion: z.string().nullable(),
+    consentRecordedByName: z.string().nullable(),
+    consentWithdrawnAt: z.string().nullable(),
+    digestOptIn: z.boolean(),
+  })
+  .meta({ id: 'GuardianLink' });
+export type GuardianLinkView = z.infer<typeof guardianLinkViewSchema>;
 
 /** `GET /api/guardians/children/:playerId/summary`. */
-export interface ChildSummary {
-  playerId: string;
-  firstName: string;
-  squadName: string;
-  weeks: { weekStart: string; reps: number; hitRate: number | null }[];
-  highlight: string | null;
-}
+export const childSummarySchema = z
+  .object({
+    playerId: z.string(),
+    firstName: z.string(),
+    squadName: z.string(),
+    weeks: z.array(z.object({ weekStart: z.string(), reps: z.number().int(), hitRate: z.number().nullable() })),
+    highlight: z.string().nullable(),
+  })
+  .meta({ id: 'ChildSummary' });
+export type ChildSummary = z.infer<typeof childSummarySchema>;
 
 /** A captured message in the list (`GET /api/dev/mail`). */
-export interface CapturedMailSummary {
-  id: string;
-  from: string;
-  to: string[];
-  subject: string;
-  receivedAt: string;
-}
+export const capturedMailSummarySchema = z
+  .object({ id: z.string(), from: z.string(), to: z.array(z.string()), subject: z.string(), receivedAt: z.string() })
+  .meta({ id: 'CapturedMailSummary' });
+export type CapturedMailSummary = z.infer<typeof capturedMailSummarySchema>;
 
 /** A captured message in full (`GET /api/dev/mail/:id`). */
-export interface CapturedMailMessage extends CapturedMailSummary {
-  text: string;
-  html: string | null;
-  headers: Record<string, string>;
-}
+export const capturedMailMessageSchema = capturedMailSummarySchema
+  .extend({ text: z.string(), html: z.string().nullable(), headers: z.record(z.string(), z.string()) })
+  .meta({ id: 'CapturedMailMessage' });
+export type CapturedMailMessage = z.infer<typeof capturedMailMessageSchema>;
 
 /** A row of the mail outbox (`GET /api/admin/outbox`). */
-export interface OutboxMail {
-  id: string;
-  kind: 'invite' | 'password_reset' | 'family_digest' | 'squad_week';
-  toAddress: string;
-  subject: string;
-  status: 'queued' | 'sent' | 'failed';
-  attempts: number;
-  lastError: string | null;
-  createdAt: string;
-  sentAt: string | null;
-}
+export const outboxMailSchema = z
+  .object({
+    id: z.string(),
+    kind: z.enum(['invite', 'password_reset', 'family_digest', 'squad_week']),
+    toAddress: z.string(),
+    subject: z.string(),
+    status: z.enum(['queued', 'sent', 'failed']),
+    attempts: z.number().int(),
+    lastError: z.string().nullable(),
+    createdAt: z.string(),
+    sentAt: z.string().nullable(),
+  })
+  .meta({ id: 'OutboxMail' });
+export type OutboxMail = z.infer<typeof outboxMailSchema>;
 
 /** `POST /api/digests/run`. */
-export interface DigestRunResult {
-  weekStart: string;
-  familySent: number;
-  familySkipped: number;
-  squadWeekSent: number;
-}
+export const digestRunResultSchema = z
+  .object({ weekStart: z.string(), familySent: z.number().int(), familySkipped: z.number().int(), squadWeekSent: z.number().int() })
+  .meta({ id: 'DigestRunResult' });
+export type DigestRunResult = z.infer<typeof digestRunResultSchema>;

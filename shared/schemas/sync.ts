@@ -11,14 +11,14 @@
  *    order; the client keeps `cursor` and asks again while `hasMore`.
  */
 import * as z from 'zod';
-import { FEET, OUTCOMES, TECHNIQUES } from '../vocabulary';
+import { FEET, MEASURED_SOURCES, OUTCOMES, TECHNIQUES } from '../vocabulary';
 
 /** Most mutations one push may carry. */
 export const MAX_PUSH_MUTATIONS = 500;
 /** Most changes one pull returns (default 500). */
 export const MAX_PULL_LIMIT = 2000;
 
-export { OUTCOMES, TECHNIQUES, type Outcome, type Technique } from '../vocabulary';
+export { MEASURED_SOURCES, OUTCOMES, TECHNIQUES, type MeasuredSource, type Outcome, type Technique } from '../vocabulary';
 export const SYNC_ENTITIES = ['training_session', 'drill', 'kick'] as const;
 export type SyncEntity = (typeof SYNC_ENTITIES)[number];
 
@@ -108,32 +108,130 @@ const step = (name: string, limit: number) =>
     .min(-limit, { error: `${name} must be at least −${limit}` })
     .max(limit, { error: `${name} must be at most ${limit}` });
 
+/**
+ * Bounds of a video track as synced: frames of up to 8K pixels (a tap may fall a little outside the
+ * frame's edge when zoomed), clips of up to ten minutes, and the solver's own limits on taps and
+ * calibration distances (shared/flight/video-track.ts). Common practice, no standard.
+ */
+export const VIDEO_TRACK_DOMAIN = {
+  px: { min: -1000, max: 9000 },
+  frameSizePx: { min: 16, max: 8192 },
+  timeS: { min: 0, max: 600 },
+  alongM: { min: -50, max: 200 },
+  points: { min: 5, max: 400 },
+  /** The solver's signed backspin (− = topspin), rev/s: the flight model's own spin limit. */
+  backspinRps: { min: -30, max: 30 },
+} as const;
+
+const pixel = (name: string) => num(name, VIDEO_TRACK_DOMAIN.px.min, VIDEO_TRACK_DOMAIN.px.max, 'px');
+const trackMark = (name: string) =>
+  z.strictObject(
+    {
+      xPx: pixel(`${name}.xPx`),
+      yPx: pixel(`${name}.yPx`),
+      alongM: num(`${name}.alongM`, VIDEO_TRACK_DOMAIN.alongM.min, VIDEO_TRACK_DOMAIN.alongM.max, 'm'),
+    },
+    { error: `${name} must be an object with xPx, yPx and alongM` },
+  );
+const nonNegative = (name: string, unit: string) =>
+  z
+    .number({ error: `${name} must be a number` })
+    .min(0, { error: `${name} must be at least 0 ${unit}` })
+    .max(1000, { error: `${name} must be at most 1000 ${unit}` });
+
+/**
+ * The taps, ground marks and fit behind a video measurement, kept with the kick so the measurement can be
+ * checked and solved again (the video itself never leaves the phone). Pixels are of the video's own frame
+ * (`frameWidthPx` × `frameHeightPx`), image y downward; times on the video's clock.
+ */
+export const videoTrackSchema = z.strictObject(
+  {
+    frameWidthPx: num('videoTrack.frameWidthPx', VIDEO_TRACK_DOMAIN.frameSizePx.min, VIDEO_TRACK_DOMAIN.frameSizePx.max, 'px'),
+    frameHeightPx: num('videoTrack.frameHeightPx', VIDEO_TRACK_DOMAIN.frameSizePx.min, VIDEO_TRACK_DOMAIN.frameSizePx.max, 'px'),
+    points: z
+      .array(
+        z.strictObject({
+          tS: num('videoTrack.points.tS', VIDEO_TRACK_DOMAIN.timeS.min, VIDEO_TRACK_DOMAIN.timeS.max, 's'),
+          xPx: pixel('videoTrack.points.xPx'),
+          yPx: pixel('videoTrack.points.yPx'),
+        }),
+        { error: 'videoTrack.points must be an array' },
+      )
+      .min(VIDEO_TRACK_DOMAIN.points.min, { error: `videoTrack.points must hold at least ${VIDEO_TRACK_DOMAIN.points.min} taps` })
+      .max(VIDEO_TRACK_DOMAIN.points.max, { error: `videoTrack.points must hold at most ${VIDEO_TRACK_DOMAIN.points.max} taps` }),
+    calibration: z.strictObject(
+      { a: trackMark('videoTrack.calibration.a'), b: trackMark('videoTrack.calibration.b') },
+      { error: 'videoTrack.calibration must be an object with a and b' },
+    ),
+    /** The fit's signed backspin (− = topspin); `measuredSpinRps` holds its size. */
+    backspinRps: num('videoTrack.backspinRps', VIDEO_TRACK_DOMAIN.backspinRps.min, VIDEO_TRACK_DOMAIN.backspinRps.max, 'rev/s'),
+    contactTimeS: num('videoTrack.contactTimeS', -VIDEO_TRACK_DOMAIN.timeS.max, VIDEO_TRACK_DOMAIN.timeS.max, 's'),
+    rmsResidualPx: nonNegative('videoTrack.rmsResidualPx', 'px'),
+    /** One standard deviation of each measured value, from the fit's covariance. */
+    uncertainty: z.strictObject(
+      {
+        speedMs: nonNegative('videoTrack.uncertainty.speedMs', 'm/s'),
+        elevationDeg: nonNegative('videoTrack.uncertainty.elevationDeg', '°'),
+        backspinRps: nonNegative('videoTrack.uncertainty.backspinRps', 'rev/s'),
+      },
+      { error: 'videoTrack.uncertainty must be an object with speedMs, elevationDeg and backspinRps' },
+    ),
+  },
+  { error: 'videoTrack must be an object' },
+);
+export type VideoTrack = z.infer<typeof videoTrackSchema>;
+
 /** A kick as it is synced. Unknown fields are refused (a typo must not vanish silently). */
-export const kickDataSchema = z.strictObject({
-  id: uuid('id'),
-  sessionId: uuid('sessionId'),
-  drillId: uuid('drillId').nullish(),
-  playerId: uuid('playerId'),
-  technique: z.enum(TECHNIQUES, { error: `technique must be one of ${TECHNIQUES.join(', ')}` }),
-  foot: z.enum(FEET, { error: 'foot must be left or right' }),
-  backspinStep: step('backspinStep', 3),
-  sidespinStep: step('sidespinStep', 2),
-  targetDistanceM: num('targetDistanceM', 1, MAX_PITCH_LENGTH_M, 'm'),
-  targetRadiusM: num('targetRadiusM', 0.25, 30, 'm'),
-  outcome: z.enum(OUTCOMES, { error: `outcome must be one of ${OUTCOMES.join(', ')}` }),
-  // The model's domain (KICK_DOMAIN): a value the fit cannot use is refused here, not discovered by a profile.
-  carryM: domainNumber('carryM').nullish(),
-  lateralM: domainNumber('lateralM').nullish(),
-  measuredSpeedMs: domainNumber('measuredSpeedMs').nullish(),
-  launchAngleDeg: domainNumber('launchAngleDeg').nullish(),
-  measuredSpinRps: domainNumber('measuredSpinRps').nullish(),
-  // Pitchside stopwatch reading, contact to first bounce, uncorrected (HANG_TIME_RANGE_S).
-  hangTimeS: num('hangTimeS', HANG_TIME_RANGE_S[0], HANG_TIME_RANGE_S[1], 's').nullish(),
-  recordedAt: isoDateTime('recordedAt'),
-  updatedAt: isoDateTime('updatedAt').optional(),
-  /** Server-derived (pulled rows carry it, so an edited pulled kick sends it back); ignored on push. */
-  stillAirCarryM: z.number({ error: 'stillAirCarryM must be a number' }).nullish(),
-});
+export const kickDataSchema = z
+  .strictObject({
+    id: uuid('id'),
+    sessionId: uuid('sessionId'),
+    drillId: uuid('drillId').nullish(),
+    playerId: uuid('playerId'),
+    technique: z.enum(TECHNIQUES, { error: `technique must be one of ${TECHNIQUES.join(', ')}` }),
+    foot: z.enum(FEET, { error: 'foot must be left or right' }),
+    backspinStep: step('backspinStep', 3),
+    sidespinStep: step('sidespinStep', 2),
+    targetDistanceM: num('targetDistanceM', 1, MAX_PITCH_LENGTH_M, 'm'),
+    targetRadiusM: num('targetRadiusM', 0.25, 30, 'm'),
+    outcome: z.enum(OUTCOMES, { error: `outcome must be one of ${OUTCOMES.join(', ')}` }),
+    // The model's domain (KICK_DOMAIN): a value the fit cannot use is refused here, not discovered by a profile.
+    carryM: domainNumber('carryM').nullish(),
+    lateralM: domainNumber('lateralM').nullish(),
+    measuredSpeedMs: domainNumber('measuredSpeedMs').nullish(),
+    launchAngleDeg: domainNumber('launchAngleDeg').nullish(),
+    measuredSpinRps: domainNumber('measuredSpinRps').nullish(),
+    // Pitchside stopwatch reading, contact to first bounce, uncorrected (HANG_TIME_RANGE_S).
+    hangTimeS: num('hangTimeS', HANG_TIME_RANGE_S[0], HANG_TIME_RANGE_S[1], 's').nullish(),
+    /** Where the measured values came from (absent from older clients: the server keeps what it has). */
+    measuredSource: z.enum(MEASURED_SOURCES, { error: `measuredSource must be one of ${MEASURED_SOURCES.join(', ')}` }).nullish(),
+    /** The taps and fit of a video measurement (only with measuredSource 'video'). */
+    videoTrack: videoTrackSchema.nullish(),
+    recordedAt: isoDateTime('recordedAt'),
+    updatedAt: isoDateTime('updatedAt').optional(),
+    /** Server-derived (pulled rows carry it, so an edited pulled kick sends it back); ignored on push. */
+    stillAirCarryM: z.number({ error: 'stillAirCarryM must be a number' }).nullish(),
+  })
+  .superRefine((k, ctx) => {
+    // A video measurement is the track and its fit together: one without the other cannot be checked.
+    if (k.measuredSource === 'video') {
+      if (!k.videoTrack)
+        ctx.addIssue({ code: 'custom', path: ['videoTrack'], message: 'videoTrack is required when measuredSource is video' });
+      for (const f of ['measuredSpeedMs', 'launchAngleDeg', 'measuredSpinRps'] as const) {
+        if (k[f] === null || k[f] === undefined)
+          ctx.addIssue({ code: 'custom', path: [f], message: `${f} is required when measuredSource is video` });
+      }
+      if (
+        k.videoTrack &&
+        k.measuredSpinRps !== null &&
+        k.measuredSpinRps !== undefined &&
+        Math.abs(Math.abs(k.videoTrack.backspinRps) - k.measuredSpinRps) > 0.05
+      )
+        ctx.addIssue({ code: 'custom', path: ['measuredSpinRps'], message: 'measuredSpinRps must be the size of videoTrack.backspinRps' });
+    } else if (k.videoTrack) {
+      ctx.addIssue({ code: 'custom', path: ['measuredSource'], message: 'measuredSource must be video when a videoTrack is given' });
+    }
+  });
 export type KickData = z.infer<typeof kickDataSchema>;
 
 /** The session values whose source is recorded (`conditionsSource` takes no other key). */
@@ -227,40 +325,50 @@ export const pushRequestSchema = z.strictObject({
 });
 
 /** How the server answered one mutation. */
-export type MutationStatus = 'applied' | 'duplicate' | 'conflict' | 'rejected';
-
-/** The server's answer for one mutation. */
-export interface MutationResult {
-  id: string;
-  status: MutationStatus;
-  error?: { code: string; message: string; fields?: { field: string; message: string }[] };
-  /** For `conflict`: the server's row as it stands (the server wins). */
-  current?: SyncRow;
-}
+export const MUTATION_STATUSES = ['applied', 'duplicate', 'conflict', 'rejected'] as const;
+export type MutationStatus = (typeof MUTATION_STATUSES)[number];
 
 /** A synced row as the server sends it: the entity's data plus its bookkeeping. */
-export type SyncRow = Record<string, unknown> & { id: string; version: number; updatedAt: string; deletedAt: string | null };
+export const syncRowSchema = z
+  .looseObject({ id: z.string(), version: z.number().int(), updatedAt: z.string(), deletedAt: z.string().nullable() })
+  .meta({ id: 'SyncRow', description: "The entity's fields (as in the push payloads) plus its bookkeeping" });
+export type SyncRow = z.infer<typeof syncRowSchema>;
+
+/** The server's answer for one mutation. */
+export const mutationResultSchema = z
+  .object({
+    id: z.string(),
+    status: z.enum(MUTATION_STATUSES),
+    error: z
+      .object({ code: z.string(), message: z.string(), fields: z.array(z.object({ field: z.string(), message: z.string() })).optional() })
+      .optional(),
+    /** For `conflict`: the server's row as it stands (the server wins). */
+    current: syncRowSchema.optional(),
+  })
+  .meta({ id: 'MutationResult' });
+export type MutationResult = z.infer<typeof mutationResultSchema>;
 
 /** Answer of `POST /api/sync/push`. */
-export interface PushResponse {
-  results: MutationResult[];
-  /** The server's latest change sequence after this push (the client still pulls from its own cursor). */
-  cursor: number;
-}
+export const pushResponseSchema = z
+  .object({
+    results: z.array(mutationResultSchema),
+    /** The server's latest change sequence after this push (the client still pulls from its own cursor). */
+    cursor: z.number().int(),
+  })
+  .meta({ id: 'PushResponse' });
+export type PushResponse = z.infer<typeof pushResponseSchema>;
 
 /** One change in a pull. */
-export interface SyncChange {
-  entity: SyncEntity;
-  changeSeq: number;
-  data: SyncRow;
-}
+export const syncChangeSchema = z
+  .object({ entity: z.enum(SYNC_ENTITIES), changeSeq: z.number().int(), data: syncRowSchema })
+  .meta({ id: 'SyncChange' });
+export type SyncChange = z.infer<typeof syncChangeSchema>;
 
 /** Answer of `GET /api/sync/pull`. */
-export interface PullResponse {
-  changes: SyncChange[];
-  cursor: number;
-  hasMore: boolean;
-}
+export const pullResponseSchema = z
+  .object({ changes: z.array(syncChangeSchema), cursor: z.number().int(), hasMore: z.boolean() })
+  .meta({ id: 'PullResponse' });
+export type PullResponse = z.infer<typeof pullResponseSchema>;
 
 /**
  * Which part of the data a pull covers. Without `part`, every change after `since`. A new device

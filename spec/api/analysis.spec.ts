@@ -1,5 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { eq } from 'drizzle-orm';
+import { kickUpsert, sessionUpsert } from './mutations';
 import request from 'supertest';
 import {
   conditionsOf,
@@ -133,38 +134,8 @@ describe('analysis endpoints', () => {
       .send({
         deviceId: 'spec',
         mutations: [
-          {
-            id: randomUUID(),
-            entity: 'training_session',
-            op: 'upsert',
-            data: {
-              id: sessionId,
-              squadId: DEMO_SQUAD_IDS.u16,
-              startedAt: '2026-11-19T18:00:00Z',
-              ballSize: 5,
-              windSpeedMs: 5,
-              windFromDeg: 0,
-            },
-          },
-          {
-            id: randomUUID(),
-            entity: 'kick',
-            op: 'upsert',
-            data: {
-              id: randomUUID(),
-              sessionId,
-              playerId: id,
-              technique: 'lofted',
-              foot: 'right',
-              backspinStep: 1,
-              sidespinStep: 0,
-              targetDistanceM: 35,
-              targetRadiusM: 3,
-              outcome: 'on_target',
-              carryM: 34,
-              recordedAt: '2026-11-19T18:05:00Z',
-            },
-          },
+          sessionUpsert(sessionId, DEMO_SQUAD_IDS.u16, '2026-11-19T18:00:00Z', { windSpeedMs: 5, windFromDeg: 0 }),
+          kickUpsert(sessionId, id, { carryM: 34, recordedAt: '2026-11-19T18:05:00Z' }),
         ],
       });
     expect((push.body as PushResponse).results.map((r) => r.status)).toEqual(['applied', 'applied']);

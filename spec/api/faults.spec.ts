@@ -1,5 +1,6 @@
 import Database from 'better-sqlite3';
 import { randomUUID } from 'node:crypto';
+import { kickUpsert, sessionUpsert } from './mutations';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD, DEMO_SQUAD_IDS } from '../../seed/scenario';
 import type { PushResponse } from '../../shared/schemas/sync';
 import { startE2eServer, type E2eServer } from '../e2e/support/server';
@@ -61,31 +62,15 @@ describe('faults: crashes and a locked database', () => {
   function batch(kicks: number): { sessionId: string; mutations: { id: string; data: { id: string } }[] } {
     const sessionId = randomUUID();
     const mutations = [
-      {
-        id: randomUUID(),
-        entity: 'training_session',
-        op: 'upsert',
-        data: { id: sessionId, squadId: DEMO_SQUAD_IDS.u16, startedAt: '2026-11-30T18:00:00Z', ballSize: 5 },
-      },
-      ...Array.from({ length: kicks }, (_, i) => ({
-        id: randomUUID(),
-        entity: 'kick',
-        op: 'upsert',
-        data: {
-          id: randomUUID(),
-          sessionId,
-          playerId: squad[i % squad.length]!.id,
-          technique: 'lofted',
-          foot: 'right',
-          backspinStep: 1,
-          sidespinStep: 0,
+      sessionUpsert(sessionId, DEMO_SQUAD_IDS.u16, '2026-11-30T18:00:00Z'),
+      ...Array.from({ length: kicks }, (_, i) =>
+        kickUpsert(sessionId, squad[i % squad.length]!.id, {
           targetDistanceM: 30,
-          targetRadiusM: 3,
           outcome: 'short',
           carryM: null,
           recordedAt: new Date(Date.UTC(2026, 10, 30, 18, 0, i)).toISOString(),
-        },
-      })),
+        }),
+      ),
     ];
     return { sessionId, mutations };
   }
@@ -119,7 +104,8 @@ describe('faults: crashes and a locked database', () => {
   }
 
   beforeAll(async () => {
-    server = await startE2eServer();
+    // A server that loads the demo itself: these specs need no fitted profiles, only the rows.
+    server = await startE2eServer({ seedOnStart: true });
     first = server;
     token = await signIn();
     squad = read(

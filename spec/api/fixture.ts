@@ -16,7 +16,8 @@ import { DigestJob } from '../../api/digests/digests.service';
 import { startFakeSmtp, type FakeSmtp } from '../../api/mail/fake-smtp';
 import { Mailer } from '../../api/mail/mailer';
 import { clubs, players, squads, squadStaff, users } from '../../api/db/schema';
-import { DEMO_PASSWORD, seedDemo } from '../../seed/scenario';
+import { DEMO_PASSWORD } from '../../seed/scenario';
+import { buildDemoTemplate } from '../support/demo-template';
 
 /** A fixed "now" so the demo scenario is the same in every run. */
 export const FIXTURE_NOW = new Date('2026-11-18T12:00:00Z');
@@ -46,24 +47,10 @@ const cheapHash = bcrypt.hashSync(DEMO_PASSWORD, 4);
 
 let templatePath: string | null = null;
 
-/**
- * The path of a database file holding the migrated demo plus the second club, built once per process.
- * Generating the demo flies every repetition through the flight model (about 3.4 s of CPU), and forty-odd
- * specs each want a fresh copy: copying the finished file gives each the same rows at a file copy's cost.
- */
+/** The demo plus the second club, built once per process (see `buildDemoTemplate`). */
 function demoTemplate(): string {
-  if (templatePath) return templatePath;
-  const dir = mkdtempSync(join(tmpdir(), 'loftline-spec-template-'));
-  const path = join(dir, 'template.db');
-  const db = openDatabase(path);
-  seedDemo(db, { now: FIXTURE_NOW, passwordHash: cheapHash });
-  addOtherClub(db);
-  // Everything into the main file, so one file copy is the whole database.
-  db.$client.pragma('wal_checkpoint(TRUNCATE)');
-  db.$client.close();
-  process.once('exit', () => rmSync(dir, { recursive: true, force: true }));
-  templatePath = path;
-  return path;
+  templatePath ??= buildDemoTemplate('spec', { now: FIXTURE_NOW, passwordHash: cheapHash }, addOtherClub);
+  return templatePath;
 }
 
 /** Creates the app on a fresh temp database (a copy of the demo template). */

@@ -3,6 +3,7 @@
  * that leaves no name behind, and the sync boundary (dates, ids, unknown fields, squads of sessions).
  */
 import { randomUUID } from 'node:crypto';
+import { kickUpsert as aKick, sessionUpsert as aSession } from './mutations';
 import { and, eq, isNull } from 'drizzle-orm';
 import request from 'supertest';
 import { kicks, players, trainingSessions } from '../../api/db/schema';
@@ -35,34 +36,10 @@ describe('issue 15 data hardening', () => {
   afterAll(() => t.close());
 
   function sessionUpsert(id: string, extra: Record<string, unknown> = {}, squadId = DEMO_SQUAD_IDS.u16) {
-    return {
-      id: randomUUID(),
-      entity: 'training_session',
-      op: 'upsert',
-      data: { id, squadId, startedAt: '2026-11-20T18:30:00Z', ballSize: 5, ...extra },
-    };
+    return aSession(id, squadId, '2026-11-20T18:30:00Z', extra);
   }
   function kickUpsert(extra: Record<string, unknown> = {}) {
-    return {
-      id: randomUUID(),
-      entity: 'kick',
-      op: 'upsert',
-      data: {
-        id: randomUUID(),
-        sessionId,
-        playerId: player.id,
-        technique: 'lofted',
-        foot: 'right',
-        backspinStep: 1,
-        sidespinStep: 0,
-        targetDistanceM: 35,
-        targetRadiusM: 3,
-        outcome: 'on_target',
-        carryM: 34,
-        recordedAt: '2026-11-20T18:41:12.345Z',
-        ...extra,
-      },
-    };
+    return aKick(sessionId, player.id, { carryM: 34, ...extra });
   }
   const push = (mutations: unknown[], deviceId = 'hardening-phone') =>
     request(t.app).post('/api/sync/push').set('Authorization', `Bearer ${coach}`).send({ deviceId, mutations });

@@ -1,8 +1,10 @@
+import { randomUUID } from 'node:crypto';
 import request from 'supertest';
 import type * as z from 'zod';
 import { openApiPath } from '../../api/openapi/document';
 import { OPERATIONS } from '../../api/openapi/operations';
 import { anyObjectSchema } from '../../api/openapi/responses';
+import { demoPeriod } from '../../seed/calendar';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../seed/scenario';
 import { createMailTestApp, createTestApp, signIn, type MailTestApp } from './fixture';
 import { enumerateRoutes } from './routes';
@@ -74,7 +76,17 @@ describe('OpenAPI document', () => {
 
     it('covers the detailed GET answers', () => {
       expect(detailed.map((op) => op.path)).toEqual(
-        jasmine.arrayContaining(['/api/health', '/api/me', '/api/club/settings', '/api/squads', '/api/players', '/api/grounds']),
+        jasmine.arrayContaining([
+          '/api/health',
+          '/api/me',
+          '/api/club/settings',
+          '/api/squads',
+          '/api/players',
+          '/api/grounds',
+          '/api/guardians/links',
+          '/api/admin/outbox',
+          '/api/dev/mail',
+        ]),
       );
     });
 
@@ -91,6 +103,91 @@ describe('OpenAPI document', () => {
         expect(parsed.success ? [] : parsed.error.issues).toEqual([]);
       });
     }
+
+    /** A real answer for each documented answer of a route with an id, from the demo club's own squads and players. */
+    it('GET answers of one squad and one player, and both sync answers', async () => {
+      const coach = tokens.get('head_coach') ?? (await signIn(t.app, DEMO_ACCOUNTS.head_coach)).accessToken;
+      const get = (path: string) => request(t.app).get(path).set('Authorization', `Bearer ${coach}`);
+      const squadId = ((await get('/api/squads')).body as { squads: { id: string }[] }).squads[0]!.id;
+      const playerId = ((await get('/api/players')).body as { players: { id: string }[] }).players[0]!.id;
+      const weekStart = demoPeriod(new Date()).weekStarts.at(-1)!.toISOString().slice(0, 10);
+      const calls: [string, string][] = [
+        ['/api/squads/:id/week', `/api/squads/${squadId}/week?start=${weekStart}`],
+        ['/api/squads/:id/profiles', `/api/squads/${squadId}/profiles?technique=lofted`],
+        ['/api/players/:id', `/api/players/${playerId}`],
+        ['/api/players/:id/progress', `/api/players/${playerId}/progress`],
+        ['/api/players/:id/kicks', `/api/players/${playerId}/kicks`],
+        ['/api/players/:id/profile', `/api/players/${playerId}/profile?technique=lofted`],
+        ['/api/players/:id/spin-estimates', `/api/players/${playerId}/spin-estimates`],
+        ['/api/sync/pull', '/api/sync/pull?since=0'],
+      ];
+      for (const [documented, path] of calls) {
+        const op = OPERATIONS.find((o) => o.method === 'GET' && o.path === documented)!;
+        expect(op.answer).withContext(documented).not.toBe(anyObjectSchema);
+        const res = await get(path);
+        expect(res.status).withContext(path).toBe(200);
+        const parsed = (op.answer as z.ZodType).safeParse(res.body);
+        expect(parsed.success ? [] : parsed.error.issues.slice(0, 3))
+          .withContext(path)
+          .toEqual([]);
+      }
+      // A push with one refused mutation: the answer carries the per-mutation error.
+      const push = await request(t.app)
+        .post('/api/sync/push')
+        .set('Authorization', `Bearer ${coach}`)
+        .send({ deviceId: 'openapi-spec', mutations: [{ id: randomUUID(), entity: 'kick', op: 'upsert', data: {} }] });
+      expect(push.status).toBe(200);
+      expect((push.body as { results: { status: string }[] }).results[0]?.status).toBe('rejected');
+      const pushOp = OPERATIONS.find((o) => o.method === 'POST' && o.path === '/api/sync/push')!;
+      const parsed = (pushOp.answer as z.ZodType).safeParse(push.body);
+      expect(parsed.success ? [] : parsed.error.issues).toEqual([]);
+    });
+
+    it('GET answers of a ground’s conditions and a guardian’s child summary', async () => {
+      const admin = tokens.get('admin')!;
+      const groundId = (
+        (await request(t.app).get('/api/grounds').set('Authorization', `Bearer ${admin}`)).body as { grounds: { id: string }[] }
+      ).grounds[0]!.id;
+      const guardian = (await signIn(t.app, DEMO_ACCOUNTS.guardian)).accessToken;
+      const childId = (
+        (await request(t.app).get('/api/me').set('Authorization', `Bearer ${guardian}`)).body as { childPlayerIds: string[] }
+      ).childPlayerIds[0]!;
+      const calls: [string, string, string][] = [
+        ['/api/grounds/:id/conditions', `/api/grounds/${groundId}/conditions`, admin],
+        ['/api/guardians/children/:playerId/summary', `/api/guardians/children/${childId}/summary`, guardian],
+      ];
+      for (const [documented, path, token] of calls) {
+        const op = OPERATIONS.find((o) => o.method === 'GET' && o.path === documented)!;
+        expect(op.answer).withContext(documented).not.toBe(anyObjectSchema);
+        const res = await request(t.app).get(path).set('Authorization', `Bearer ${token}`);
+        expect(res.status).withContext(path).toBe(200);
+        const parsed = (op.answer as z.ZodType).safeParse(res.body);
+        expect(parsed.success ? [] : parsed.error.issues.slice(0, 3))
+          .withContext(path)
+          .toEqual([]);
+      }
+    });
+
+    it('references payloads defined once in shared/ from components.schemas', () => {
+      const components = (doc as unknown as { components: { schemas: Record<string, unknown> } }).components.schemas;
+      for (const id of [
+        'SquadWeek',
+        'SquadWeekPlayer',
+        'PlayerKicks',
+        'ProfileEntry',
+        'PushResponse',
+        'PullResponse',
+        'SquadSummary',
+        'Error',
+      ]) {
+        expect(components[id]).withContext(id).toBeDefined();
+      }
+      const week = JSON.stringify(doc.paths['/api/squads/{id}/week']!['get']!['responses']);
+      expect(week).toContain('"$ref":"#/components/schemas/SquadWeek"');
+      // Every reference resolves.
+      const refs = [...JSON.stringify(doc).matchAll(/"#\/components\/schemas\/([^"]+)"/g)].map((m) => m[1]!);
+      expect(refs.filter((id) => !(id in components))).toEqual([]);
+    });
 
     it('POST /api/auth/login', async () => {
       const res = await request(t.app).post('/api/auth/login').send({ email: DEMO_ACCOUNTS.assistant_coach, password: DEMO_PASSWORD });

@@ -1,5 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { and, eq, isNull } from 'drizzle-orm';
+import { kickUpsert, sessionUpsert } from './mutations';
 import request from 'supertest';
 import { conditionsOf } from '../../api/analysis/flight-inputs';
 import { kicks, players } from '../../api/db/schema';
@@ -27,31 +28,10 @@ describe('hang-time stopwatch: kicks, club timing settings and spin estimates', 
 
   const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
   const push = (mutations: unknown[]) => request(t.app).post('/api/sync/push').set(auth(coach)).send({ deviceId: 'phone-sw', mutations });
-  const sessionMutation = (id: string) => ({
-    id: randomUUID(),
-    entity: 'training_session',
-    op: 'upsert',
-    data: { id, squadId: DEMO_SQUAD_IDS.u16, startedAt: '2026-11-20T18:30:00Z', temperatureC: session.temperatureC, ballSize: 5 },
-  });
-  const kickMutation = (sessionId: string, extra: Record<string, unknown>) => ({
-    id: randomUUID(),
-    entity: 'kick',
-    op: 'upsert',
-    data: {
-      id: randomUUID(),
-      sessionId,
-      playerId,
-      technique: 'lofted',
-      foot: 'right',
-      backspinStep: 2,
-      sidespinStep: 0,
-      targetDistanceM: 35,
-      targetRadiusM: 3,
-      outcome: 'short',
-      recordedAt: '2026-11-20T18:41:12.345Z',
-      ...extra,
-    },
-  });
+  const sessionMutation = (id: string) =>
+    sessionUpsert(id, DEMO_SQUAD_IDS.u16, '2026-11-20T18:30:00Z', { temperatureC: session.temperatureC });
+  const kickMutation = (sessionId: string, extra: Record<string, unknown>) =>
+    kickUpsert(sessionId, playerId, { backspinStep: 2, outcome: 'short', ...extra });
 
   beforeAll(async () => {
     t = createTestApp();
@@ -107,6 +87,7 @@ describe('hang-time stopwatch: kicks, club timing settings and spin estimates', 
       dragCrisisRe: DEFAULT_DRAG_CRISIS_RE,
       distanceUnit: 'm',
       locale: 'en-GB',
+      repLimitPerSession: 40,
     });
     expect((await request(t.app).put('/api/club/settings').set(auth(coach)).send({ timingBiasS: 0.1, timingSdS: 0.05 })).status).toBe(403);
     const bad = await request(t.app).put('/api/club/settings').set(auth(admin)).send({ timingBiasS: 0.1, timingSdS: 0.9 });
@@ -124,6 +105,7 @@ describe('hang-time stopwatch: kicks, club timing settings and spin estimates', 
       dragCrisisRe: DEFAULT_DRAG_CRISIS_RE,
       distanceUnit: 'm',
       locale: 'en-GB',
+      repLimitPerSession: 40,
     });
     await request(t.app).put('/api/club/settings').set(auth(admin)).send({ timingBiasS: 0.2, timingSdS: 0.08 });
   });

@@ -1,5 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { and, eq, isNull } from 'drizzle-orm';
+import { kickUpsert, sessionUpsert } from './mutations';
 import request from 'supertest';
 import { kicks, players, trainingSessions } from '../../api/db/schema';
 import { DEMO_ACCOUNTS, DEMO_SQUAD_IDS } from '../../seed/scenario';
@@ -18,34 +19,9 @@ describe('sync push and pull', () => {
       .all();
 
   function sessionMutation(id = randomUUID(), squadId = DEMO_SQUAD_IDS.u16) {
-    return {
-      id: randomUUID(),
-      entity: 'training_session',
-      op: 'upsert',
-      data: { id, squadId, startedAt: '2026-11-20T18:30:00Z', temperatureC: 9, windSpeedMs: 3, windFromDeg: 0, ballSize: 5 },
-    };
+    return sessionUpsert(id, squadId, '2026-11-20T18:30:00Z', { temperatureC: 9, windSpeedMs: 3, windFromDeg: 0 });
   }
-  function kickMutation(sessionId: string, playerId: string, extra: Record<string, unknown> = {}) {
-    return {
-      id: randomUUID(),
-      entity: 'kick',
-      op: 'upsert',
-      data: {
-        id: randomUUID(),
-        sessionId,
-        playerId,
-        technique: 'lofted',
-        foot: 'right',
-        backspinStep: 1,
-        sidespinStep: 0,
-        targetDistanceM: 35,
-        targetRadiusM: 3,
-        outcome: 'on_target',
-        recordedAt: '2026-11-20T18:41:12.345Z',
-        ...extra,
-      },
-    };
-  }
+  const kickMutation = kickUpsert;
   async function pushAs(tok: string, mutations: unknown[]) {
     return request(t.app).post('/api/sync/push').set('Authorization', `Bearer ${tok}`).send({ deviceId: 'phone-1', mutations });
   }

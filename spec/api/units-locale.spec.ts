@@ -62,6 +62,7 @@ describe('A club in yards and a decimal-comma locale', () => {
         dragCrisisRe: DEFAULT_DRAG_CRISIS_RE,
         distanceUnit: 'yd',
         locale: 'de-DE',
+        repLimitPerSession: 40,
       });
     });
 

@@ -10,6 +10,7 @@
  * offline is one short wait per batch.
  */
 import { randomUUID } from 'node:crypto';
+import { kickUpsert, sessionUpsert } from '../api/mutations';
 import type { AddressInfo } from 'node:net';
 import { and, eq, isNull } from 'drizzle-orm';
 import { players } from '../../api/db/schema';
@@ -23,41 +24,17 @@ const BATCH = 500;
 function batch(playerIds: string[]): unknown[] {
   const sessionId = randomUUID();
   const mutations: unknown[] = [
-    {
-      id: randomUUID(),
-      entity: 'training_session',
-      op: 'upsert',
-      data: {
-        id: sessionId,
-        squadId: DEMO_SQUAD_IDS.u16,
-        startedAt: new Date().toISOString(),
-        temperatureC: 11,
-        windSpeedMs: 3,
-        windFromDeg: 0,
-        ballSize: 5,
-      },
-    },
+    sessionUpsert(sessionId, DEMO_SQUAD_IDS.u16, new Date().toISOString(), { temperatureC: 11, windSpeedMs: 3, windFromDeg: 0 }),
   ];
   for (let i = 1; i < BATCH; i++) {
-    mutations.push({
-      id: randomUUID(),
-      entity: 'kick',
-      op: 'upsert',
-      data: {
-        id: randomUUID(),
-        sessionId,
-        playerId: playerIds[i % playerIds.length],
-        technique: 'lofted',
-        foot: 'right',
+    mutations.push(
+      kickUpsert(sessionId, playerIds[i % playerIds.length]!, {
         backspinStep: (i % 7) - 3,
         sidespinStep: (i % 5) - 2,
-        targetDistanceM: 35,
-        targetRadiusM: 3,
-        outcome: 'on_target',
         carryM: i % 3 === 0 ? 33.5 : null,
         recordedAt: new Date(Date.now() + i).toISOString(),
-      },
-    });
+      }),
+    );
   }
   return mutations;
 }

@@ -12,7 +12,7 @@ import type { Locator, Page } from 'playwright-core';
 import { demoPeriod } from '../../seed/calendar';
 import { launchContext } from './support/browser';
 import { profilesFitted } from './support/profiles';
-import { startE2eServer, type E2eServer } from './support/server';
+import { type E2eServer, startE2eServer, useE2eServer } from './support/server';
 
 const PASSWORD = 'loftline-demo';
 const HEAD_COACH = 'head.coach@kestrel-vale.test';
@@ -65,13 +65,7 @@ async function photograph(page: Page, chart: Locator, name: string): Promise<num
 
 describe('Player file and Squad week (end to end, Chromium)', () => {
   let server: E2eServer;
-  beforeAll(async () => {
-    server = await startE2eServer();
-  }, 90_000);
-  afterAll(async () => {
-    await server.stop();
-    server.cleanup();
-  });
+  useE2eServer((started) => (server = started));
 
   it('shows the head coach the demo’s last week with its table, charts and CSV export', async () => {
     const { context, close } = await launchContext({ width: 1280, height: 900 });

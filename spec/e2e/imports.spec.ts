@@ -4,7 +4,7 @@ import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import type { Page } from 'playwright-core';
 import { launchContext } from './support/browser';
-import { startE2eServer, type E2eServer } from './support/server';
+import { type E2eServer, useE2eServer } from './support/server';
 
 const FIXTURES = resolve('spec/e2e/fixtures');
 
@@ -24,13 +24,7 @@ async function drillAndFile(page: Page, file: string): Promise<void> {
 
 describe('imports and exports (end to end, Chromium)', () => {
   let server: E2eServer;
-  beforeAll(async () => {
-    server = await startE2eServer();
-  }, 90_000);
-  afterAll(async () => {
-    await server.stop();
-    server.cleanup();
-  });
+  useE2eServer((started) => (server = started));
 
   it('imports a device file: columns proposed, unmatched players shown, saved columns reused, committed once', async () => {
     const { context, close } = await launchContext();

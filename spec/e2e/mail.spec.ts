@@ -1,6 +1,6 @@
 import type { Page } from 'playwright-core';
 import { launchContext } from './support/browser';
-import { startE2eServer, type E2eServer } from './support/server';
+import { type E2eServer, useE2eServer } from './support/server';
 
 const PASSWORD = 'loftline-demo';
 
@@ -40,13 +40,7 @@ async function linkFromCapturedMail(page: Page, baseUrl: string, subject: RegExp
 
 describe('account mail through the UI (end to end, Chromium)', () => {
   let server: E2eServer;
-  beforeAll(async () => {
-    server = await startE2eServer();
-  }, 90_000);
-  afterAll(async () => {
-    await server.stop();
-    server.cleanup();
-  });
+  useE2eServer((started) => (server = started));
 
   it('invites a guardian, who sets a password from the mailed link and lands on Guardian home', async () => {
     const admin = await launchContext();

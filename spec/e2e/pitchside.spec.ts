@@ -7,71 +7,53 @@
  */
 import Database from 'better-sqlite3';
 import { readFileSync } from 'node:fs';
-import { createServer, connect, type AddressInfo, type Server, type Socket } from 'node:net';
 import { resolve } from 'node:path';
 import type { BrowserContext, Page } from 'playwright-core';
 import { launchContext } from './support/browser';
 import { startE2eServer, type E2eServer } from './support/server';
+import { startsSyncPush, TcpRelay } from './support/tcp-relay';
 
 const PASSWORD = 'loftline-demo';
 const COACH = 'assistant.coach@kestrel-vale.test';
 
 /** Forwards TCP to the server; can cut one push's answer off and report when it did. */
 class Relay {
-  private listener: Server | null = null;
-  private readonly sockets = new Set<Socket>();
   private cutNextPush: (() => void) | null = null;
-  port = 0;
+  private readonly relay: TcpRelay<{ pushSent: boolean }>;
 
-  constructor(private readonly targetPort: () => number) {}
+  constructor(targetPort: () => number) {
+    this.relay = new TcpRelay(targetPort, {
+      newConnection: () => ({ pushSent: false }),
+      fromClient: (chunk, connection) => {
+        if (this.cutNextPush && startsSyncPush(chunk)) connection.pushSent = true;
+        return 'forward';
+      },
+      fromServer: (_chunk, connection) => {
+        const cut = this.cutNextPush;
+        if (!connection.pushSent || !cut) return 'forward';
+        // The server answers only after its transaction committed: the phone never hears it.
+        this.cutNextPush = null;
+        cut();
+        return 'close';
+      },
+    });
+  }
 
-  async start(): Promise<void> {
-    this.listener = createServer((client) => this.relay(client));
-    // Port 0: the system picks a free port at the moment of listening, so nothing can take it in between.
-    await new Promise<void>((done) => this.listener!.listen(0, '127.0.0.1', done));
-    this.port = (this.listener.address() as AddressInfo).port;
+  get port(): number {
+    return this.relay.port;
+  }
+
+  start(): Promise<void> {
+    return this.relay.start();
+  }
+
+  stop(): Promise<void> {
+    return this.relay.stop();
   }
 
   /** Resolves once the server has started answering a push, whose answer is then withheld. */
   cutNextPushAnswer(): Promise<void> {
     return new Promise((done) => (this.cutNextPush = done));
-  }
-
-  async stop(): Promise<void> {
-    for (const socket of this.sockets) socket.destroy();
-    await new Promise<void>((done) => this.listener?.close(() => done()) ?? done());
-  }
-
-  private relay(client: Socket): void {
-    const upstream = connect(this.targetPort(), '127.0.0.1');
-    this.sockets.add(client).add(upstream);
-    let pushSent = false;
-    const closeBoth = (): void => {
-      client.destroy();
-      upstream.destroy();
-    };
-    client.on('data', (chunk) => {
-      if (this.cutNextPush && chunk.toString('latin1').startsWith('POST /api/sync/push')) pushSent = true;
-      upstream.write(chunk);
-    });
-    upstream.on('data', (chunk) => {
-      const cut = this.cutNextPush;
-      if (pushSent && cut) {
-        // The server answers only after its transaction committed: the phone never hears it.
-        this.cutNextPush = null;
-        closeBoth();
-        cut();
-        return;
-      }
-      client.write(chunk);
-    });
-    for (const socket of [client, upstream]) {
-      socket.on('error', closeBoth);
-      socket.on('close', () => {
-        this.sockets.delete(socket);
-        closeBoth();
-      });
-    }
   }
 }
 

@@ -1,18 +1,12 @@
 import { signInThroughUi } from './support/sign-in';
 import { launchContext } from './support/browser';
-import { startE2eServer, type E2eServer } from './support/server';
+import { type E2eServer, useE2eServer } from './support/server';
 
 const signIn = signInThroughUi;
 
 describe('signing in (end to end, Chromium)', () => {
   let server: E2eServer;
-  beforeAll(async () => {
-    server = await startE2eServer();
-  }, 90_000);
-  afterAll(async () => {
-    await server.stop();
-    server.cleanup();
-  });
+  useE2eServer((started) => (server = started));
 
   it('shows the head coach the three squads', async () => {
     const { context, close } = await launchContext();

@@ -1,10 +1,7 @@
 import { Routes } from '@angular/router';
-import { requireAdmin } from './core/auth/admin-guard';
 import { requireSignedIn, requireSignedOut } from './core/auth/auth-guard';
-import { requireStaff } from './core/auth/staff-guard';
-import { requireGuardian } from './guardian/guardian-guard';
+import { requireAdmin, requireGuardian, requireSandboxAccess, requireStaff } from './core/auth/role-guard';
 import { guardianLanding } from './home/guardian-landing';
-import { requireSandboxAccess } from './sandbox/sandbox-access';
 
 /**
  * The app's routes. Sign-in stands alone; everything else sits inside the shell behind
@@ -75,6 +72,12 @@ export const routes: Routes = [
         title: 'Pitchside · Loftline',
         canMatch: [requireStaff],
         loadComponent: () => import('./pitchside/pitchside').then((m) => m.Pitchside),
+      },
+      {
+        path: 'measure/:kickId',
+        title: 'Measure from video · Loftline',
+        canMatch: [requireStaff],
+        loadComponent: () => import('./measure/video-measure').then((m) => m.VideoMeasure),
       },
       {
         path: 'sandbox',

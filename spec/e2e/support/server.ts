@@ -7,9 +7,8 @@ import { copyFileSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { ProfileCache } from '../../../api/analysis/profile-cache';
-import { openDatabase } from '../../../api/db/client';
 import type { Technique } from '../../../shared/vocabulary';
-import { seedDemo } from '../../../seed/scenario';
+import { buildDemoTemplate } from '../../support/demo-template';
 import { spawnApiServer } from '../../support/server-process';
 
 let templatePath: string | null = null;
@@ -23,23 +22,15 @@ let templatePath: string | null = null;
  * covered by the Node specs of the profile cache.)
  */
 export function demoTemplate(): string {
-  if (templatePath) return templatePath;
-  const dir = mkdtempSync(join(tmpdir(), 'loftline-e2e-template-'));
-  const path = join(dir, 'template.db');
-  const db = openDatabase(path);
-  seedDemo(db);
-  const cache = new ProfileCache(db);
-  const pairs = db.$client.prepare('SELECT DISTINCT player_id AS playerId, technique FROM kicks').all() as {
-    playerId: string;
-    technique: Technique;
-  }[];
-  for (const { playerId, technique } of pairs) if (cache.isStale(playerId, technique)) cache.compute(playerId, technique);
-  // Everything into the main file, so one file copy is the whole database.
-  db.$client.pragma('wal_checkpoint(TRUNCATE)');
-  db.$client.close();
-  process.once('exit', () => rmSync(dir, { recursive: true, force: true }));
-  templatePath = path;
-  return path;
+  templatePath ??= buildDemoTemplate('e2e', {}, (db) => {
+    const cache = new ProfileCache(db);
+    const pairs = db.$client.prepare('SELECT DISTINCT player_id AS playerId, technique FROM kicks').all() as {
+      playerId: string;
+      technique: Technique;
+    }[];
+    for (const { playerId, technique } of pairs) if (cache.isStale(playerId, technique)) cache.compute(playerId, technique);
+  });
+  return templatePath;
 }
 
 /** A server process under test. */
@@ -57,10 +48,18 @@ export interface E2eServer {
 }
 
 /** Starts the server; pass `dbPath`/`port` to restart on the same database and port, `env` for more settings (e.g. `WEATHER_URL`). */
-export async function startE2eServer(options: { dbPath?: string; port?: number; env?: Record<string, string> } = {}): Promise<E2eServer> {
+export async function startE2eServer(
+  options: {
+    dbPath?: string;
+    port?: number;
+    env?: Record<string, string>;
+    /** Whether the server starts on an empty database and loads the demo itself (no template, no fitted profiles). */
+    seedOnStart?: boolean;
+  } = {},
+): Promise<E2eServer> {
   const dir = options.dbPath ? null : mkdtempSync(join(tmpdir(), 'loftline-e2e-'));
   const dbPath = options.dbPath ?? join(dir!, 'e2e.db');
-  if (!options.dbPath) copyFileSync(demoTemplate(), dbPath);
+  if (!options.dbPath && !options.seedOnStart) copyFileSync(demoTemplate(), dbPath);
   const server = await spawnApiServer(
     { NODE_ENV: 'test', LOFTLINE_DB: dbPath, LOFTLINE_JWT_SECRET: 'e2e-secret-0123456789-0123456789-abcdef', ...options.env },
     { ...(options.port === undefined ? {} : { port: options.port }), readyTimeoutMs: 60_000 },
@@ -72,4 +71,20 @@ export async function startE2eServer(options: { dbPath?: string; port?: number; 
       if (dir) rmSync(dir, { recursive: true, force: true });
     },
   };
+}
+
+/**
+ * Starts one server (fresh temporary database) before a spec file's tests and stops it and removes
+ * its files after them; `keep` receives it, so tests read `server.baseUrl` as before.
+ */
+export function useE2eServer(keep: (server: E2eServer) => void): void {
+  let started: E2eServer | null = null;
+  beforeAll(async () => {
+    started = await startE2eServer();
+    keep(started);
+  }, 90_000);
+  afterAll(async () => {
+    await started?.stop();
+    started?.cleanup();
+  });
 }

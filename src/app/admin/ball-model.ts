@@ -1,13 +1,22 @@
-import { ChangeDetectionStrategy, Component, OnInit, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
-import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { DEFAULT_DRAG_CRISIS_RE, DRAG_CRISIS_RE_RANGE, clubSettingsSchema } from '../../../shared/schemas/club';
-import { describeApiError } from '../core/api-error';
-import { ClubSettingsStore } from '../core/club-settings-store';
-import { applyServerErrors } from './server-errors';
+import {
+  DEFAULT_DRAG_CRISIS_RE,
+  DRAG_CRISIS_RE_RANGE,
+  clubSettingsSchema,
+  type ClubSettings,
+  type ClubSettingsUpdate,
+} from '../../../shared/schemas/club';
+import { ClubSettingsSection } from './club-settings-section';
+import { SectionStatus } from './section-status';
+
+/** The field of the ball model form: the drag crisis in units of 10⁵. */
+interface BallModelFields {
+  dragCrisisRe: number;
+}
 
 /** Reynolds numbers are entered in units of 10⁵, as ball makers and wind-tunnel papers quote them. */
 const RE_UNIT = 1e5;
@@ -20,7 +29,7 @@ const RE_UNIT = 1e5;
  */
 @Component({
   selector: 'll-ball-model',
-  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule],
+  imports: [SectionStatus, ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule],
   template: `
     <section class="section__card" aria-labelledby="ball-title">
       <h2 id="ball-title" class="section__title">Ball model</h2>
@@ -41,30 +50,20 @@ const RE_UNIT = 1e5;
           }
         </mat-form-field>
         <div class="section__form-actions">
-          <button mat-flat-button type="submit" [disabled]="pending()">{{ pending() ? 'Saving…' : 'Save ball model' }}</button>
+          <button mat-flat-button type="submit" [disabled]="saving.pending()">
+            {{ saving.pending() ? 'Saving…' : 'Save ball model' }}
+          </button>
         </div>
       </form>
-      @if (failure(); as message) {
-        <p class="section__message section__message--failure" role="alert"><mat-icon aria-hidden="true">error</mat-icon>{{ message }}</p>
-      }
-      @if (saved()) {
-        <p class="section__message section__message--ok" role="status">
-          <mat-icon aria-hidden="true">check_circle</mat-icon>Saved. The club's profiles are being refitted with this ball.
-        </p>
-      }
+      <ll-section-status [action]="saving" doneText="Saved. The club's profiles are being refitted with this ball." />
     </section>
   `,
   styleUrl: './admin-section.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class BallModel implements OnInit {
-  private readonly store = inject(ClubSettingsStore);
-
+export class BallModel extends ClubSettingsSection<BallModelFields> {
   protected readonly defaultRe = (DEFAULT_DRAG_CRISIS_RE / RE_UNIT).toFixed(2);
   protected readonly range = DRAG_CRISIS_RE_RANGE.map((v) => v / RE_UNIT);
-  protected readonly pending = signal(false);
-  protected readonly failure = signal<string | null>(null);
-  protected readonly saved = signal(false);
   protected readonly form = inject(NonNullableFormBuilder).group({
     dragCrisisRe: [
       this.shown(this.store.settings().dragCrisisRe),
@@ -72,37 +71,19 @@ export class BallModel implements OnInit {
     ],
   });
 
-  async ngOnInit(): Promise<void> {
-    await this.store.refresh();
-    if (!this.form.dirty) this.form.setValue({ dragCrisisRe: this.shown(this.store.settings().dragCrisisRe) });
+  protected fromSettings(settings: ClubSettings): BallModelFields {
+    return { dragCrisisRe: this.shown(settings.dragCrisisRe) };
+  }
+
+  protected toUpdate(value: BallModelFields, current: ClubSettings): ClubSettingsUpdate {
+    return clubSettingsSchema.parse({
+      timingBiasS: current.timingBiasS,
+      timingSdS: current.timingSdS,
+      dragCrisisRe: Math.round(value.dragCrisisRe * RE_UNIT),
+    });
   }
 
   private shown(re: number | undefined): number {
     return Math.round(((re ?? DEFAULT_DRAG_CRISIS_RE) / RE_UNIT) * 100) / 100;
-  }
-
-  protected async save(): Promise<void> {
-    this.saved.set(false);
-    if (this.form.invalid) {
-      this.form.markAllAsTouched();
-      return;
-    }
-    this.pending.set(true);
-    try {
-      const current = this.store.settings();
-      const next = clubSettingsSchema.parse({
-        timingBiasS: current.timingBiasS,
-        timingSdS: current.timingSdS,
-        dragCrisisRe: Math.round(this.form.getRawValue().dragCrisisRe * RE_UNIT),
-      });
-      const value = await this.store.save(next);
-      this.form.reset({ dragCrisisRe: this.shown(value.dragCrisisRe) });
-      this.failure.set(null);
-      this.saved.set(true);
-    } catch (error) {
-      this.failure.set(applyServerErrors(this.form, describeApiError(error)));
-    } finally {
-      this.pending.set(false);
-    }
   }
 }

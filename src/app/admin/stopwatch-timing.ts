@@ -1,14 +1,18 @@
-import { ChangeDetectionStrategy, Component, OnInit, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
-import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { DEFAULT_TIMING, clubSettingsSchema } from '../../../shared/schemas/club';
-import { describeApiError } from '../core/api-error';
-import { ClubSettingsStore } from '../core/club-settings-store';
+import { DEFAULT_TIMING, clubSettingsSchema, type ClubSettings, type ClubSettingsUpdate } from '../../../shared/schemas/club';
 import { zodValidator } from '../core/zod-validator';
-import { applyServerErrors } from './server-errors';
+import { ClubSettingsSection } from './club-settings-section';
+import { SectionStatus } from './section-status';
+
+/** The fields of the stopwatch timing form, seconds. */
+interface StopwatchTimingFields {
+  timingBiasS: number;
+  timingSdS: number;
+}
 
 /**
  * The club's stopwatch calibration: how much a hand-timed hang time runs long (bias) and how much it
@@ -17,7 +21,7 @@ import { applyServerErrors } from './server-errors';
  */
 @Component({
   selector: 'll-stopwatch-timing',
-  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule],
+  imports: [SectionStatus, ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule],
   template: `
     <section class="section__card" aria-labelledby="timing-title">
       <h2 id="timing-title" class="section__title">Pitchside stopwatch timing</h2>
@@ -47,58 +51,27 @@ import { applyServerErrors } from './server-errors';
           }
         </mat-form-field>
         <div class="section__form-actions">
-          <button mat-flat-button type="submit" [disabled]="pending()">{{ pending() ? 'Saving…' : 'Save timing' }}</button>
+          <button mat-flat-button type="submit" [disabled]="saving.pending()">{{ saving.pending() ? 'Saving…' : 'Save timing' }}</button>
         </div>
       </form>
-      @if (failure(); as message) {
-        <p class="section__message section__message--failure" role="alert"><mat-icon aria-hidden="true">error</mat-icon>{{ message }}</p>
-      }
-      @if (saved()) {
-        <p class="section__message section__message--ok" role="status">
-          <mat-icon aria-hidden="true">check_circle</mat-icon>Saved. Spin estimates from hang time now use these values.
-        </p>
-      }
+      <ll-section-status [action]="saving" doneText="Saved. Spin estimates from hang time now use these values." />
     </section>
   `,
   styleUrl: './admin-section.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class StopwatchTiming implements OnInit {
-  private readonly store = inject(ClubSettingsStore);
-
+export class StopwatchTiming extends ClubSettingsSection<StopwatchTimingFields> {
   protected readonly defaults = DEFAULT_TIMING;
-  protected readonly pending = signal(false);
-  protected readonly failure = signal<string | null>(null);
-  protected readonly saved = signal(false);
   protected readonly form = inject(NonNullableFormBuilder).group({
     timingBiasS: [this.store.settings().timingBiasS, [Validators.required, zodValidator(clubSettingsSchema.shape.timingBiasS)]],
     timingSdS: [this.store.settings().timingSdS, [Validators.required, zodValidator(clubSettingsSchema.shape.timingSdS)]],
   });
 
-  async ngOnInit(): Promise<void> {
-    await this.store.refresh();
-    if (!this.form.dirty) {
-      const { timingBiasS, timingSdS } = this.store.settings();
-      this.form.setValue({ timingBiasS, timingSdS });
-    }
+  protected fromSettings(settings: ClubSettings): StopwatchTimingFields {
+    return { timingBiasS: settings.timingBiasS, timingSdS: settings.timingSdS };
   }
 
-  protected async save(): Promise<void> {
-    this.saved.set(false);
-    if (this.form.invalid) {
-      this.form.markAllAsTouched();
-      return;
-    }
-    this.pending.set(true);
-    try {
-      const value = await this.store.save(this.form.getRawValue());
-      this.form.reset(value);
-      this.failure.set(null);
-      this.saved.set(true);
-    } catch (error) {
-      this.failure.set(applyServerErrors(this.form, describeApiError(error)));
-    } finally {
-      this.pending.set(false);
-    }
+  protected toUpdate(value: StopwatchTimingFields): ClubSettingsUpdate {
+    return value;
   }
 }

@@ -1,16 +1,21 @@
-import { ChangeDetectionStrategy, Component, OnInit, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatFormFieldModule } from '@angular/material/form-field';
-import { MatIconModule } from '@angular/material/icon';
 import { MatSelectModule } from '@angular/material/select';
 import { QuantityFormat } from '../../../shared/quantity-format';
+import type { ClubSettings, ClubSettingsUpdate } from '../../../shared/schemas/club';
 import type { DistanceUnit } from '../../../shared/units';
-import { describeApiError } from '../core/api-error';
-import { ClubSettingsStore } from '../core/club-settings-store';
-import { applyServerErrors } from './server-errors';
+import { ClubSettingsSection } from './club-settings-section';
+import { SectionStatus } from './section-status';
+
+/** The fields of the units and locale form. */
+interface UnitsLocaleFields {
+  distanceUnit: DistanceUnit;
+  locale: string;
+}
 
 /** Locales offered in the picker (any BCP 47 tag the browser formats with also round-trips through the API). */
 const LOCALES: readonly string[] = [
@@ -45,7 +50,7 @@ const WEEKDAYS = ['', 'Monday', 'Tuesday', 'Wednesday', 'Thursday', 'Friday', 'S
  */
 @Component({
   selector: 'll-units-locale',
-  imports: [ReactiveFormsModule, MatButtonModule, MatButtonToggleModule, MatFormFieldModule, MatIconModule, MatSelectModule],
+  imports: [SectionStatus, ReactiveFormsModule, MatButtonModule, MatButtonToggleModule, MatFormFieldModule, MatSelectModule],
   template: `
     <section class="section__card" aria-labelledby="units-title">
       <h2 id="units-title" class="section__title">Units and locale</h2>
@@ -71,28 +76,18 @@ const WEEKDAYS = ['', 'Monday', 'Tuesday', 'Wednesday', 'Thursday', 'Friday', 'S
         </mat-form-field>
         <p class="section__lead" aria-live="polite">Preview: {{ preview() }}</p>
         <div class="section__form-actions">
-          <button mat-flat-button type="submit" [disabled]="pending()">{{ pending() ? 'Saving…' : 'Save units and locale' }}</button>
+          <button mat-flat-button type="submit" [disabled]="saving.pending()">
+            {{ saving.pending() ? 'Saving…' : 'Save units and locale' }}
+          </button>
         </div>
       </form>
-      @if (failure(); as message) {
-        <p class="section__message section__message--failure" role="alert"><mat-icon aria-hidden="true">error</mat-icon>{{ message }}</p>
-      }
-      @if (saved()) {
-        <p class="section__message section__message--ok" role="status">
-          <mat-icon aria-hidden="true">check_circle</mat-icon>Saved. Devices pick it up when they next reach the server.
-        </p>
-      }
+      <ll-section-status [action]="saving" doneText="Saved. Devices pick it up when they next reach the server." />
     </section>
   `,
   styleUrl: './admin-section.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class UnitsLocale implements OnInit {
-  private readonly store = inject(ClubSettingsStore);
-
-  protected readonly pending = signal(false);
-  protected readonly failure = signal<string | null>(null);
-  protected readonly saved = signal(false);
+export class UnitsLocale extends ClubSettingsSection<UnitsLocaleFields> {
   protected readonly form = inject(NonNullableFormBuilder).group({
     distanceUnit: [this.store.settings().distanceUnit as DistanceUnit, Validators.required],
     locale: [this.store.settings().locale, Validators.required],
@@ -118,12 +113,12 @@ export class UnitsLocale implements OnInit {
     return `a 31.4 m carry reads ${f.distance(31.4)}; a session ${when}; weeks in the calendar start on ${WEEKDAYS[f.firstDayOfWeek()] ?? 'Monday'}.`;
   });
 
-  async ngOnInit(): Promise<void> {
-    await this.store.refresh();
-    if (!this.form.dirty) {
-      const { distanceUnit, locale } = this.store.settings();
-      this.form.setValue({ distanceUnit, locale });
-    }
+  protected fromSettings(settings: ClubSettings): UnitsLocaleFields {
+    return { distanceUnit: settings.distanceUnit, locale: settings.locale };
+  }
+
+  protected toUpdate(value: UnitsLocaleFields, current: ClubSettings): ClubSettingsUpdate {
+    return { timingBiasS: current.timingBiasS, timingSdS: current.timingSdS, ...value };
   }
 
   protected localeName(tag: string): string {
@@ -131,26 +126,6 @@ export class UnitsLocale implements OnInit {
       return new Intl.DisplayNames(['en'], { type: 'language' }).of(tag) ?? tag;
     } catch {
       return tag;
-    }
-  }
-
-  protected async save(): Promise<void> {
-    this.saved.set(false);
-    if (this.form.invalid) {
-      this.form.markAllAsTouched();
-      return;
-    }
-    this.pending.set(true);
-    try {
-      const { timingBiasS, timingSdS } = this.store.settings();
-      const saved = await this.store.save({ timingBiasS, timingSdS, ...this.form.getRawValue() });
-      this.form.reset({ distanceUnit: saved.distanceUnit, locale: saved.locale });
-      this.failure.set(null);
-      this.saved.set(true);
-    } catch (error) {
-      this.failure.set(applyServerErrors(this.form, describeApiError(error)));
-    } finally {
-      this.pending.set(false);
     }
   }
 }

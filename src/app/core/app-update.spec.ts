@@ -12,11 +12,25 @@ describe('AppUpdate (new version offer)', () => {
     latestVersion: { hash: 'new' },
   };
 
+  let checks = 0;
+
   beforeEach(() => {
+    checks = 0;
     TestBed.configureTestingModule({
       providers: [
         provideZonelessChangeDetection(),
-        { provide: SwUpdate, useValue: { isEnabled: true, versionUpdates: events, activateUpdate: () => Promise.resolve(true) } },
+        {
+          provide: SwUpdate,
+          useValue: {
+            isEnabled: true,
+            versionUpdates: events,
+            activateUpdate: () => Promise.resolve(true),
+            checkForUpdate: () => {
+              checks++;
+              return Promise.resolve(false);
+            },
+          },
+        },
       ],
     });
   });
@@ -36,10 +50,20 @@ describe('AppUpdate (new version offer)', () => {
     events.next(ready);
     expect(update.versionReady()).toBeTrue();
     expect(update.offer()).toBeFalse();
+    expect(update.held()).toBeTrue();
     release();
     release();
     expect(update.offer()).toBeTrue();
     update.dismiss();
     expect(update.offer()).toBeFalse();
+  });
+
+  it('asks the service worker for a new version when the connection returns and when the app comes back into view', async () => {
+    TestBed.inject(AppUpdate);
+    window.dispatchEvent(new Event('online'));
+    // One check at a time: the next event counts once the first check has answered.
+    await new Promise((done) => setTimeout(done));
+    document.dispatchEvent(new Event('visibilitychange'));
+    expect(checks).toBe(document.visibilityState === 'visible' ? 2 : 1);
   });
 });

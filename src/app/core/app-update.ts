@@ -2,7 +2,10 @@ import { DOCUMENT } from '@angular/common';
 import { Injectable, computed, inject, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { SwUpdate, type VersionReadyEvent } from '@angular/service-worker';
-import { filter } from 'rxjs';
+import { exhaustMap, filter, fromEvent, interval, merge } from 'rxjs';
+
+/** How often a page left open asks for a new version (common practice: hourly; the worker also asks on each navigation). */
+const CHECK_EVERY_MS = 60 * 60 * 1000;
 
 /**
  * A new deploy, announced. The service worker keeps serving the old app until every tab closes, which on a
@@ -11,6 +14,8 @@ import { filter } from 'rxjs';
  * the server's acknowledgement, so a reload at worst replays a push the server counts once — but it must not
  * cut a coach off mid-entry: screens that are collecting a repetition (a player picked with a carry typed, a
  * stopwatch running, a save in flight) hold the offer back through `hold()`; it appears once they let go.
+ * The worker itself only looks for a new version when the app navigates, and Pitchside stays on one page for a
+ * whole session, so this also asks when the app comes back into view, when the connection returns and hourly.
  */
 @Injectable({ providedIn: 'root' })
 export class AppUpdate {
@@ -23,6 +28,8 @@ export class AppUpdate {
 
   /** Whether a new version waits and nothing on screen is mid-entry: show the offer. */
   readonly offer = computed(() => this.ready() && this.holds().size === 0 && !this.reloading());
+  /** Whether a new version waits but a half-entered repetition holds the offer back. */
+  readonly held = computed(() => this.ready() && this.holds().size > 0 && !this.reloading());
   /** Whether a new version waits (even while the offer is held back). */
   readonly versionReady = this.ready.asReadonly();
 
@@ -34,6 +41,18 @@ export class AppUpdate {
         takeUntilDestroyed(),
       )
       .subscribe(() => this.ready.set(true));
+    const updates = this.updates;
+    const win = this.document.defaultView;
+    merge(
+      fromEvent(this.document, 'visibilitychange').pipe(filter(() => this.document.visibilityState === 'visible')),
+      win ? fromEvent(win, 'online') : [],
+      interval(CHECK_EVERY_MS),
+    )
+      .pipe(
+        exhaustMap(() => updates.checkForUpdate().catch(() => false)),
+        takeUntilDestroyed(),
+      )
+      .subscribe();
   }
 
   /**

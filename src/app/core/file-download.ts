@@ -1,7 +1,7 @@
 import { DOCUMENT, Injectable, inject } from '@angular/core';
 
 /**
- * Saves a file the app received or made (an export, a template) on the device. Exports come
+ * Saves a file the app received or made (an export, a template, a CSV made on the device) on the device. Exports come
  * through `HttpClient` as blobs rather than plain links because the API needs the bearer token,
  * which a link cannot carry. A service so specs can see what would be saved without a download.
  */
@@ -21,6 +21,15 @@ export class FileDownload {
     link.remove();
     // Revoked after the click has been handled: revoking at once cancels the download in some browsers.
     setTimeout(() => URL.revokeObjectURL(url), 1000);
+  }
+
+  /**
+   * Offers generated `text` (a CSV made on the device) as a download named `fileName`; works offline,
+   * since nothing leaves the browser. A byte-order mark goes first so spreadsheet programs read UTF-8
+   * names (e.g. "Zoë") correctly.
+   */
+  saveText(fileName: string, text: string, mimeType = 'text/csv;charset=utf-8'): void {
+    this.save(new Blob(['\ufeff', text], { type: mimeType }), fileName);
   }
 }
 

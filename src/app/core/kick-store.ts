@@ -1,8 +1,8 @@
+import { liveSignal } from './live-signal';
 import { Injectable, Signal, inject } from '@angular/core';
-import { toObservable, toSignal } from '@angular/core/rxjs-interop';
-import { Dexie, liveQuery } from 'dexie';
-import { from, of, switchMap } from 'rxjs';
-import { kickDataSchema, type KickData } from '../../../shared/schemas/sync';
+import { Dexie } from 'dexie';
+import { SPIN_STEP_RPS } from '../../../shared/flight/constants';
+import { kickDataSchema, type KickData, type VideoTrack } from '../../../shared/schemas/sync';
 import { AuthSession } from './auth/auth-session';
 import { InvalidEntryError, validateEntry } from './entry-validation';
 import { LocalWrites } from './sync/local-writes';
@@ -27,8 +27,32 @@ export type KickCorrection = Partial<
     | 'technique'
     | 'targetDistanceM'
     | 'targetRadiusM'
+    | 'measuredSource'
+    | 'measuredSpeedMs'
+    | 'launchAngleDeg'
+    | 'measuredSpinRps'
+    | 'videoTrack'
   >
 >;
+
+/** A launch measured from video, ready to record on a kick. */
+export interface VideoMeasurement {
+  speedMs: number;
+  elevationDeg: number;
+  videoTrack: VideoTrack;
+}
+
+/** Below this measured spin (rev/s) its direction is within the fit's noise: the logged step stands. */
+const SPIN_DIRECTION_MIN_RPS = 0.5;
+
+/** The backspin step size (1–3) whose default rate is nearest a spin size, rev/s. */
+function nearestStepSize(spinRps: number): number {
+  let best = 1;
+  for (const size of [1, 2, 3] as const) {
+    if (Math.abs(SPIN_STEP_RPS[size] - spinRps) < Math.abs(SPIN_STEP_RPS[best as 1 | 2 | 3] - spinRps)) best = size;
+  }
+  return best;
+}
 
 /**
  * The repetitions of a session on this device. `log()` resolves only once the kick and its
@@ -73,6 +97,30 @@ export class KickStore {
   }
 
   /**
+   * Records a launch measured from video on a logged kick: speed, angle and spin size in the measured
+   * fields with source `video`, the taps and fit beside them. The backspin step takes the measurement's
+   * direction (topspin stays topspin) so the profile fit, which signs the measured spin by the step,
+   * reads it the right way round; a step the coach logged in the same direction is kept.
+   */
+  async recordVideoMeasurement(id: string, measurement: VideoMeasurement): Promise<LocalKick> {
+    const existing = await this.db.kicks.get(id);
+    const logged = existing?.backspinStep ?? 0;
+    const spin = measurement.videoTrack.backspinRps;
+    let backspinStep = logged;
+    if (Math.abs(spin) >= SPIN_DIRECTION_MIN_RPS && Math.sign(spin) !== Math.sign(logged)) {
+      backspinStep = Math.sign(spin) * Math.min(3, Math.max(1, nearestStepSize(Math.abs(spin))));
+    }
+    return this.edit(id, {
+      measuredSource: 'video',
+      measuredSpeedMs: measurement.speedMs,
+      launchAngleDeg: measurement.elevationDeg,
+      measuredSpinRps: Math.abs(spin),
+      videoTrack: measurement.videoTrack,
+      backspinStep,
+    });
+  }
+
+  /**
    * Voids a kick. A kick the server never accepted (only rejected mutations, never applied)
    * simply goes, with its rejected entries; any other becomes a tombstone sent to the server.
    */
@@ -110,26 +158,30 @@ export class KickStore {
     return latest;
   }
 
+  /** One kick, live: undefined while loading, null when it is not on this device (or voided). */
+  liveKick(id: Signal<string | null>): Signal<LocalKick | null | undefined> {
+    return liveSignal(
+      id,
+      async (kickId) => {
+        const row = await this.db.kicks.get(kickId);
+        return row && !row.deletedAt ? row : null;
+      },
+      { whenNull: null, initial: undefined },
+    );
+  }
+
   /** The session's kicks that are not voided, newest first, live. */
   liveKicks(sessionId: Signal<string | null>): Signal<LocalKick[] | undefined> {
-    return toSignal(
-      toObservable(sessionId).pipe(
-        switchMap((id) =>
-          id === null
-            ? of([])
-            : from(
-                liveQuery(() =>
-                  this.db.kicks
-                    .where('[sessionId+recordedAt]')
-                    .between([id, Dexie.minKey], [id, Dexie.maxKey])
-                    .reverse()
-                    .filter((k) => !k.deletedAt)
-                    .toArray(),
-                ),
-              ),
-        ),
-      ),
-      { initialValue: undefined },
+    return liveSignal(
+      sessionId,
+      (id) =>
+        this.db.kicks
+          .where('[sessionId+recordedAt]')
+          .between([id, Dexie.minKey], [id, Dexie.maxKey])
+          .reverse()
+          .filter((k) => !k.deletedAt)
+          .toArray(),
+      { whenNull: [], initial: undefined },
     );
   }
 

@@ -175,6 +175,19 @@ export class LoftlineDb extends Dexie {
     this.version(2).stores({
       analysisCache: 'key, kind, updatedAt',
     });
+    // Kicks gain `measuredSource` and `videoTrack` (no index): measured values already on the device came
+    // from a device import, as on the server (migration 0010).
+    this.version(3)
+      .stores({})
+      .upgrade((tx) =>
+        tx
+          .table<LocalKick, string>('kicks')
+          .toCollection()
+          .modify((k) => {
+            const measured = [k.measuredSpeedMs, k.launchAngleDeg, k.measuredSpinRps].some((v) => v !== null && v !== undefined);
+            if (measured && k.measuredSource === undefined) k.measuredSource = 'device';
+          }),
+      );
   }
 }
 

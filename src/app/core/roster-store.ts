@@ -1,7 +1,7 @@
+import { liveSignal } from './live-signal';
 import { Injectable, Signal, computed, inject, signal } from '@angular/core';
-import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
-import { liveQuery } from 'dexie';
-import { firstValueFrom, from, of, switchMap } from 'rxjs';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { firstValueFrom } from 'rxjs';
 import { describeApiError } from './api-error';
 import { AuthSession } from './auth/auth-session';
 import { type CachedPlayer, type CachedSquad, LOFTLINE_DB } from './loftline-db';
@@ -33,11 +33,13 @@ export class RosterStore {
   readonly problem = signal<string | null>(null);
 
   /** The user's squads, by name (undefined until IndexedDB has answered). */
-  readonly squads: Signal<CachedSquad[] | undefined> = toSignal(
-    toObservable(this.userId).pipe(
-      switchMap((id) => (id === null ? of([]) : from(liveQuery(() => this.db.squads.where('userIds').equals(id).sortBy('name'))))),
-    ),
-    { initialValue: undefined },
+  readonly squads: Signal<CachedSquad[] | undefined> = liveSignal(
+    this.userId,
+    (id) => this.db.squads.where('userIds').equals(id).sortBy('name'),
+    {
+      whenNull: [],
+      initial: undefined,
+    },
   );
 
   constructor() {
@@ -56,22 +58,13 @@ export class RosterStore {
    * (a component's field initialiser): the squad may change while the screen is open.
    */
   livePlayers(squadId: Signal<string | null>): Signal<CachedPlayer[] | undefined> {
-    return toSignal(
-      toObservable(squadId).pipe(
-        switchMap((id) =>
-          id === null
-            ? of([])
-            : from(
-                liveQuery(async () => {
-                  const players = await this.db.players.where('squadId').equals(id).toArray();
-                  return players.sort(
-                    (a, b) => (a.shirtNumber ?? 999) - (b.shirtNumber ?? 999) || a.displayName.localeCompare(b.displayName),
-                  );
-                }),
-              ),
-        ),
-      ),
-      { initialValue: undefined },
+    return liveSignal(
+      squadId,
+      async (id) => {
+        const players = await this.db.players.where('squadId').equals(id).toArray();
+        return players.sort((a, b) => (a.shirtNumber ?? 999) - (b.shirtNumber ?? 999) || a.displayName.localeCompare(b.displayName));
+      },
+      { whenNull: [], initial: undefined },
     );
   }
 

@@ -1,7 +1,5 @@
+import { liveQuerySignal, liveSignal } from './live-signal';
 import { Injectable, Signal, inject } from '@angular/core';
-import { toObservable, toSignal } from '@angular/core/rxjs-interop';
-import { liveQuery } from 'dexie';
-import { from, of, switchMap } from 'rxjs';
 import { drillDataSchema, sessionDataSchema, type DrillData, type SessionData } from '../../../shared/schemas/sync';
 import { AuthSession } from './auth/auth-session';
 import { InvalidEntryError, validateEntry } from './entry-validation';
@@ -96,55 +94,36 @@ export class SessionStore {
 
   /** One session, live: undefined while loading, null when it is not on this device (or deleted). */
   liveSession(id: Signal<string | null>): Signal<LocalSession | null | undefined> {
-    return toSignal(
-      toObservable(id).pipe(
-        switchMap((sessionId) =>
-          sessionId === null
-            ? of(null)
-            : from(
-                liveQuery(async () => {
-                  const row = await this.db.sessions.get(sessionId);
-                  return row && !row.deletedAt ? row : null;
-                }),
-              ),
-        ),
-      ),
-      { initialValue: undefined },
+    return liveSignal(
+      id,
+      async (sessionId): Promise<LocalSession | null> => {
+        const row = await this.db.sessions.get(sessionId);
+        return row && !row.deletedAt ? row : null;
+      },
+      { whenNull: null, initial: undefined },
     );
   }
 
   /** A session's drills in the order they were added, live. */
   liveDrills(sessionId: Signal<string | null>): Signal<LocalDrill[] | undefined> {
-    return toSignal(
-      toObservable(sessionId).pipe(
-        switchMap((id) =>
-          id === null
-            ? of([])
-            : from(
-                liveQuery(async () => {
-                  const drills = await this.db.drills.where('sessionId').equals(id).toArray();
-                  const added = (d: LocalDrill): string => d.addedAt ?? d.updatedAt;
-                  return drills.filter((d) => !d.deletedAt).sort((a, b) => added(a).localeCompare(added(b)) || a.id.localeCompare(b.id));
-                }),
-              ),
-        ),
-      ),
-      { initialValue: undefined },
+    return liveSignal(
+      sessionId,
+      async (id) => {
+        const drills = await this.db.drills.where('sessionId').equals(id).toArray();
+        const added = (d: LocalDrill): string => d.addedAt ?? d.updatedAt;
+        return drills.filter((d) => !d.deletedAt).sort((a, b) => added(a).localeCompare(added(b)) || a.id.localeCompare(b.id));
+      },
+      { whenNull: [], initial: undefined },
     );
   }
 
   /** Sessions started in the last 18 hours and not ended, newest first, live (any squad: callers filter). */
   liveOpenSessions(): Signal<LocalSession[] | undefined> {
     const since = new Date(Date.now() - OPEN_SESSION_WINDOW_MS).toISOString();
-    return toSignal(
-      from(
-        liveQuery(async () => {
-          const rows = await this.db.sessions.where('startedAt').above(since).reverse().sortBy('startedAt');
-          return rows.filter((s) => !s.deletedAt && !s.endedAt);
-        }),
-      ),
-      { initialValue: undefined },
-    );
+    return liveQuerySignal(async () => {
+      const rows = await this.db.sessions.where('startedAt').above(since).reverse().sortBy('startedAt');
+      return rows.filter((s) => !s.deletedAt && !s.endedAt);
+    }, undefined);
   }
 
   private requireUser(): string {

@@ -6,6 +6,8 @@ import type {
   FlightConditions,
   KickInput,
   KickProfile,
+  LaunchTrackInput,
+  LaunchTrackResult,
   LoggedKick,
   ProfilePrior,
   ReachEnvelope,
@@ -93,6 +95,11 @@ export class FlightEngine {
   /** Fit a player's profile from logged repetitions of one technique. */
   fitProfile(kicks: LoggedKick[], prior?: ProfilePrior & { technique?: Technique }): Observable<KickProfile> {
     return this.run('fitProfile', prior === undefined ? [kicks] : [kicks, prior]);
+  }
+
+  /** Fit the flight model to a tapped video track (tens of flights: off the main thread). */
+  launchFromTrack(input: LaunchTrackInput): Observable<LaunchTrackResult> {
+    return this.run('launchFromTrack', [input]);
   }
 
   private run<K extends FlightJobKind>(kind: K, args: FlightJobs[K]['args']): Observable<FlightJobs[K]['result']> {

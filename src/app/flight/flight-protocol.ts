@@ -3,11 +3,14 @@ import {
   reachEnvelope,
   setPieceCheck,
   simulateKick,
+  solveLaunchFromTrack,
   type EnvelopeOptions,
   type Flight,
   type FlightConditions,
   type KickInput,
   type KickProfile,
+  type LaunchTrackInput,
+  type LaunchTrackResult,
   type LoggedKick,
   type ProfilePrior,
   type ReachEnvelope,
@@ -33,6 +36,8 @@ export interface FlightJobs {
   /** Every player's set-piece check, goal-mouth cloud and mean-launch flight at one spot. */
   setPieceRank: { args: [input: SetPieceRankInput]; result: SetPieceRankEntry[] };
   fitProfile: { args: [kicks: LoggedKick[], prior?: ProfilePrior & { technique?: Technique }]; result: KickProfile };
+  /** A launch measured from taps on a side-on video (speed, elevation, backspin, or why not). */
+  launchFromTrack: { args: [input: LaunchTrackInput]; result: LaunchTrackResult };
 }
 
 /** Name of a flight job. */
@@ -58,6 +63,7 @@ const JOBS: { [K in FlightJobKind]: (...args: FlightJobs[K]['args']) => FlightJo
   },
   setPieceRank: (input) => setPieceRank(input),
   fitProfile: (kicks, prior) => fitProfile(kicks, prior),
+  launchFromTrack: (input) => solveLaunchFromTrack(input),
 };
 
 /** Whether `kind` names a flight job (messages from outside are checked before dispatch). */

@@ -1,19 +1,11 @@
-import {
-  ChangeDetectionStrategy,
-  Component,
-  ElementRef,
-  ViewEncapsulation,
-  afterRenderEffect,
-  computed,
-  input,
-  viewChild,
-  inject,
-} from '@angular/core';
-import { axisBottom, axisLeft, axisRight, line, max, scaleBand, scaleLinear, select } from 'd3';
-import { ClubFormat } from '../core/club-format';
+import { ChangeDetectionStrategy, Component, ViewEncapsulation, computed, input } from '@angular/core';
+import { axisBottom, axisLeft, axisRight, line, max, scaleBand, scaleLinear } from 'd3';
+import type { QuantityFormat } from '../../../shared/quantity-format';
 import { weekLabel } from '../ui/charts/chart-format';
-import { drawWidth, injectChartWidth } from '../ui/charts/chart-width';
-import { describeTrend, percentLabel } from './child-trend';
+import { chartFrame, drawAxis, drawBottomAxis, drawEmptyNote, drawGrid } from '../ui/charts/chart-frame';
+import { ChartTable } from '../ui/charts/chart-table';
+import { D3Chart } from '../ui/charts/d3-chart';
+import { describeTrend } from './child-trend';
 import type { ChildWeek } from '../core/guardians/guardian-api';
 
 const HEIGHT_PX = 168;
@@ -26,6 +18,7 @@ const MARGIN = { top: 10, right: 40, bottom: 24, left: 32 };
  */
 @Component({
   selector: 'll-weekly-trend-chart',
+  imports: [ChartTable],
   template: `
     <!-- The sentence and the table below carry the same content, so the drawing is hidden from screen readers. -->
     <svg #svg aria-hidden="true" focusable="false"></svg>
@@ -34,77 +27,32 @@ const MARGIN = { top: 10, right: 40, bottom: 24, left: 32 };
       <li><span class="ll-chart__swatch ll-trend__swatch--rate"></span>Hit rate</li>
     </ul>
     <p class="ll-trend__summary">{{ summary() }}</p>
-    <details class="ll-chart__alt">
-      <summary>Show as table</summary>
-      <div class="ll-chart__alt-scroll">
-        <table>
-          <thead>
-            <tr>
-              <th scope="col">Week of</th>
-              <th scope="col">Repetitions</th>
-              <th scope="col">Hit rate</th>
-            </tr>
-          </thead>
-          <tbody>
-            @for (row of rows(); track row.weekStart) {
-              <tr>
-                <td>{{ row.week }}</td>
-                <td>{{ row.reps }}</td>
-                <td>{{ row.hitRate }}</td>
-              </tr>
-            } @empty {
-              <tr>
-                <td colspan="3">No weeks with data.</td>
-              </tr>
-            }
-          </tbody>
-        </table>
-      </div>
-    </details>
+    <ll-chart-table [headers]="['Week of', 'Repetitions', 'Hit rate']" [rows]="rows()" empty="No weeks with data." />
   `,
   styleUrl: './weekly-trend-chart.scss',
   encapsulation: ViewEncapsulation.None,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class WeeklyTrendChart {
+export class WeeklyTrendChart extends D3Chart {
   /** The weeks to draw, oldest first. */
   readonly weeks = input.required<readonly ChildWeek[]>();
   /** The child's first name, for the summary sentence. */
   readonly firstName = input.required<string>();
 
-  private readonly svg = viewChild.required<ElementRef<SVGSVGElement>>('svg');
-  private readonly width = injectChartWidth();
-  /** The club's formatter (locale of dates and numbers). */
-  private readonly fmt = inject(ClubFormat).format;
-
   protected readonly summary = computed(() => describeTrend(this.firstName(), this.weeks()));
   protected readonly rows = computed(() =>
     this.weeks().map((week) => ({
-      weekStart: week.weekStart,
-      week: weekLabel(week.weekStart, this.fmt()),
-      reps: week.reps,
-      hitRate: week.hitRate === null ? '–' : percentLabel(week.hitRate),
+      key: week.weekStart,
+      cells: [weekLabel(week.weekStart, this.fmt()), week.reps, this.fmt().percent(week.hitRate)],
     })),
   );
 
-  constructor() {
-    afterRenderEffect(() => this.draw(this.svg().nativeElement, this.weeks(), drawWidth(this.width())));
-  }
-
-  private draw(element: SVGSVGElement, weeks: readonly ChildWeek[], width: number): void {
-    const svg = select(element);
-    svg.selectAll('*').remove();
-    svg.attr('viewBox', `0 0 ${width} ${HEIGHT_PX}`).attr('width', width).attr('height', HEIGHT_PX);
-    const innerW = Math.max(10, width - MARGIN.left - MARGIN.right);
-    const innerH = HEIGHT_PX - MARGIN.top - MARGIN.bottom;
-    const g = svg.append('g').attr('transform', `translate(${MARGIN.left},${MARGIN.top})`);
+  protected override draw(element: SVGSVGElement, width: number, f: QuantityFormat): void {
+    const weeks = this.weeks();
+    const frame = chartFrame(element, width, HEIGHT_PX, MARGIN);
+    const { plot: g, innerW, innerH } = frame;
     if (weeks.length === 0) {
-      g.append('text')
-        .attr('class', 'll-chart__empty')
-        .attr('x', innerW / 2)
-        .attr('y', innerH / 2)
-        .attr('text-anchor', 'middle')
-        .text('No weeks with data yet');
+      drawEmptyNote(frame, 'No weeks with data yet');
       return;
     }
     const x = scaleBand<string>()
@@ -119,31 +67,21 @@ export class WeeklyTrendChart {
     const rate = scaleLinear().domain([0, 1]).range([innerH, 0]);
     const tickEvery = Math.max(1, Math.ceil(weeks.length / Math.max(1, Math.floor(innerW / 56))));
 
-    g.append('g')
-      .attr('class', 'll-chart__grid')
-      .call(
-        axisLeft(reps)
-          .ticks(4)
-          .tickSize(-innerW)
-          .tickFormat(() => ''),
-      );
-    g.append('g').attr('class', 'll-chart__axis').call(axisLeft(reps).ticks(4));
-    g.append('g')
-      .attr('class', 'll-chart__axis')
-      .attr('transform', `translate(${innerW},0)`)
-      .call(
-        axisRight(rate)
-          .ticks(2)
-          .tickFormat((v) => this.fmt().percent(Number(v))),
-      );
-    g.append('g')
-      .attr('class', 'll-chart__axis')
-      .attr('transform', `translate(0,${innerH})`)
-      .call(
-        axisBottom(x)
-          .tickValues(weeks.map((week) => week.weekStart).filter((_, i) => i % tickEvery === 0))
-          .tickFormat((weekStart) => weekLabel(weekStart, this.fmt())),
-      );
+    drawGrid(frame, axisLeft(reps).ticks(4));
+    drawAxis(frame, axisLeft(reps).ticks(4));
+    drawAxis(
+      frame,
+      axisRight(rate)
+        .ticks(2)
+        .tickFormat((v) => f.percent(Number(v))),
+      { x: innerW },
+    );
+    drawBottomAxis(
+      frame,
+      axisBottom(x)
+        .tickValues(weeks.map((week) => week.weekStart).filter((_, i) => i % tickEvery === 0))
+        .tickFormat((weekStart) => weekLabel(weekStart, f)),
+    );
 
     const bandWidth = x.bandwidth();
     g.selectAll('rect.ll-trend__bar')
@@ -155,7 +93,7 @@ export class WeeklyTrendChart {
       .attr('width', bandWidth)
       .attr('height', (week) => innerH - reps(week.reps))
       .append('title')
-      .text((week) => `Week of ${weekLabel(week.weekStart, this.fmt())}: ${week.reps} repetitions`);
+      .text((week) => `Week of ${weekLabel(week.weekStart, f)}: ${week.reps} repetitions`);
 
     const centre = (week: ChildWeek): number => (x(week.weekStart) ?? 0) + bandWidth / 2;
     const rateLine = line<ChildWeek>()
@@ -173,6 +111,6 @@ export class WeeklyTrendChart {
       .attr('cy', (week) => rate(week.hitRate ?? 0))
       .attr('r', 3.5)
       .append('title')
-      .text((week) => `Week of ${weekLabel(week.weekStart, this.fmt())}: hit rate ${percentLabel(week.hitRate ?? 0)}`);
+      .text((week) => `Week of ${weekLabel(week.weekStart, f)}: hit rate ${f.percent(week.hitRate)}`);
   }
 }

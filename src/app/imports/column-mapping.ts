@@ -14,6 +14,7 @@ import type { KickField } from './import-types';
 import { FIELD_LABELS, OPTIONAL_FIELDS, type MappingForm, fillMapping } from './kick-mapping-form';
 import { type LocalCsv, columnIndex } from './local-csv';
 import { mappingSample } from './mapping-sample';
+import { ClubFormat } from '../core/club-format';
 
 /**
  * The column-mapping step of the measured-kick import: which of the file's columns holds the
@@ -45,6 +46,7 @@ export class ColumnMapping {
   readonly csv = input.required<LocalCsv>();
 
   protected readonly devices = inject(DeviceMappings);
+  private readonly fmt = inject(ClubFormat).format;
   protected readonly fields = ['player', ...OPTIONAL_FIELDS] as const;
   protected readonly labels = FIELD_LABELS;
   /** What applying a saved mapping did, e.g. which of its columns this file lacks. */
@@ -64,7 +66,7 @@ export class ColumnMapping {
 
   protected readonly sample = computed(() => {
     const value = this.value();
-    return value ? mappingSample(this.csv(), value) : null;
+    return value ? mappingSample(this.csv(), value, this.fmt()) : null;
   });
   protected readonly mappingError = computed(() => {
     this.value();

@@ -1,6 +1,6 @@
 import type { Type } from '@angular/core';
 import { Routes } from '@angular/router';
-import { requireAdmin } from '../core/auth/admin-guard';
+import { requireAdmin } from '../core/auth/role-guard';
 import { ImportApi } from './import-api';
 import { ImportsPage } from './imports-page';
 import { KickExports } from './kick-exports';

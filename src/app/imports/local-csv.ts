@@ -82,7 +82,7 @@ export async function readLocalCsv(file: File): Promise<LocalCsv> {
   }
   if (data.length > MAX_UPLOAD_ROWS) {
     throw new LocalCsvError(
-      `${file.name} has ${data.length.toLocaleString('en-GB')} data rows; at most ${MAX_UPLOAD_ROWS.toLocaleString('en-GB')} are accepted in one file.`,
+      `${file.name} has ${count(data.length)} data rows; at most ${count(MAX_UPLOAD_ROWS)} are accepted in one file.`,
     );
   }
   const header = headerRow.map((name) => name.trim());
@@ -185,7 +185,20 @@ function decode(bytes: Uint8Array): { text: string; encoding: LocalCsv['encoding
   }
 }
 
-/** A size in MB with one decimal, e.g. "5.0 MB". */
+/**
+ * The page's language, which ClubFormat keeps at the club's locale (`<html lang>`), so messages made far from
+ * any screen still write numbers the club's way.
+ */
+function pageLocale(): string | undefined {
+  return typeof document === 'undefined' ? undefined : document.documentElement.lang || undefined;
+}
+
+/** A count with the locale's digit grouping, e.g. "20,000" or "20.000". */
+function count(n: number): string {
+  return n.toLocaleString(pageLocale());
+}
+
+/** A size in MB with one decimal in the club's locale, e.g. "5.0 MB" or "5,0 MB". */
 export function megabytes(bytes: number): string {
-  return `${(bytes / 1024 / 1024).toFixed(1)} MB`;
+  return `${(bytes / 1024 / 1024).toLocaleString(pageLocale(), { minimumFractionDigits: 1, maximumFractionDigits: 1 })} MB`;
 }

@@ -1,3 +1,4 @@
+import { QuantityFormat } from '../../../shared/quantity-format';
 import { createMappingForm, fillMapping, mappingOf } from './kick-mapping-form';
 import type { LocalCsv } from './local-csv';
 import { mappingSample } from './mapping-sample';
@@ -23,6 +24,8 @@ describe('unit conversion', () => {
   });
 });
 
+const EN = new QuantityFormat({ locale: 'en-GB', distanceUnit: 'm' });
+
 describe('mappingSample', () => {
   it('shows the first rows in Loftline units, with the units in the headings', () => {
     const form = createMappingForm();
@@ -32,7 +35,7 @@ describe('mappingSample', () => {
       { player: 'Kicker', speed: 'Speed', spin: 'Spin', carry: 'Carry' },
       { speed: 'mph', spin: 'rpm', distance: 'yd' },
     );
-    const sample = mappingSample(csv([['7', '', '50', '600', '40']]), form.getRawValue());
+    const sample = mappingSample(csv([['7', '', '50', '600', '40']]), form.getRawValue(), EN);
     expect(sample.fields.map((f) => f.label)).toEqual(['Player', 'Ball speed (m/s)', 'Spin (rev/s)', 'Carry (m)']);
     expect(sample.rows[0]?.row).toBe(2);
     // 50 mph = 22.352 m/s; 600 rpm = 10 rev/s; 40 yd = 36.576 m.
@@ -49,6 +52,7 @@ describe('mappingSample', () => {
         ['8', '2026-11-30 18:05:10', 'fast'],
       ]),
       form.getRawValue(),
+      EN,
     );
     const [first, second] = sample.rows;
     expect(first?.cells[0]?.warning).toBe('No player given');
@@ -58,11 +62,21 @@ describe('mappingSample', () => {
     expect(second?.cells[2]?.warning).toBe('Not a number');
   });
 
+  it('writes numbers and times in the club’s locale', () => {
+    const form = createMappingForm();
+    fillMapping(form, csv([]).header, { player: 'Kicker', time: 'When', speed: 'Speed' }, { speed: 'm/s', spin: 'rev/s', distance: 'm' });
+    const de = new QuantityFormat({ locale: 'de-DE', distanceUnit: 'yd' });
+    const cells = mappingSample(csv([['7', '2026-11-30 18:05:10', '24.5']]), form.getRawValue(), de).rows[0]?.cells ?? [];
+    // CLDR German: decimal comma, day-month-year with dots, 24-hour clock.
+    expect(cells[2]?.text).toBe('24,5');
+    expect(cells[1]?.text).toBe('30.11.2026, 18:05:10');
+  });
+
   it('reads a decimal comma in a semicolon-separated file, as the server does', () => {
     const form = createMappingForm();
     fillMapping(form, csv([]).header, { player: 'Kicker', speed: 'Speed' }, { speed: 'm/s', spin: 'rev/s', distance: 'm' });
-    expect(mappingSample(csv([['7', '', '24,5']], ';'), form.getRawValue()).rows[0]?.cells[1]?.text).toBe('24.5');
-    expect(mappingSample(csv([['7', '', '24,5']], ','), form.getRawValue()).rows[0]?.cells[1]?.warning).toBe('Not a number');
+    expect(mappingSample(csv([['7', '', '24,5']], ';'), form.getRawValue(), EN).rows[0]?.cells[1]?.text).toBe('24.5');
+    expect(mappingSample(csv([['7', '', '24,5']], ','), form.getRawValue(), EN).rows[0]?.cells[1]?.warning).toBe('Not a number');
   });
 });
 

@@ -1,3 +1,4 @@
+import type { QuantityFormat } from '../../../shared/quantity-format';
 import type { KickField } from './import-types';
 import { FIELD_LABELS, OPTIONAL_FIELDS, type MappingValue } from './kick-mapping-form';
 import { type LocalCsv, columnIndex, rowNumberOf } from './local-csv';
@@ -5,7 +6,7 @@ import { parseDeviceNumber, toMetres, toMetresPerSecond, toRevsPerSecond } from 
 
 /** One cell of the "how the first rows will read" check. */
 export interface SampleCell {
-  /** The value as Loftline will store it, e.g. "24.6 m/s", or the raw text for player and time. */
+  /** The value as Loftline will store it (SI, in the club's locale), e.g. "24.6" or "24,6", or the player's raw text. */
   readonly text: string;
   /** Why the server will refuse it, or null when it looks fine. */
   readonly warning: string | null;
@@ -38,15 +39,15 @@ const RANGES: Readonly<Partial<Record<KickField, { readonly min: number; readonl
 /**
  * The first `count` rows of the file read through the mapping and converted to Loftline's units,
  * flagging what the server would refuse. A wrong unit shows at once (a 90 m/s kick means the file
- * was in km/h), before anything is uploaded.
+ * was in km/h), before anything is uploaded. Numbers and times are written in the club's locale (`f`).
  */
-export function mappingSample(csv: LocalCsv, value: MappingValue, count = 3): MappingSample {
+export function mappingSample(csv: LocalCsv, value: MappingValue, f: QuantityFormat, count = 3): MappingSample {
   const fields = (['player', ...OPTIONAL_FIELDS] as const).filter((field) => value[field] !== '');
   const decimalComma = csv.delimiter === ';';
   const indexes = fields.map((field) => columnIndex(csv.header, value[field]));
   const rows = csv.rows.slice(0, count).map((values, i) => ({
     row: rowNumberOf(i),
-    cells: fields.map((field, j) => readCell(field, values[indexes[j] ?? -1] ?? '', value, decimalComma)),
+    cells: fields.map((field, j) => readCell(field, values[indexes[j] ?? -1] ?? '', value, decimalComma, f)),
   }));
   return {
     fields: fields.map((field) => {
@@ -57,7 +58,7 @@ export function mappingSample(csv: LocalCsv, value: MappingValue, count = 3): Ma
   };
 }
 
-function readCell(field: KickField, raw: string, value: MappingValue, decimalComma: boolean): SampleCell {
+function readCell(field: KickField, raw: string, value: MappingValue, decimalComma: boolean, f: QuantityFormat): SampleCell {
   if (field === 'player') {
     return { text: raw === '' ? '(empty)' : raw, warning: raw.trim() === '' ? 'No player given' : null };
   }
@@ -67,7 +68,7 @@ function readCell(field: KickField, raw: string, value: MappingValue, decimalCom
     const at = Date.parse(raw.trim().replace(' ', 'T'));
     return Number.isNaN(at)
       ? { text: raw, warning: 'Not a date and time the server can read (e.g. 2026-11-30 18:05:10)' }
-      : { text: new Date(at).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'medium' }), warning: null };
+      : { text: f.dateTime(at, { dateStyle: 'medium', timeStyle: 'medium' }), warning: null };
   }
   const number = parseDeviceNumber(raw, decimalComma);
   if (raw.trim() === '') return { text: '–', warning: null };
@@ -81,7 +82,7 @@ function readCell(field: KickField, raw: string, value: MappingValue, decimalCom
           ? toMetres(number, value.distanceUnit)
           : number;
   const range = RANGES[field];
-  const text = (Math.round(converted * 10) / 10).toLocaleString('en-GB');
+  const text = f.number(converted, 1);
   if (range && (converted < range.min || converted > range.max)) {
     return { text, warning: `Outside ${range.min} to ${range.max} ${range.unit}: is the unit right?` };
   }

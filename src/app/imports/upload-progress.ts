@@ -2,6 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, input, output } from '@an
 import { MatButtonModule } from '@angular/material/button';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import type { RunState } from './import-run';
+import { megabytes } from './local-csv';
 
 /**
  * How far an upload has got: a bar that fills as the file goes up, then an indeterminate bar
@@ -79,5 +80,5 @@ export class UploadProgress {
 
 /** A byte count for people: "840 kB", "3.2 MB". */
 export function kilobytes(bytes: number): string {
-  return bytes >= 1024 * 1024 ? `${(bytes / 1024 / 1024).toFixed(1)} MB` : `${Math.max(1, Math.round(bytes / 1024))} kB`;
+  return bytes >= 1024 * 1024 ? megabytes(bytes) : `${Math.max(1, Math.round(bytes / 1024))} kB`;
 }

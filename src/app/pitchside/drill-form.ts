@@ -12,8 +12,8 @@ import { drillDataSchema, type Technique } from '../../../shared/schemas/sync';
 import type { LocalDrill } from '../core/loftline-db';
 import type { NewDrill } from '../core/session-store';
 import { zodValidator } from '../core/zod-validator';
-import { StepControl } from './step-control';
-import { TECHNIQUES, TECHNIQUE_LABELS, backspinLabel, sidespinLabel } from '../../../shared/vocabulary';
+import { BackspinControl, CurlControl } from './spin-controls';
+import { TECHNIQUES, TECHNIQUE_LABELS } from '../../../shared/vocabulary';
 
 /**
  * Sets up a drill: technique, target distance and radius, and the spin the coach asks for
@@ -22,7 +22,7 @@ import { TECHNIQUES, TECHNIQUE_LABELS, backspinLabel, sidespinLabel } from '../.
  */
 @Component({
   selector: 'll-drill-form',
-  imports: [ReactiveFormsModule, MatButtonModule, MatButtonToggleModule, MatFormFieldModule, MatInputModule, StepControl],
+  imports: [ReactiveFormsModule, MatButtonModule, MatButtonToggleModule, MatFormFieldModule, MatInputModule, BackspinControl, CurlControl],
   template: `
     <form [formGroup]="form" (ngSubmit)="submit()" class="drill-form">
       <h2 class="drill-form__title">
@@ -57,26 +57,8 @@ import { TECHNIQUES, TECHNIQUE_LABELS, backspinLabel, sidespinLabel } from '../.
         </mat-form-field>
       </div>
       <div class="drill-form__row">
-        <ll-step-control
-          name="Default spin"
-          [(value)]="backspinStep"
-          [min]="-3"
-          [max]="3"
-          [describe]="backspinLabel"
-          [leftStep]="-1"
-          leftLabel="More topspin"
-          rightLabel="More backspin"
-        />
-        <ll-step-control
-          name="Default curl"
-          [(value)]="sidespinStep"
-          [min]="-2"
-          [max]="2"
-          [describe]="sidespinLabel"
-          [leftStep]="1"
-          leftLabel="More left curl"
-          rightLabel="More right curl"
-        />
+        <ll-backspin-control name="Default spin" [(value)]="backspinStep" />
+        <ll-curl-control name="Default curl" [(value)]="sidespinStep" />
       </div>
       <mat-form-field appearance="outline" class="drill-form__label">
         <mat-label>Name (optional)</mat-label>
@@ -138,8 +120,6 @@ export class DrillForm implements OnInit {
 
   protected readonly techniques = TECHNIQUES;
   protected readonly techniqueLabels = TECHNIQUE_LABELS;
-  protected readonly backspinLabel = backspinLabel;
-  protected readonly sidespinLabel = sidespinLabel;
   protected readonly backspinStep = signal(0);
   protected readonly sidespinStep = signal(0);
   private readonly clubFormat = inject(ClubFormat);

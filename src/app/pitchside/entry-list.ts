@@ -1,6 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input, output, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
+import { RouterLink } from '@angular/router';
 import { ClubFormat } from '../core/club-format';
 import type { KickCorrection } from '../core/kick-store';
 import type { CachedPlayer, LocalKick, OutboxEntry } from '../core/loftline-db';
@@ -19,7 +20,7 @@ export interface EntryCorrection {
  */
 @Component({
   selector: 'll-entry-list',
-  imports: [MatButtonModule, MatIconModule, KickEditor],
+  imports: [MatButtonModule, MatIconModule, KickEditor, RouterLink],
   template: `
     <ol class="entries" aria-label="Repetitions this session">
       @for (kick of kicks(); track kick.id) {
@@ -50,6 +51,13 @@ export interface EntryCorrection {
               }
             </span>
             <mat-icon class="entry__sync" [attr.aria-label]="syncLabel(entry)">{{ syncIcon(entry) }}</mat-icon>
+            <a
+              mat-icon-button
+              [routerLink]="['/measure', kick.id]"
+              [attr.aria-label]="'Measure from video: ' + playerName(kick.playerId) + ' at ' + time(kick.recordedAt)"
+            >
+              <mat-icon aria-hidden="true">videocam</mat-icon>
+            </a>
             <button
               mat-icon-button
               type="button"
@@ -76,7 +84,7 @@ export interface EntryCorrection {
     }
     .entry {
       display: grid;
-      grid-template-columns: auto 1fr auto auto;
+      grid-template-columns: auto 1fr auto auto auto;
       align-items: center;
       gap: 8px;
       min-height: 48px;

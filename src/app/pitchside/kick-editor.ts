@@ -12,8 +12,8 @@ import type { KickCorrection } from '../core/kick-store';
 import type { CachedPlayer, LocalKick } from '../core/loftline-db';
 import { metresValidator, optionalMetres } from './metres-field';
 import { PAD_OUTCOMES } from './pitchside-labels';
-import { OUTCOME_LABELS, backspinLabel, sidespinLabel } from '../../../shared/vocabulary';
-import { StepControl } from './step-control';
+import { OUTCOME_LABELS } from '../../../shared/vocabulary';
+import { BackspinControl, CurlControl } from './spin-controls';
 
 /**
  * Corrects one logged repetition — kicker, outcome, spin, landed carry, lateral offset and the
@@ -21,7 +21,16 @@ import { StepControl } from './step-control';
  */
 @Component({
   selector: 'll-kick-editor',
-  imports: [ReactiveFormsModule, MatButtonModule, MatButtonToggleModule, MatFormFieldModule, MatInputModule, MatSelectModule, StepControl],
+  imports: [
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatButtonToggleModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    BackspinControl,
+    CurlControl,
+  ],
   template: `
     <form [formGroup]="form" (ngSubmit)="save()" class="editor" aria-label="Correct repetition">
       <mat-form-field appearance="outline">
@@ -38,25 +47,8 @@ import { StepControl } from './step-control';
         }
       </mat-button-toggle-group>
       <div class="editor__row">
-        <ll-step-control
-          name="Spin"
-          [(value)]="backspinStep"
-          [min]="-3"
-          [max]="3"
-          [describe]="backspinLabel"
-          leftLabel="More topspin"
-          rightLabel="More backspin"
-        />
-        <ll-step-control
-          name="Curl"
-          [(value)]="sidespinStep"
-          [min]="-2"
-          [max]="2"
-          [describe]="sidespinLabel"
-          [leftStep]="1"
-          leftLabel="More left curl"
-          rightLabel="More right curl"
-        />
+        <ll-backspin-control name="Spin" [(value)]="backspinStep" />
+        <ll-curl-control name="Curl" [(value)]="sidespinStep" />
       </div>
       <div class="editor__row">
         <mat-form-field appearance="outline">
@@ -146,8 +138,6 @@ export class KickEditor implements OnInit {
 
   protected readonly outcomes = PAD_OUTCOMES;
   protected readonly outcomeLabels = OUTCOME_LABELS;
-  protected readonly backspinLabel = backspinLabel;
-  protected readonly sidespinLabel = sidespinLabel;
   protected readonly backspinStep = signal(0);
   protected readonly sidespinStep = signal(0);
   private readonly clubFormat = inject(ClubFormat);

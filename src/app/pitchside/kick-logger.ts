@@ -32,13 +32,14 @@ import { SyncIssues } from '../core/sync/sync-issues';
 import { DrillForm } from './drill-form';
 import { EntryList, type EntryCorrection } from './entry-list';
 import { HangTimer } from './hang-timer';
-import { DEFAULT_REP_LIMIT_PER_SESSION, isOverLoadLimit, loadCautionText } from './kicking-load';
+import { DEFAULT_REP_LIMIT_PER_SESSION } from '../../../shared/schemas/club';
+import { isOverLoadLimit, loadCautionText } from './kicking-load';
 import { describeLocalError } from './local-error';
 import { metresValidator, optionalMetres } from './metres-field';
 import { OutcomePad } from './outcome-pad';
 import { OUTCOME_LABELS, TECHNIQUE_LABELS, backspinLabel, sidespinLabel } from '../../../shared/vocabulary';
 import { PlayerChips } from './player-chips';
-import { StepControl } from './step-control';
+import { BackspinControl, CurlControl } from './spin-controls';
 import { StopwatchDrills } from './stopwatch-drills';
 
 /**
@@ -63,7 +64,8 @@ import { StopwatchDrills } from './stopwatch-drills';
     HangTimer,
     OutcomePad,
     PlayerChips,
-    StepControl,
+    BackspinControl,
+    CurlControl,
   ],
   templateUrl: './kick-logger.html',
   styleUrl: './kick-logger.scss',
@@ -91,7 +93,8 @@ export class KickLogger {
   protected readonly kicks = this.kicksStore.liveKicks(this.sessionId);
   protected readonly players = inject(RosterStore).livePlayers(this.squadId);
   protected readonly entries = inject(SyncIssues).liveSessionEntries(this.sessionId);
-  protected readonly limit = DEFAULT_REP_LIMIT_PER_SESSION;
+  /** The club's repetition limit per player per session (cached with its settings, so it holds offline). */
+  protected readonly limit = computed(() => this.clubSettings.settings().repLimitPerSession ?? DEFAULT_REP_LIMIT_PER_SESSION);
 
   protected readonly chosenDrillId = signal<string | null>(null);
   /** Open when a Next-targets suggestion is waiting, so adding it is one tap. */
@@ -116,8 +119,6 @@ export class KickLogger {
     validators: metresValidator(kickDataSchema.shape.hangTimeS, 'seconds'),
   });
 
-  protected readonly backspinLabel = backspinLabel;
-  protected readonly sidespinLabel = sidespinLabel;
   protected readonly techniqueLabels = TECHNIQUE_LABELS;
 
   /** The drill repetitions are logged against: the one chosen, else the latest added. */
@@ -144,8 +145,8 @@ export class KickLogger {
   protected readonly selectedPlayer = computed(() => (this.players() ?? []).find((p) => p.id === this.selectedPlayerId()) ?? null);
   protected readonly caution = computed(() => {
     const counts = this.counts();
-    const over = (this.players() ?? []).filter((p) => isOverLoadLimit(counts.get(p.id) ?? 0, this.limit)).map((p) => p.displayName);
-    return over.length === 0 ? null : loadCautionText(over, this.limit);
+    const over = (this.players() ?? []).filter((p) => isOverLoadLimit(counts.get(p.id) ?? 0, this.limit())).map((p) => p.displayName);
+    return over.length === 0 ? null : loadCautionText(over, this.limit());
   });
   /** Whether the curl stepper is worth its space: curled drills, or a drill or kick with curl set. */
   protected readonly showCurl = computed(() => {

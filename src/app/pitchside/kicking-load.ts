@@ -1,15 +1,7 @@
-/**
- * Repetitions per player per session above which Pitchside shows the kicking-load caution
- * (docs/design.md §10: repeated maximal kicking strains hips and groin).
- *
- * TODO(sync/API owner): the club sets its own limit (`clubs.rep_limit_per_session` on the
- * server, 40 in the demo club), but no endpoint exposes it to the app yet; until one does,
- * Pitchside uses this default for every club. Read it from `/api/me` (club) once it is there.
- */
-export const DEFAULT_REP_LIMIT_PER_SESSION = 40;
+/** Pitchside's kicking-load caution (docs/design.md §10); the limit is the club's own (`ClubSettings.repLimitPerSession`). */
 
 /** Whether a player's repetition count in this session has passed the club's limit. */
-export function isOverLoadLimit(reps: number, limit: number = DEFAULT_REP_LIMIT_PER_SESSION): boolean {
+export function isOverLoadLimit(reps: number, limit: number): boolean {
   return reps > limit;
 }
 

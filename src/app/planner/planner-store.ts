@@ -13,23 +13,20 @@ import {
   from,
   map,
   of,
-  scan,
   share,
   switchMap,
-  tap,
   timer,
 } from 'rxjs';
 import { BALL_SIZES, type FlightConditions, type Technique } from '../../../shared/flight';
 import type { SquadProfilesResponse } from '../../../shared/schemas/analysis';
 import type { SquadSummary } from '../../../shared/schemas/squads';
-import { describeApiError, type ApiProblem } from '../core/api-error';
 import { ClubSettingsStore } from '../core/club-settings-store';
 import { SquadApi } from '../core/squad-api';
 import { FlightEngine } from '../flight/flight-engine';
 import { latestWhenIdle } from '../flight/latest-when-idle';
 import type { SetPieceRankEntry, SetPieceRankInput } from '../flight/set-piece-rank';
 import { toSetPieceFrame } from '../ui/pitch-markings';
-import { PLANNER_CACHE } from './planner-cache';
+import { ANSWER_STORE, type AnswerKind, type CachedLoad, type CachedValue, cacheFirst } from '../core/offline-cache';
 import { PlannerApi } from './planner-api';
 import {
   clampBall,
@@ -51,11 +48,7 @@ export const PROFILE_POLL_LIMIT = 30;
 /** How long the ball must rest before its ranking is kept offline, ms (dragging would fill the cache). */
 export const CACHE_AFTER_REST_MS = 1000;
 
-/** Something loaded from the server, maybe from the device's copy while the server cannot be reached. */
-export type CachedLoad<T> =
-  | { readonly status: 'loading' }
-  | { readonly status: 'ready'; readonly value: T; readonly savedAt: string | null; readonly refreshProblem: ApiProblem | null }
-  | { readonly status: 'error'; readonly problem: ApiProblem };
+export type { CachedLoad } from '../core/offline-cache';
 
 /** The ranking for the current spot. */
 export type RankingState =
@@ -73,11 +66,6 @@ export type RankingState =
       readonly fingerprint: string;
     }
   | { readonly status: 'error'; readonly message: string };
-
-interface CachedValue<T> {
-  savedAt: string;
-  value: T;
-}
 
 interface KeptRanking {
   fingerprint: string;
@@ -117,7 +105,7 @@ export class PlannerStore {
   private readonly squadApi = inject(SquadApi);
   private readonly api = inject(PlannerApi);
   private readonly engine = inject(FlightEngine);
-  private readonly cache = inject(PLANNER_CACHE);
+  private readonly cache = inject(ANSWER_STORE);
   private readonly clubSettings = inject(ClubSettingsStore);
 
   /** Whether the last plan has been read back (nothing is computed before, to avoid a wasted run). */
@@ -265,21 +253,8 @@ export class PlannerStore {
   }
 
   /** The device's copy first (if any), then the server's answer, kept for next time. */
-  private cachedThenFresh<T>(key: string, kind: string, fetch: () => Observable<T>): Observable<CachedLoad<T>> {
-    const kept = from(this.cache.get<CachedValue<T>>(key).catch(() => undefined)).pipe(
-      filter((v): v is CachedValue<T> => v !== undefined),
-      map((v): CachedLoad<T> => ({ status: 'ready', value: v.value, savedAt: v.savedAt, refreshProblem: null })),
-    );
-    const fresh = fetch().pipe(
-      tap((value) => void this.cache.put<CachedValue<T>>(key, kind, { savedAt: new Date().toISOString(), value }).catch(() => undefined)),
-      map((value): CachedLoad<T> => ({ status: 'ready', value, savedAt: null, refreshProblem: null })),
-      catchError((e: unknown) => of<CachedLoad<T>>({ status: 'error', problem: describeApiError(e) })),
-    );
-    return concat(of<CachedLoad<T>>({ status: 'loading' }), kept, fresh).pipe(
-      scan((prev: CachedLoad<T>, next: CachedLoad<T>) =>
-        next.status === 'error' && prev.status === 'ready' ? { ...prev, refreshProblem: next.problem } : next,
-      ),
-    );
+  private cachedThenFresh<T>(key: string, kind: AnswerKind, fetch: () => Observable<T>): Observable<CachedLoad<T>> {
+    return cacheFirst(this.cache, key, kind, fetch);
   }
 
   private loadProfiles(squadId: string, technique: Technique): Observable<CachedLoad<SquadProfilesResponse>> {

@@ -11,7 +11,7 @@ import { provideRouter } from '@angular/router';
 import { BALL_SIZES, setPieceCheck } from '../../../shared/flight';
 import { setPieceCloud } from '../flight/set-piece-rank';
 import { attackingHalfMarkings } from '../ui/pitch-markings';
-import { PLANNER_CACHE, type PlannerCache } from './planner-cache';
+import { ANSWER_STORE, type AnswerStore } from '../core/offline-cache';
 import { FIXTURE_PROFILES, FIXTURE_SQUAD } from './planner-fixture';
 import { Planner } from './planner';
 import { PLANNER_SAMPLES, PLANNER_SEED, PlannerStore } from './planner-store';
@@ -26,7 +26,7 @@ async function until(what: string, check: () => boolean | Promise<boolean>, time
 }
 
 /** A cache in memory with the shape of the app's analysis cache, shared between two openings. */
-function memoryCache(): PlannerCache & { keys(): string[] } {
+function memoryCache(): AnswerStore & { keys(): string[] } {
   const store = new Map<string, unknown>();
   return {
     get: <T>(key: string) => Promise.resolve(store.get(key) as T | undefined),
@@ -69,11 +69,11 @@ describe('Planner (Set-piece planner)', () => {
   let loader: HarnessLoader;
   let http: HttpTestingController;
 
-  function open(cache: PlannerCache): void {
+  function open(cache: AnswerStore): void {
     TestBed.configureTestingModule({
       providers: [provideZonelessChangeDetection(), provideRouter([]), provideHttpClient(), provideHttpClientTesting()],
     });
-    TestBed.overrideComponent(Planner, { set: { providers: [PlannerStore, { provide: PLANNER_CACHE, useValue: cache }] } });
+    TestBed.overrideComponent(Planner, { set: { providers: [PlannerStore, { provide: ANSWER_STORE, useValue: cache }] } });
     fixture = TestBed.createComponent(Planner);
     loader = TestbedHarnessEnvironment.loader(fixture);
     http = TestBed.inject(HttpTestingController);
@@ -94,7 +94,7 @@ describe('Planner (Set-piece planner)', () => {
 
   const profilesUrl = `/api/squads/${FIXTURE_SQUAD.id}/profiles?technique=curled`;
 
-  async function openOnline(cache: PlannerCache): Promise<void> {
+  async function openOnline(cache: AnswerStore): Promise<void> {
     open(cache);
     fixture.componentInstance['store'].spot.set(SPOT);
     await answer('/api/squads', { squads: [FIXTURE_SQUAD] });

@@ -1,5 +1,4 @@
 import { BreakpointObserver } from '@angular/cdk/layout';
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, DestroyRef, computed, effect, inject } from '@angular/core';
 import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
@@ -12,14 +11,13 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
 import { map } from 'rxjs';
 import { GOAL_WIDTH_M, TECHNIQUES, type Technique } from '../../../shared/flight';
-import { AnalysisCache } from '../core/analysis/analysis-cache';
 import { LoadFailure } from '../ui/load-failure';
 import { SliderField } from '../ui/slider-field';
-import { TrajectoryChart, type TrajectoryLandmarks, type TrajectoryTrace } from '../ui/trajectory-chart';
+import { TrajectoryChart, type TrajectoryLandmarks, type TrajectoryTrace } from '../ui/charts/trajectory-chart';
 import { GoalMouthView } from './goal-mouth-view';
-import { PLANNER_CACHE } from './planner-cache';
 import type { RankedPlayer } from './planner-rank';
 import { PLANNER_SAMPLES, PlannerStore } from './planner-store';
+import { ClubFormat } from '../core/club-format';
 import { chosenKickText, describeResult, describeSpot, percent, playerName, shortShare } from './planner-text';
 import { SetPiecePitch } from './set-piece-pitch';
 
@@ -38,7 +36,6 @@ const WIDE_TABLE_QUERY = '(min-width: 720px)';
 @Component({
   selector: 'll-planner',
   imports: [
-    DatePipe,
     MatButtonModule,
     MatButtonToggleModule,
     MatFormFieldModule,
@@ -54,7 +51,7 @@ const WIDE_TABLE_QUERY = '(min-width: 720px)';
     TrajectoryChart,
   ],
   // Profiles and rankings live in the app's IndexedDB analysis cache, so the planner opens offline.
-  providers: [PlannerStore, { provide: PLANNER_CACHE, useExisting: AnalysisCache }],
+  providers: [PlannerStore],
   templateUrl: './planner.html',
   styleUrl: './planner.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -62,6 +59,7 @@ const WIDE_TABLE_QUERY = '(min-width: 720px)';
 export class Planner {
   protected readonly store = inject(PlannerStore);
   private readonly breakpoints = inject(BreakpointObserver);
+  private readonly fmt = inject(ClubFormat).format;
 
   protected readonly techniques = TECHNIQUES;
   protected readonly samples = PLANNER_SAMPLES;
@@ -77,11 +75,11 @@ export class Planner {
     initialValue: this.breakpoints.isMatched(WIDE_TABLE_QUERY),
   });
   protected readonly columns = computed<readonly string[]>(() => (this.wideTable() ? WIDE_COLUMNS : NARROW_COLUMNS));
-  protected readonly spotText = computed(() => describeSpot(this.store.spot()));
+  protected readonly spotText = computed(() => describeSpot(this.store.spot(), this.fmt()));
   protected readonly selected = computed(() => this.store.selectedPlayer());
   protected readonly selectedText = computed(() => {
     const p = this.selected();
-    return p ? describeResult(p) : 'No player to show yet.';
+    return p ? describeResult(p, this.fmt()) : 'No player to show yet.';
   });
   protected readonly pendingCount = computed(() => {
     const p = this.store.profiles();
@@ -102,19 +100,20 @@ export class Planner {
   });
   protected readonly chosenKick = computed(() => {
     const k = this.selected()?.meanKick;
-    return k ? `Kick chosen for this spot: ${chosenKickText(k.kick)}.` : '';
+    return k ? `Kick chosen for this spot: ${chosenKickText(k.kick, this.fmt())}.` : '';
   });
   protected readonly sideSummary = computed(() => {
     const p = this.selected();
     const k = p?.meanKick;
     if (!p || !k) return 'Side view: no flight to show yet.';
-    const wall = k.wallHeightOfBallM === null ? 'lands before the wall' : `passes the wall at ${k.wallHeightOfBallM.toFixed(2)} m`;
+    const f = this.fmt();
+    const wall = k.wallHeightOfBallM === null ? 'lands before the wall' : `passes the wall at ${f.fixed(k.wallHeightOfBallM, 2)} m`;
     const goal =
-      k.goalHeightOfBallM === null ? 'lands before the goal line' : `crosses the goal line at ${k.goalHeightOfBallM.toFixed(2)} m`;
-    return `Side view along the aim of the kick ${playerName(p)} would choose here (${chosenKickText(k.kick)}): ${wall} and ${goal}; carry ${k.carryM.toFixed(1)} m.`;
+      k.goalHeightOfBallM === null ? 'lands before the goal line' : `crosses the goal line at ${f.fixed(k.goalHeightOfBallM, 2)} m`;
+    return `Side view along the aim of the kick ${playerName(p)} would choose here (${chosenKickText(k.kick, f)}): ${wall} and ${goal}; carry ${f.distance(k.carryM)}.`;
   });
 
-  protected readonly percent = percent;
+  protected readonly percent = (share: number): string => percent(share, this.fmt());
   protected readonly playerName = playerName;
   protected readonly shortShare = shortShare;
 
@@ -142,6 +141,11 @@ export class Planner {
 
   protected isSelected(player: RankedPlayer): boolean {
     return this.selected()?.playerId === player.playerId;
+  }
+
+  /** When something was kept on the device, in the club's locale (e.g. "3 Mar, 18:30"). */
+  protected savedAt(iso: string): string {
+    return this.fmt().dateTime(iso, { day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' });
   }
 
   protected techniqueLabel(t: Technique): string {

@@ -1,7 +1,6 @@
 import {
   ChangeDetectionStrategy,
   Component,
-  DestroyRef,
   ElementRef,
   ViewEncapsulation,
   afterRenderEffect,
@@ -9,14 +8,15 @@ import {
   inject,
   input,
   output,
-  signal,
   viewChild,
 } from '@angular/core';
 import { select, type Selection } from 'd3';
 import { GOAL_WIDTH_M } from '../../../shared/flight';
+import { injectChartWidth } from '../ui/charts/chart-width';
 import { attackingHalfMarkings, viewBoxAttr, wallPlacement, type PitchPoint } from '../ui/pitch-markings';
 import type { PlannerSpot } from './planner-rank';
 import { describeSpot } from './planner-text';
+import { ClubFormat } from '../core/club-format';
 
 /** Drawn width of a wall of four to five players, m (common practice; the model treats the wall as wide enough). */
 const WALL_DRAWN_WIDTH_M = 2.6;
@@ -124,22 +124,16 @@ export class SetPiecePitch {
   readonly ballMove = output<PitchPoint>();
 
   private readonly svgRef = viewChild.required<ElementRef<SVGSVGElement>>('svg');
-  private readonly width = signal(0);
+  private readonly fmt = inject(ClubFormat).format;
+  private readonly width = injectChartWidth();
   private readonly markings = attackingHalfMarkings();
   private dragPointer: number | null = null;
   /** Where the last keyboard move put the ball, until the owner's new spot arrives (keys repeat faster). */
   private nudged: PitchPoint | null = null;
   private dragged = false;
-  protected readonly description = computed(() => describeSpot(this.spot()));
+  protected readonly description = computed(() => describeSpot(this.spot(), this.fmt()));
 
   constructor() {
-    const host = inject<ElementRef<HTMLElement>>(ElementRef).nativeElement;
-    const observer = new ResizeObserver((entries) => {
-      const w = Math.round(entries[0]?.contentRect.width ?? 0);
-      if (w > 0 && w !== this.width()) this.width.set(w);
-    });
-    observer.observe(host);
-    inject(DestroyRef).onDestroy(() => observer.disconnect());
     afterRenderEffect(() => this.draw());
   }
 

@@ -13,7 +13,7 @@ import type { PlayerSummary, SquadSummary } from '../../../shared/schemas/squads
 import type { Technique } from '../../../shared/schemas/sync';
 import { AuthSession } from '../core/auth/auth-session';
 import { SquadApi } from '../core/squad-api';
-import { ANSWER_STORE, type Answer, type AnswerKind, cachedAnswer } from '../core/analysis/cached-answer';
+import { ANSWER_STORE, type Answer, type AnswerKind, cachedAnswer } from '../core/offline-cache';
 
 /** How many recent kicks the Player file loads for its table (the server allows up to 1000). */
 export const RECENT_KICKS_LIMIT = 500;

@@ -23,7 +23,7 @@ import {
   profileEntry,
   progressWeek,
 } from '../core/analysis/spec-fixtures';
-import { ANSWER_STORE, MemoryAnswerStore } from '../core/analysis/cached-answer';
+import { ANSWER_STORE, MemoryAnswerStore } from '../core/offline-cache';
 import { PlayerFile } from './player-file';
 
 const ADA = FIXTURE_IDS.playerAda;

@@ -1,12 +1,14 @@
 import { ChangeDetectionStrategy, Component, computed, effect, input, viewChild, inject } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, ReactiveFormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatPaginator, MatPaginatorModule } from '@angular/material/paginator';
 import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableDataSource, MatTableModule } from '@angular/material/table';
+import { RouterLink } from '@angular/router';
 import type { QuantityFormat } from '../../../shared/quantity-format';
 import type { CarryBasis, PlayerKick } from '../../../shared/schemas/analysis';
 import { OUTCOME_LABELS, TECHNIQUE_LABELS, backspinLabel, sidespinLabel } from '../../../shared/vocabulary';
@@ -25,12 +27,14 @@ export interface KickRow {
   readonly carry: string;
   readonly lateral: string;
   readonly spin: string;
+  /** The measured launch in words with its source ("video: 24.3 m/s, 11.8°"), or "–". */
+  readonly measured: string;
 }
 
 const WHEN: Intl.DateTimeFormatOptions = { weekday: 'short', day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' };
 
 /** Column ids in display order. */
-export const KICK_COLUMNS = ['recordedAt', 'technique', 'target', 'outcome', 'carry', 'lateral', 'spin'] as const;
+export const KICK_COLUMNS = ['recordedAt', 'technique', 'target', 'outcome', 'carry', 'lateral', 'spin', 'measured'] as const;
 
 /** A kick as the table shows it, on the chosen carry basis. */
 export function kickRow(kick: PlayerKick, basis: CarryBasis, f: QuantityFormat): KickRow {
@@ -44,6 +48,11 @@ export function kickRow(kick: PlayerKick, basis: CarryBasis, f: QuantityFormat):
     .filter((s) => s !== null)
     .join(', ');
   const carryM = basis === 'still-air' ? kick.stillAirCarryM : kick.carryM;
+  const launch = [
+    kick.measuredSpeedMs === null ? null : `${f.number(kick.measuredSpeedMs)} m/s`,
+    kick.launchAngleDeg === null ? null : `${f.number(kick.launchAngleDeg)}°`,
+  ].filter((s) => s !== null);
+  const measured = launch.length ? `${kick.measuredSource ?? 'device'}: ${launch.join(', ')}` : '–';
   return {
     kick,
     when: f.dateTime(kick.recordedAt, WHEN),
@@ -54,6 +63,7 @@ export function kickRow(kick: PlayerKick, basis: CarryBasis, f: QuantityFormat):
     carry: f.distance(carryM),
     lateral,
     spin,
+    measured,
   };
 }
 
@@ -64,7 +74,17 @@ export function kickRow(kick: PlayerKick, basis: CarryBasis, f: QuantityFormat):
  */
 @Component({
   selector: 'll-recent-kicks',
-  imports: [MatFormFieldModule, MatIconModule, MatInputModule, MatPaginatorModule, MatSortModule, MatTableModule, ReactiveFormsModule],
+  imports: [
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatPaginatorModule,
+    MatSortModule,
+    MatTableModule,
+    ReactiveFormsModule,
+    RouterLink,
+  ],
   template: `
     <mat-form-field appearance="outline" class="recent-kicks__filter" subscriptSizing="dynamic">
       <mat-label>Filter kicks</mat-label>
@@ -103,6 +123,17 @@ export function kickRow(kick: PlayerKick, basis: CarryBasis, f: QuantityFormat):
           <th mat-header-cell *matHeaderCellDef mat-sort-header>Spin</th>
           <td mat-cell *matCellDef="let row">{{ row.spin }}</td>
         </ng-container>
+        <ng-container matColumnDef="measured">
+          <th mat-header-cell *matHeaderCellDef>Measured launch</th>
+          <td mat-cell *matCellDef="let row">
+            {{ row.measured }}
+            @if (canMeasure()) {
+              <a mat-button [routerLink]="['/measure', row.kick.id]" [attr.aria-label]="'Measure from video: kick of ' + row.when">
+                <mat-icon aria-hidden="true">videocam</mat-icon> Measure
+              </a>
+            }
+          </td>
+        </ng-container>
         <tr mat-header-row *matHeaderRowDef="columns; sticky: true"></tr>
         <tr mat-row *matRowDef="let row; columns: columns"></tr>
         <tr class="mat-mdc-row" *matNoDataRow>
@@ -113,6 +144,11 @@ export function kickRow(kick: PlayerKick, basis: CarryBasis, f: QuantityFormat):
       </table>
     </div>
     <mat-paginator [pageSizeOptions]="[10, 25, 50]" [pageSize]="10" aria-label="Pages of kicks" />
+    @if (measuredCounts(); as m) {
+      <p class="recent-kicks__note" data-testid="measured-count">
+        Measured launches in this list: {{ m.video }} from video, {{ m.device }} from a device, of {{ kicks().length }}.
+      </p>
+    }
     @if (total() > kicks().length) {
       <p class="recent-kicks__note">Showing the latest {{ kicks().length }} of {{ total() }} kicks.</p>
     }
@@ -160,6 +196,8 @@ export class RecentKicks {
   readonly total = input(0);
   /** Which carry to show. */
   readonly basis = input<CarryBasis>('logged');
+  /** Whether each kick offers "Measure from video" (staff only: the route is theirs). */
+  readonly canMeasure = input(false);
 
   protected readonly columns = [...KICK_COLUMNS];
   protected readonly filter = new FormControl('', { nonNullable: true });
@@ -170,6 +208,13 @@ export class RecentKicks {
   private readonly paginator = viewChild.required(MatPaginator);
   /** The club's formatter (distance unit, locale). */
   private readonly fmt = inject(ClubFormat).format;
+  /** How many of the listed kicks carry a measured launch, by source; null when none do. */
+  protected readonly measuredCounts = computed(() => {
+    const measured = this.kicks().filter((k) => k.measuredSpeedMs !== null || k.launchAngleDeg !== null);
+    if (measured.length === 0) return null;
+    const video = measured.filter((k) => k.measuredSource === 'video').length;
+    return { video, device: measured.length - video };
+  });
   private readonly rows = computed(() => this.kicks().map((k) => kickRow(k, this.basis(), this.fmt())));
 
   constructor() {
@@ -195,7 +240,10 @@ export class RecentKicks {
       }
     };
     this.dataSource.filterPredicate = (row, filter) =>
-      [row.when, row.technique, row.target, row.outcome, row.lateral, row.spin, row.carry].join(' ').toLowerCase().includes(filter);
+      [row.when, row.technique, row.target, row.outcome, row.lateral, row.spin, row.carry, row.measured]
+        .join(' ')
+        .toLowerCase()
+        .includes(filter);
     effect(() => {
       this.dataSource.data = this.rows();
     });

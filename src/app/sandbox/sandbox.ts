@@ -13,7 +13,7 @@ import { WALL_DISTANCE_M, type Flight } from '../../../shared/flight';
 import { FlightEngine } from '../flight/flight-engine';
 import { latestWhenIdle } from '../flight/latest-when-idle';
 import { SliderField } from '../ui/slider-field';
-import { TrajectoryChart, type TrajectoryTrace } from '../ui/trajectory-chart';
+import { TrajectoryChart, type TrajectoryTrace } from '../ui/charts/trajectory-chart';
 import {
   CONDITION_FIELDS,
   DEFAULT_KICK,
@@ -31,6 +31,7 @@ import {
   type SandboxState,
 } from './sandbox-kick';
 import { figureRows, sideSummary, topSummary, type FigureRow } from './sandbox-text';
+import { ClubFormat } from '../core/club-format';
 
 /** The latest computed flights with the inputs they belong to, or why they could not be computed. */
 type SandboxRun =
@@ -65,6 +66,7 @@ export class Sandbox {
   private readonly route = inject(ActivatedRoute);
   private readonly clipboard = inject(Clipboard);
   private readonly snackBar = inject(MatSnackBar);
+  private readonly fmt = inject(ClubFormat).format;
 
   protected readonly launchFields = LAUNCH_FIELDS;
   protected readonly conditionFields = CONDITION_FIELDS;
@@ -127,9 +129,11 @@ export class Sandbox {
     wallHeightM: REFERENCE_WALL_HEIGHT_M,
     goalAtM: this.readyRun()?.goalDistanceM ?? this.goalDistanceM(),
   }));
-  protected readonly sideSummary = computed(() => sideSummary(this.figures(), this.readyRun()?.goalDistanceM ?? this.goalDistanceM()));
-  protected readonly topSummary = computed(() => topSummary(this.readyRun()?.flights ?? []));
-  protected readonly rows = computed<readonly FigureRow[]>(() => figureRows(this.figures()));
+  protected readonly sideSummary = computed(() =>
+    sideSummary(this.figures(), this.readyRun()?.goalDistanceM ?? this.goalDistanceM(), this.fmt()),
+  );
+  protected readonly topSummary = computed(() => topSummary(this.readyRun()?.flights ?? [], this.fmt()));
+  protected readonly rows = computed<readonly FigureRow[]>(() => figureRows(this.figures(), this.fmt()));
   protected readonly columns = computed(() => ['figure', ...this.figures().map((_, i) => KICK_NAMES[i]!)]);
 
   constructor() {

@@ -3,7 +3,10 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { AppUpdate } from '../core/app-update';
 
-/** The "new version ready" offer under the bar: reload now, or later (the next start loads it anyway). */
+/**
+ * The "new version ready" offer under the bar: reload now, or later (the next start loads it anyway). While a
+ * repetition is half entered only a quiet note says a version waits, so nothing moves under the coach's thumb.
+ */
 @Component({
   selector: 'll-update-banner',
   imports: [MatButtonModule, MatIconModule],
@@ -15,6 +18,11 @@ import { AppUpdate } from '../core/app-update';
         <button mat-button type="button" (click)="update.dismiss()">Later</button>
         <button mat-flat-button type="button" (click)="update.reload()">Reload now</button>
       </div>
+    } @else if (update.held()) {
+      <p class="update update--held" role="status">
+        <mat-icon aria-hidden="true">schedule</mat-icon>
+        A new version of Loftline is ready; it will be offered once this repetition is saved.
+      </p>
     }
   `,
   styles: `
@@ -26,6 +34,11 @@ import { AppUpdate } from '../core/app-update';
       padding: 8px 16px;
       background: var(--mat-sys-secondary-container);
       color: var(--mat-sys-on-secondary-container);
+    }
+    .update--held {
+      margin: 0;
+      padding-block: 4px;
+      font: var(--mat-sys-body-small);
     }
     .update__text {
       flex: 1 1 220px;

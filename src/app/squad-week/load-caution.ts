@@ -6,10 +6,14 @@ import { ClubFormat } from '../core/club-format';
 
 const DAY: Intl.DateTimeFormatOptions = { weekday: 'short', day: 'numeric', month: 'short' };
 
+/** A player's sessions over the limit in words, e.g. "46 on Tue 4 Mar, 41 on Thu 6 Mar" (days in the club's locale). */
+export function loadSessions(flags: SquadWeekPlayer['loadFlags'], fmt: QuantityFormat): string {
+  return flags.map((f) => `${f.reps} on ${fmt.dateTime(f.startedAt, DAY)}`).join(', ');
+}
+
 /** One player's sessions over the limit in words, e.g. "Bo Adeyemi (46 on Tue 4 Mar)" (days in the club's locale). */
 export function loadLine(player: Pick<SquadWeekPlayer, 'displayName' | 'loadFlags'>, fmt: QuantityFormat): string {
-  const sessions = player.loadFlags.map((f) => `${f.reps} on ${fmt.dateTime(f.startedAt, DAY)}`).join(', ');
-  return `${player.displayName} (${sessions})`;
+  return `${player.displayName} (${loadSessions(player.loadFlags, fmt)})`;
 }
 
 /**

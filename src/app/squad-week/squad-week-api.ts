@@ -6,7 +6,7 @@ import type { SquadSummary } from '../../../shared/schemas/squads';
 import type { Technique } from '../../../shared/schemas/sync';
 import { AuthSession } from '../core/auth/auth-session';
 import { SquadApi } from '../core/squad-api';
-import { ANSWER_STORE, type Answer, type AnswerKind, cachedAnswer } from '../core/analysis/cached-answer';
+import { ANSWER_STORE, type Answer, type AnswerKind, cachedAnswer } from '../core/offline-cache';
 
 const ISO_DATE = /^\d{4}-\d{2}-\d{2}$/;
 

@@ -14,7 +14,7 @@ import type { Technique } from '../../../shared/schemas/sync';
 import { describeNextTarget, drillLink, type NextTargetResult } from '../core/analysis/next-target';
 import { TECHNIQUE_LABELS } from '../../../shared/vocabulary';
 import { type SquadRow, changeMark, csvFileName, squadWeekCsv } from './squad-week-rows';
-import { TextDownload } from './text-download';
+import { FileDownload } from '../core/file-download';
 import { ClubFormat } from '../core/club-format';
 
 /** Column ids in display order. */
@@ -60,7 +60,7 @@ export const SQUAD_COLUMNS = [
 export class SquadWeekTable {
   /** The club's formatter (distance unit, locale). */
   protected readonly fmt = inject(ClubFormat).format;
-  private readonly download = inject(TextDownload);
+  private readonly download = inject(FileDownload);
 
   /** The players' lines. */
   readonly rows = input.required<readonly SquadRow[]>();
@@ -138,7 +138,7 @@ export class SquadWeekTable {
 
   protected exportCsv(): void {
     const csv = squadWeekCsv(this.shownRows(), this.technique(), this.basis(), this.fmt().distanceUnit);
-    this.download.save(csvFileName(this.squadName(), this.weekStart(), this.technique()), csv);
+    this.download.saveText(csvFileName(this.squadName(), this.weekStart(), this.technique()), csv);
   }
 
   protected bestLabel(row: SquadRow): string {

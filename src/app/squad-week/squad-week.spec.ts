@@ -15,9 +15,9 @@ import type { CarryBasis } from '../../../shared/schemas/analysis';
 import { BROWSER_STORAGE } from '../core/browser-storage';
 import { signedInStorage, until } from '../core/spec-support';
 import { FIXTURE_IDS, FIXTURE_SQUAD, fixtureProfile, fixtureUser, fixtureWeek, profileEntry } from '../core/analysis/spec-fixtures';
-import { ANSWER_STORE, MemoryAnswerStore } from '../core/analysis/cached-answer';
+import { ANSWER_STORE, MemoryAnswerStore } from '../core/offline-cache';
 import { SquadWeek } from './squad-week';
-import { TextDownload } from './text-download';
+import { FileDownload } from '../core/file-download';
 import { REVIEW_CLOCK } from './week-dates';
 
 const SQUAD = FIXTURE_IDS.squad;
@@ -40,7 +40,7 @@ describe('SquadWeek', () => {
         { provide: ANSWER_STORE, useValue: new MemoryAnswerStore() },
         // A Wednesday: the week under way starts on 10 Mar, the last complete one on 3 Mar.
         { provide: REVIEW_CLOCK, useValue: () => new Date('2025-03-12T10:00:00Z') },
-        { provide: TextDownload, useValue: { save: (name: string, text: string) => saved.push({ name, text }) } },
+        { provide: FileDownload, useValue: { saveText: (name: string, text: string) => saved.push({ name, text }) } },
       ],
     });
     backend = TestBed.inject(HttpTestingController);

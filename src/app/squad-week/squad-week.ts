@@ -13,13 +13,14 @@ import { Subject, combineLatest, of, startWith, switchMap } from 'rxjs';
 import type { Technique } from '../../../shared/schemas/sync';
 import { LOADING, type LoadState } from '../core/load-state';
 import type { SquadWeek as SquadWeekAnswer } from '../../../shared/schemas/analysis';
-import type { Answer } from '../core/analysis/cached-answer';
+import type { Answer } from '../core/offline-cache';
 import { oldestCachedAt, readyValue, toAnswerState, updatedLabel } from '../core/analysis/answer-state';
 import { CarryBasisChoice } from '../ui/carry-basis-choice';
 import { CalibrationChart, type CalibrationMark } from '../ui/charts/calibration-chart';
 import { TECHNIQUES, TECHNIQUE_LABELS, isTechnique } from '../../../shared/vocabulary';
 import { ZoneRateChart } from '../ui/charts/zone-rate-chart';
 import { LoadFailure } from '../ui/load-failure';
+import { PlayerSheets } from './player-sheets';
 import { LoadCaution } from './load-caution';
 import { SquadNextTargets } from './squad-next-targets';
 import { SquadWeekApi } from './squad-week-api';
@@ -51,6 +52,7 @@ const NO_TARGETS: NextTargets = { byPlayer: new Map(), otherwise: { status: 'com
     DigestRun,
     LoadCaution,
     LoadFailure,
+    PlayerSheets,
     SquadWeekTable,
     WeekPicker,
     ZoneRateChart,
@@ -61,7 +63,7 @@ const NO_TARGETS: NextTargets = { byPlayer: new Map(), otherwise: { status: 'com
 })
 export class SquadWeek {
   /** The club's formatter (distance unit, locale). */
-  private readonly fmt = inject(ClubFormat).format;
+  protected readonly fmt = inject(ClubFormat).format;
   /** Whether the signed-in user may send the weekly digests now (admins and head coaches). */
   private readonly auth = inject(AuthSession);
   protected readonly canSendDigests = computed(() => ['admin', 'head_coach'].includes(this.auth.role() ?? ''));

@@ -3,7 +3,7 @@ import { Observable, OperatorFunction, catchError, map, of, startWith } from 'rx
 import { describeApiError } from '../api-error';
 import type { LoadState } from '../load-state';
 import { LOADING } from '../load-state';
-import type { Answer } from './cached-answer';
+import type { Answer } from '../offline-cache';
 
 /**
  * Like `toLoadState`, but an error that is not an HTTP failure (e.g. "your account is not linked

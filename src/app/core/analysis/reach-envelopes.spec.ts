@@ -6,7 +6,7 @@ import { BROWSER_STORAGE } from '../browser-storage';
 import { signedInStorage } from '../spec-support';
 import { FLIGHT_WORKER_FACTORY, FlightEngine } from '../../flight/flight-engine';
 import { FIXTURE_IDS, fixtureProfile, fixtureUser, profileEntry } from './spec-fixtures';
-import { ANSWER_STORE, MemoryAnswerStore } from './cached-answer';
+import { ANSWER_STORE, MemoryAnswerStore } from '../offline-cache';
 import { ENVELOPE_SAMPLES, ENVELOPE_SEED, ReachEnvelopes, standardConditions } from './reach-envelopes';
 
 describe('ReachEnvelopes', () => {

@@ -13,7 +13,7 @@ import type { Technique } from '../../../../shared/schemas/sync';
 import { AuthSession } from '../auth/auth-session';
 import { ClubSettingsStore } from '../club-settings-store';
 import { FlightEngine } from '../../flight/flight-engine';
-import { ANSWER_STORE } from './cached-answer';
+import { ANSWER_STORE } from '../offline-cache';
 import { type NextTargetResult, bestTarget, nextTarget } from './next-target';
 
 /**

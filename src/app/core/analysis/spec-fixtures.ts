@@ -123,6 +123,7 @@ export function kick(n: number, technique: Technique, outcome: Outcome, carryM: 
     measuredSpeedMs: null,
     launchAngleDeg: null,
     measuredSpinRps: null,
+    measuredSource: null,
     hangTimeS: null,
   };
 }

@@ -1,7 +1,5 @@
+import { liveSignal } from '../live-signal';
 import { Injectable, computed, inject, type Injector, type Signal } from '@angular/core';
-import { toObservable, toSignal } from '@angular/core/rxjs-interop';
-import { liveQuery } from 'dexie';
-import { from, of, switchMap } from 'rxjs';
 import { LOFTLINE_DB, tableFor, type LoftlineDb } from '../loftline-db';
 import { AuthSession } from './auth-session';
 
@@ -82,8 +80,5 @@ export class DeviceHandover {
   private readonly userId = computed(() => this.session.user()?.id ?? null);
 
   /** Unsynced changes made here by users other than the signed-in one (not shown to them, not sent as them). */
-  readonly keptForOthers: Signal<number> = toSignal(
-    toObservable(this.userId).pipe(switchMap((id) => (id === null ? of(0) : from(liveQuery(() => othersEntries(this.db, id)))))),
-    { initialValue: 0 },
-  );
+  readonly keptForOthers: Signal<number> = liveSignal(this.userId, (id) => othersEntries(this.db, id), { whenNull: 0, initial: 0 });
 }

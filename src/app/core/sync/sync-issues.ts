@@ -1,7 +1,5 @@
+import { liveSignal } from '../live-signal';
 import { Injectable, Signal, inject } from '@angular/core';
-import { toObservable, toSignal } from '@angular/core/rxjs-interop';
-import { liveQuery } from 'dexie';
-import { from, of, switchMap } from 'rxjs';
 import { LocalWrites } from './local-writes';
 import { type ConflictNotice, LOFTLINE_DB, type OutboxEntry, tableFor } from '../loftline-db';
 import { type LocalRow, recordChange } from './outbox';
@@ -21,41 +19,29 @@ export class SyncIssues {
   private readonly writes = inject(LocalWrites);
 
   /** The user's rejected changes, oldest first. */
-  readonly rejected: Signal<OutboxEntry[]> = toSignal(
-    toObservable(this.queue.userId).pipe(
-      switchMap((id) =>
-        id === null ? of([]) : from(liveQuery(() => this.db.outbox.where('[userId+state]').equals([id, 'rejected']).sortBy('seq'))),
-      ),
-    ),
-    { initialValue: [] },
+  readonly rejected: Signal<OutboxEntry[]> = liveSignal(
+    this.queue.userId,
+    (id) => this.db.outbox.where('[userId+state]').equals([id, 'rejected']).sortBy('seq'),
+    { whenNull: [], initial: [] },
   );
 
   /** The user's unreviewed conflicts, newest first. */
-  readonly conflicts: Signal<ConflictNotice[]> = toSignal(
-    toObservable(this.queue.userId).pipe(
-      switchMap((id) =>
-        id === null ? of([]) : from(liveQuery(async () => (await this.db.conflicts.where('userId').equals(id).sortBy('at')).reverse())),
-      ),
-    ),
-    { initialValue: [] },
+  readonly conflicts: Signal<ConflictNotice[]> = liveSignal(
+    this.queue.userId,
+    async (id) => (await this.db.conflicts.where('userId').equals(id).sortBy('at')).reverse(),
+    { whenNull: [], initial: [] },
   );
 
   /** Outbox entries of one session, by row id, live (for per-entry sync marks). */
   liveSessionEntries(sessionId: Signal<string | null>): Signal<ReadonlyMap<string, OutboxEntry>> {
-    return toSignal(
-      toObservable(sessionId).pipe(
-        switchMap((id) =>
-          id === null
-            ? of(new Map<string, OutboxEntry>())
-            : from(
-                liveQuery(async () => {
-                  const entries = await this.db.outbox.where('sessionId').equals(id).sortBy('seq');
-                  return new Map(entries.map((e) => [e.entityId, e]));
-                }),
-              ),
-        ),
-      ),
-      { initialValue: new Map<string, OutboxEntry>() },
+    const none: ReadonlyMap<string, OutboxEntry> = new Map<string, OutboxEntry>();
+    return liveSignal(
+      sessionId,
+      async (id): Promise<ReadonlyMap<string, OutboxEntry>> => {
+        const entries = await this.db.outbox.where('sessionId').equals(id).sortBy('seq');
+        return new Map(entries.map((e) => [e.entityId, e]));
+      },
+      { whenNull: none, initial: none },
     );
   }
 

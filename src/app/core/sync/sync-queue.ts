@@ -1,7 +1,8 @@
+import { liveSignal } from '../live-signal';
 import { DOCUMENT } from '@angular/common';
 import { Injectable, InjectionToken, Signal, computed, inject, signal } from '@angular/core';
-import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
-import { Dexie, liveQuery } from 'dexie';
+import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
+import { Dexie } from 'dexie';
 import {
   EMPTY,
   Observable,
@@ -14,7 +15,6 @@ import {
   interval,
   map,
   merge,
-  of,
   switchMap,
   tap,
   timer,
@@ -354,8 +354,6 @@ export class SyncQueue {
 
   /** A live count (or other query) over the current user's rows, as a signal. */
   private forUser<T>(initial: T, query: (userId: string) => Promise<T>): Signal<T> {
-    return toSignal(toObservable(this.userId).pipe(switchMap((id) => (id === null ? of(initial) : from(liveQuery(() => query(id)))))), {
-      initialValue: initial,
-    });
+    return liveSignal(this.userId, query, { whenNull: initial, initial });
   }
 }

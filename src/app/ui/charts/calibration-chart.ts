@@ -1,17 +1,9 @@
-import {
-  ChangeDetectionStrategy,
-  Component,
-  ElementRef,
-  ViewEncapsulation,
-  afterRenderEffect,
-  computed,
-  input,
-  viewChild,
-  inject,
-} from '@angular/core';
-import { axisBottom, axisLeft, max, scaleLinear, scaleSqrt, select } from 'd3';
-import { drawWidth, injectChartWidth } from './chart-width';
-import { ClubFormat } from '../../core/club-format';
+import { ChangeDetectionStrategy, Component, ViewEncapsulation, computed, input } from '@angular/core';
+import { axisBottom, axisLeft, max, scaleLinear, scaleSqrt } from 'd3';
+import type { QuantityFormat } from '../../../../shared/quantity-format';
+import { chartFrame, drawAxis, drawBottomAxis, drawEmptyNote, drawGrid } from './chart-frame';
+import { ChartTable } from './chart-table';
+import { D3Chart } from './d3-chart';
 
 /** One player's predicted against observed hit rate over a week. */
 export interface CalibrationMark {
@@ -37,92 +29,52 @@ const MARGIN = { top: 12, right: 12, bottom: 40, left: 48 };
  */
 @Component({
   selector: 'll-calibration-chart',
+  imports: [ChartTable],
   template: `
     <svg #svg role="img" [attr.aria-label]="summary()"></svg>
-    <details class="ll-chart__alt">
-      <summary>Show as table</summary>
-      <div class="ll-chart__alt-scroll">
-        <table>
-          <thead>
-            <tr>
-              <th scope="col">Player</th>
-              <th scope="col">Repetitions</th>
-              <th scope="col">Predicted</th>
-              <th scope="col">Observed</th>
-            </tr>
-          </thead>
-          <tbody>
-            @for (row of rows(); track row.id) {
-              <tr>
-                <td>{{ row.label }}</td>
-                <td>{{ row.reps }}</td>
-                <td>{{ row.predicted }}</td>
-                <td>{{ row.observed }}</td>
-              </tr>
-            } @empty {
-              <tr>
-                <td colspan="4">No predictions for this week yet.</td>
-              </tr>
-            }
-          </tbody>
-        </table>
-      </div>
-    </details>
+    <ll-chart-table
+      [headers]="['Player', 'Repetitions', 'Predicted', 'Observed']"
+      [rows]="rows()"
+      empty="No predictions for this week yet."
+    />
   `,
   styleUrl: './calibration-chart.scss',
   encapsulation: ViewEncapsulation.None,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class CalibrationChart {
+export class CalibrationChart extends D3Chart {
   /** The dots. */
   readonly marks = input.required<readonly CalibrationMark[]>();
   /** One sentence read by screen readers in place of the drawing. */
   readonly summary = input.required<string>();
 
-  private readonly svg = viewChild.required<ElementRef<SVGSVGElement>>('svg');
-  private readonly width = injectChartWidth();
-  /** The club's formatter (locale). */
-  private readonly fmt = inject(ClubFormat).format;
-
   protected readonly rows = computed(() =>
     this.marks().map((m) => ({
-      id: m.id,
-      label: m.label,
-      reps: m.reps,
-      // Counts beside the rates: a 100 % from three kicks is not a 100 % from thirty.
-      predicted: `${this.fmt().percent(m.predicted)} (${this.fmt().fixed(m.predicted * m.reps, 1)} of ${m.reps})`,
-      observed: `${this.fmt().percent(m.observed)} (${Math.round(m.observed * m.reps)} of ${m.reps})`,
+      key: m.id,
+      cells: [
+        m.label,
+        m.reps,
+        // Counts beside the rates: a 100 % from three kicks is not a 100 % from thirty.
+        `${this.fmt().percent(m.predicted)} (${this.fmt().fixed(m.predicted * m.reps, 1)} of ${m.reps})`,
+        `${this.fmt().percent(m.observed)} (${Math.round(m.observed * m.reps)} of ${m.reps})`,
+      ],
     })),
   );
 
-  constructor() {
-    afterRenderEffect(() => this.draw(this.svg().nativeElement, this.marks(), drawWidth(this.width())));
-  }
-
-  private draw(element: SVGSVGElement, marks: readonly CalibrationMark[], available: number): void {
+  protected override draw(element: SVGSVGElement, available: number, f: QuantityFormat): void {
+    const marks = this.marks();
     const side = Math.min(available, MAX_SIDE_PX);
-    const svg = select(element);
-    svg.selectAll('*').remove();
-    svg.attr('viewBox', `0 0 ${side} ${side}`).attr('width', side).attr('height', side);
-    const innerW = Math.max(10, side - MARGIN.left - MARGIN.right);
-    const innerH = Math.max(10, side - MARGIN.top - MARGIN.bottom);
-    const g = svg.append('g').attr('transform', `translate(${MARGIN.left},${MARGIN.top})`);
+    const frame = chartFrame(element, side, side, MARGIN);
+    const { plot: g, innerW, innerH } = frame;
     const x = scaleLinear().domain([0, 1]).range([0, innerW]);
     const y = scaleLinear().domain([0, 1]).range([innerH, 0]);
     const r = scaleSqrt()
       .domain([0, Math.max(1, max(marks, (m) => m.reps) ?? 1)])
       .range([2, 11]);
-    const pct = (v: unknown): string => this.fmt().percent(Number(v));
-    g.append('g')
-      .attr('class', 'll-chart__grid')
-      .call(
-        axisLeft(y)
-          .ticks(5)
-          .tickSize(-innerW)
-          .tickFormat(() => ''),
-      );
-    g.append('g').attr('class', 'll-chart__axis').call(axisLeft(y).ticks(5).tickFormat(pct));
-    g.append('g').attr('class', 'll-chart__axis').attr('transform', `translate(0,${innerH})`).call(axisBottom(x).ticks(5).tickFormat(pct));
+    const pct = (v: unknown): string => f.percent(Number(v));
+    drawGrid(frame, axisLeft(y).ticks(5));
+    drawAxis(frame, axisLeft(y).ticks(5).tickFormat(pct));
+    drawBottomAxis(frame, axisBottom(x).ticks(5).tickFormat(pct));
     g.append('line').attr('class', 'll-calibration__diagonal').attr('x1', x(0)).attr('y1', y(0)).attr('x2', x(1)).attr('y2', y(1));
     g.append('text')
       .attr('class', 'll-chart__label')
@@ -136,12 +88,7 @@ export class CalibrationChart {
       .attr('text-anchor', 'middle')
       .text('Observed hit rate');
     if (marks.length === 0) {
-      g.append('text')
-        .attr('class', 'll-chart__empty')
-        .attr('x', innerW / 2)
-        .attr('y', innerH / 2)
-        .attr('text-anchor', 'middle')
-        .text('No predictions yet');
+      drawEmptyNote(frame, 'No predictions yet');
       return;
     }
     g.selectAll('circle.ll-calibration__point')

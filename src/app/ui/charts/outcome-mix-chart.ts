@@ -1,20 +1,12 @@
-import {
-  ChangeDetectionStrategy,
-  Component,
-  ElementRef,
-  ViewEncapsulation,
-  afterRenderEffect,
-  computed,
-  input,
-  viewChild,
-  inject,
-} from '@angular/core';
-import { axisBottom, axisLeft, scaleBand, scaleLinear, select } from 'd3';
+import { ChangeDetectionStrategy, Component, ViewEncapsulation, computed, input } from '@angular/core';
+import { axisBottom, axisLeft, scaleBand, scaleLinear } from 'd3';
+import type { QuantityFormat } from '../../../../shared/quantity-format';
 import type { Outcome } from '../../../../shared/schemas/sync';
-import { ClubFormat } from '../../core/club-format';
-import { weekLabel } from './chart-format';
-import { drawWidth, injectChartWidth } from './chart-width';
 import { OUTCOMES, OUTCOME_LABELS } from '../../../../shared/vocabulary';
+import { weekLabel } from './chart-format';
+import { chartFrame, drawAxis, drawBottomAxis, drawEmptyNote } from './chart-frame';
+import { ChartTable } from './chart-table';
+import { D3Chart } from './d3-chart';
 
 /** One week of outcomes: how many repetitions, and the share (0..1) of each outcome. */
 export interface OutcomeWeek {
@@ -42,6 +34,7 @@ const MARGIN = { top: 4, right: 12, bottom: 24, left: 56 };
  */
 @Component({
   selector: 'll-outcome-mix-chart',
+  imports: [ChartTable],
   template: `
     <svg #svg role="img" [attr.aria-label]="summary()"></svg>
     <ul class="ll-chart__legend" aria-hidden="true">
@@ -49,43 +42,13 @@ const MARGIN = { top: 4, right: 12, bottom: 24, left: 56 };
         <li><span class="ll-chart__swatch" [style.background]="'var(--ll-outcome-' + outcome + ')'"></span>{{ labels[outcome] }}</li>
       }
     </ul>
-    <details class="ll-chart__alt">
-      <summary>Show as table</summary>
-      <div class="ll-chart__alt-scroll">
-        <table>
-          <thead>
-            <tr>
-              <th scope="col">Week of</th>
-              <th scope="col">Reps</th>
-              @for (outcome of outcomes; track outcome) {
-                <th scope="col">{{ labels[outcome] }}</th>
-              }
-            </tr>
-          </thead>
-          <tbody>
-            @for (row of rows(); track row.weekStart) {
-              <tr>
-                <td>{{ row.week }}</td>
-                <td>{{ row.reps }}</td>
-                @for (cell of row.cells; track $index) {
-                  <td>{{ cell }}</td>
-                }
-              </tr>
-            } @empty {
-              <tr>
-                <td [attr.colspan]="outcomes.length + 2">No weeks with data.</td>
-              </tr>
-            }
-          </tbody>
-        </table>
-      </div>
-    </details>
+    <ll-chart-table [headers]="headers" [rows]="rows()" empty="No weeks with data." />
   `,
   styleUrl: './outcome-mix-chart.scss',
   encapsulation: ViewEncapsulation.None,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class OutcomeMixChart {
+export class OutcomeMixChart extends D3Chart {
   /** The weeks, oldest first (drawn top to bottom). */
   readonly weeks = input.required<readonly OutcomeWeek[]>();
   /** One sentence read by screen readers in place of the drawing. */
@@ -93,39 +56,22 @@ export class OutcomeMixChart {
 
   protected readonly outcomes = OUTCOMES;
   protected readonly labels = OUTCOME_LABELS;
-  private readonly svg = viewChild.required<ElementRef<SVGSVGElement>>('svg');
-  private readonly width = injectChartWidth();
-  /** The club's formatter (locale of dates and numbers). */
-  private readonly fmt = inject(ClubFormat).format;
+  protected readonly headers = ['Week of', 'Reps', ...OUTCOMES.map((o) => OUTCOME_LABELS[o])];
 
   protected readonly rows = computed(() =>
     this.weeks().map((w) => ({
-      weekStart: w.weekStart,
-      week: weekLabel(w.weekStart, this.fmt()),
-      reps: w.reps,
-      cells: OUTCOMES.map((o) => `${Math.round((w.share[o] ?? 0) * 100)} %`),
+      key: w.weekStart,
+      cells: [weekLabel(w.weekStart, this.fmt()), w.reps, ...OUTCOMES.map((o) => this.fmt().percent(w.share[o] ?? 0))],
     })),
   );
 
-  constructor() {
-    afterRenderEffect(() => this.draw(this.svg().nativeElement, this.weeks(), drawWidth(this.width())));
-  }
-
-  private draw(element: SVGSVGElement, weeks: readonly OutcomeWeek[], width: number): void {
-    const svg = select(element);
-    svg.selectAll('*').remove();
+  protected override draw(element: SVGSVGElement, width: number, f: QuantityFormat): void {
+    const weeks = this.weeks();
     const height = MARGIN.top + MARGIN.bottom + Math.max(1, weeks.length) * ROW_PX;
-    svg.attr('viewBox', `0 0 ${width} ${height}`).attr('width', width).attr('height', height);
-    const innerW = Math.max(10, width - MARGIN.left - MARGIN.right);
-    const innerH = height - MARGIN.top - MARGIN.bottom;
-    const g = svg.append('g').attr('transform', `translate(${MARGIN.left},${MARGIN.top})`);
+    const frame = chartFrame(element, width, height, MARGIN);
+    const { plot: g, innerW, innerH } = frame;
     if (weeks.length === 0) {
-      g.append('text')
-        .attr('class', 'll-chart__empty')
-        .attr('x', innerW / 2)
-        .attr('y', innerH / 2 + 4)
-        .attr('text-anchor', 'middle')
-        .text('No weeks with data yet');
+      drawEmptyNote(frame, 'No weeks with data yet', 4);
       return;
     }
     const y = scaleBand<string>()
@@ -144,22 +90,19 @@ export class OutcomeMixChart {
         start += share;
       }
     }
-    g.append('g')
-      .attr('class', 'll-chart__axis')
-      .call(
-        axisLeft(y)
-          .tickSize(0)
-          .tickPadding(6)
-          .tickFormat((d) => weekLabel(d, this.fmt())),
-      );
-    g.append('g')
-      .attr('class', 'll-chart__axis')
-      .attr('transform', `translate(0,${innerH})`)
-      .call(
-        axisBottom(x)
-          .ticks(Math.min(5, Math.floor(innerW / 60)))
-          .tickFormat((v) => this.fmt().percent(Number(v))),
-      );
+    drawAxis(
+      frame,
+      axisLeft(y)
+        .tickSize(0)
+        .tickPadding(6)
+        .tickFormat((d) => weekLabel(d, f)),
+    );
+    drawBottomAxis(
+      frame,
+      axisBottom(x)
+        .ticks(Math.min(5, Math.floor(innerW / 60)))
+        .tickFormat((v) => f.percent(Number(v))),
+    );
     g.selectAll('rect.ll-outcome__segment')
       .data(segments)
       .join('rect')
@@ -169,9 +112,6 @@ export class OutcomeMixChart {
       .attr('y', (s) => y(s.weekStart) ?? 0)
       .attr('height', y.bandwidth())
       .append('title')
-      .text(
-        (s) =>
-          `Week of ${weekLabel(s.weekStart, this.fmt())}: ${OUTCOME_LABELS[s.outcome]} ${Math.round(s.share * 100)} % of ${s.reps} reps`,
-      );
+      .text((s) => `Week of ${weekLabel(s.weekStart, f)}: ${OUTCOME_LABELS[s.outcome]} ${f.percent(s.share)} of ${s.reps} reps`);
   }
 }

@@ -1,19 +1,10 @@
-import {
-  ChangeDetectionStrategy,
-  Component,
-  ElementRef,
-  ViewEncapsulation,
-  afterRenderEffect,
-  computed,
-  inject,
-  input,
-  viewChild,
-} from '@angular/core';
-import { area, axisBottom, axisLeft, extent, line, max, min, scaleLinear, scaleUtc, select } from 'd3';
-import { ClubFormat } from '../../core/club-format';
-import { type ValueKind, formatRange, formatValue, scaleValue, weekDate, weekLabel } from './chart-format';
-import { drawWidth, injectChartWidth } from './chart-width';
+import { ChangeDetectionStrategy, Component, ViewEncapsulation, computed, input } from '@angular/core';
+import { area, axisBottom, axisLeft, extent, line, max, min, scaleLinear, scaleUtc } from 'd3';
 import type { QuantityFormat } from '../../../../shared/quantity-format';
+import { type ValueKind, formatRange, formatValue, scaleValue, weekDate, weekLabel } from './chart-format';
+import { chartFrame, drawAxis, drawBottomAxis, drawEmptyNote, drawGrid } from './chart-frame';
+import { ChartTable } from './chart-table';
+import { D3Chart } from './d3-chart';
 
 /** One week of a progress line: the value, the band around it (both ends or neither), and the reps behind it. */
 export interface ProgressPoint {
@@ -36,43 +27,16 @@ const MARGIN = { top: 12, right: 16, bottom: 28, left: 48 };
  */
 @Component({
   selector: 'll-progress-chart',
+  imports: [ChartTable],
   template: `
     <svg #svg role="img" [attr.aria-label]="summary()"></svg>
-    <details class="ll-chart__alt">
-      <summary>Show as table</summary>
-      <div class="ll-chart__alt-scroll">
-        <table>
-          <thead>
-            <tr>
-              <th scope="col">Week of</th>
-              <th scope="col">{{ valueLabel() }}</th>
-              <th scope="col">{{ bandLabel() }}</th>
-              <th scope="col">Repetitions</th>
-            </tr>
-          </thead>
-          <tbody>
-            @for (row of rows(); track row.weekStart) {
-              <tr>
-                <td>{{ row.week }}</td>
-                <td>{{ row.value }}</td>
-                <td>{{ row.band }}</td>
-                <td>{{ row.reps }}</td>
-              </tr>
-            } @empty {
-              <tr>
-                <td colspan="4">No weeks with data.</td>
-              </tr>
-            }
-          </tbody>
-        </table>
-      </div>
-    </details>
+    <ll-chart-table [headers]="['Week of', valueLabel(), bandLabel(), 'Repetitions']" [rows]="rows()" empty="No weeks with data." />
   `,
   styleUrl: './progress-chart.scss',
   encapsulation: ViewEncapsulation.None,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class ProgressChart {
+export class ProgressChart extends D3Chart {
   /** The weeks to draw, oldest first. */
   readonly points = input.required<readonly ProgressPoint[]>();
   /** What the line shows, e.g. "Median carry". */
@@ -86,43 +50,28 @@ export class ProgressChart {
   /** One sentence read by screen readers in place of the drawing. */
   readonly summary = input.required<string>();
 
-  private readonly svg = viewChild.required<ElementRef<SVGSVGElement>>('svg');
-  private readonly width = injectChartWidth();
-  /** The club's formatter: metres are drawn and labelled in its unit, dates in its locale. */
-  private readonly fmt = inject(ClubFormat).format;
-
   protected readonly rows = computed(() =>
     this.points().map((p) => ({
-      weekStart: p.weekStart,
-      week: weekLabel(p.weekStart, this.fmt()),
-      value: formatValue(p.value, this.kind(), this.fmt()),
-      band: formatRange(p.low, p.high, this.kind(), this.fmt()),
-      reps: p.reps,
+      key: p.weekStart,
+      cells: [
+        weekLabel(p.weekStart, this.fmt()),
+        formatValue(p.value, this.kind(), this.fmt()),
+        formatRange(p.low, p.high, this.kind(), this.fmt()),
+        p.reps,
+      ],
     })),
   );
 
-  constructor() {
-    afterRenderEffect(() => this.draw(this.svg().nativeElement, this.points(), drawWidth(this.width()), this.fmt()));
-  }
-
-  private draw(element: SVGSVGElement, given: readonly ProgressPoint[], width: number, f: QuantityFormat): void {
+  protected override draw(element: SVGSVGElement, width: number, f: QuantityFormat): void {
+    const given = this.points();
     const kind = this.kind();
     // Drawn in the club's unit, so the axis ticks fall on round yards (or metres).
     const inUnit = (v: number | null): number | null => (v === null ? null : scaleValue(v, kind, f));
     const points = given.map((p) => ({ ...p, value: scaleValue(p.value, kind, f), low: inUnit(p.low), high: inUnit(p.high) }));
-    const svg = select(element);
-    svg.selectAll('*').remove();
-    svg.attr('viewBox', `0 0 ${width} ${HEIGHT_PX}`).attr('width', width).attr('height', HEIGHT_PX);
-    const innerW = Math.max(10, width - MARGIN.left - MARGIN.right);
-    const innerH = HEIGHT_PX - MARGIN.top - MARGIN.bottom;
-    const g = svg.append('g').attr('transform', `translate(${MARGIN.left},${MARGIN.top})`);
+    const frame = chartFrame(element, width, HEIGHT_PX, MARGIN);
+    const { plot: g, innerW, innerH } = frame;
     if (points.length === 0) {
-      g.append('text')
-        .attr('class', 'll-chart__empty')
-        .attr('x', innerW / 2)
-        .attr('y', innerH / 2)
-        .attr('text-anchor', 'middle')
-        .text('No weeks with data yet');
+      drawEmptyNote(frame, 'No weeks with data yet');
       return;
     }
     const dates = points.map((p) => weekDate(p.weekStart));
@@ -145,29 +94,19 @@ export class ProgressChart {
     const tickEvery = Math.max(1, Math.ceil(points.length / Math.max(1, Math.floor(innerW / 64))));
     const tickDates = dates.filter((_, i) => i % tickEvery === 0);
 
-    g.append('g')
-      .attr('class', 'll-chart__grid')
-      .call(
-        axisLeft(y)
-          .ticks(5)
-          .tickSize(-innerW)
-          .tickFormat(() => ''),
-      );
-    g.append('g')
-      .attr('class', 'll-chart__axis')
-      .call(
-        axisLeft(y)
-          .ticks(5)
-          .tickFormat((v) => (kind === 'share' ? f.percent(Number(v)) : `${f.number(Number(v))} ${f.unit}`)),
-      );
-    g.append('g')
-      .attr('class', 'll-chart__axis')
-      .attr('transform', `translate(0,${innerH})`)
-      .call(
-        axisBottom(x)
-          .tickValues(tickDates)
-          .tickFormat((d) => weekLabel((d as Date).toISOString().slice(0, 10), f)),
-      );
+    drawGrid(frame, axisLeft(y).ticks(5));
+    drawAxis(
+      frame,
+      axisLeft(y)
+        .ticks(5)
+        .tickFormat((v) => (kind === 'share' ? f.percent(Number(v)) : `${f.number(Number(v))} ${f.unit}`)),
+    );
+    drawBottomAxis(
+      frame,
+      axisBottom(x)
+        .tickValues(tickDates)
+        .tickFormat((d) => weekLabel((d as Date).toISOString().slice(0, 10), f)),
+    );
 
     const band = area<ProgressPoint>()
       .defined((p) => p.low !== null && p.high !== null)

@@ -1,19 +1,10 @@
-import {
-  ChangeDetectionStrategy,
-  Component,
-  ElementRef,
-  ViewEncapsulation,
-  afterRenderEffect,
-  computed,
-  inject,
-  input,
-  viewChild,
-} from '@angular/core';
+import { ChangeDetectionStrategy, Component, ViewEncapsulation, computed, input } from '@angular/core';
 import { range, select } from 'd3';
 import type { DistributionSummary, LandingEllipse } from '../../../../shared/flight';
-import { ClubFormat } from '../../core/club-format';
+import type { QuantityFormat } from '../../../../shared/quantity-format';
 import { formatValue } from './chart-format';
-import { drawWidth, injectChartWidth } from './chart-width';
+import { ChartTable } from './chart-table';
+import { D3Chart } from './d3-chart';
 
 /** A target drawn on the diagram: a drill target the player has trained at, or the suggested next one. */
 export interface ReachTarget {
@@ -64,6 +55,7 @@ function absQuantile98(values: readonly number[]): number {
  */
 @Component({
   selector: 'll-reach-diagram',
+  imports: [ChartTable],
   template: `
     <svg #svg role="img" [attr.aria-label]="summary()"></svg>
     <ul class="ll-chart__legend" aria-hidden="true">
@@ -79,27 +71,13 @@ function absQuantile98(values: readonly number[]): number {
         <li><span class="ll-chart__swatch ll-reach__swatch--reliable"></span>Reliable reach</li>
       }
     </ul>
-    <details class="ll-chart__alt">
-      <summary>Show as table</summary>
-      <div class="ll-chart__alt-scroll">
-        <table>
-          <tbody>
-            @for (row of rows(); track row.label) {
-              <tr>
-                <th scope="row">{{ row.label }}</th>
-                <td>{{ row.value }}</td>
-              </tr>
-            }
-          </tbody>
-        </table>
-      </div>
-    </details>
+    <ll-chart-table [rows]="rows()" [rowHeaders]="true" />
   `,
   styleUrl: './reach-diagram.scss',
   encapsulation: ViewEncapsulation.None,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class ReachDiagram {
+export class ReachDiagram extends D3Chart {
   /** The envelope to draw. */
   readonly picture = input.required<ReachPicture>();
   /** Targets to draw on the aim line. */
@@ -108,11 +86,6 @@ export class ReachDiagram {
   readonly reliableReachM = input<number | null>(null);
   /** One sentence read by screen readers in place of the drawing. */
   readonly summary = input.required<string>();
-
-  private readonly svg = viewChild.required<ElementRef<SVGSVGElement>>('svg');
-  private readonly width = injectChartWidth();
-  /** The club's formatter: labels in its distance unit (the drawing itself is to scale in metres). */
-  private readonly fmt = inject(ClubFormat).format;
 
   protected readonly hasDrill = computed(() => this.targets().some((t) => t.kind === 'drill'));
   protected readonly hasNext = computed(() => this.targets().some((t) => t.kind === 'next'));
@@ -144,22 +117,14 @@ export class ReachDiagram {
         value: t.probability === null ? '–' : `${f.percent(t.probability)} predicted hits`,
       });
     }
-    return rows;
+    return rows.map((row) => ({ key: row.label, cells: [row.label, row.value] }));
   });
 
-  constructor() {
-    afterRenderEffect(() =>
-      this.draw(this.svg().nativeElement, this.picture(), this.targets(), this.reliableReachM(), drawWidth(this.width())),
-    );
-  }
-
-  private draw(
-    element: SVGSVGElement,
-    picture: ReachPicture,
-    targets: readonly ReachTarget[],
-    reliableReachM: number | null,
-    available: number,
-  ): void {
+  /** Draws to scale in metres; labels are in the club's unit. */
+  protected override draw(element: SVGSVGElement, available: number, f: QuantityFormat): void {
+    const picture = this.picture();
+    const targets = this.targets();
+    const reliableReachM = this.reliableReachM();
     const width = Math.min(available, MAX_DRAW_WIDTH_PX);
     const { xM, yM } = picture.cloud;
     const farthest = Math.max(
@@ -170,7 +135,6 @@ export class ReachDiagram {
       5,
     );
     // Rings fall on round distances in the club's unit (5 m or 5 yd apart); the drawing stays to scale.
-    const f = this.fmt();
     const unitsPerM = f.toUnit(1);
     const step = ringStep(farthest * unitsPerM);
     const forwardM = (Math.ceil((farthest * unitsPerM * 1.08) / step) * step) / unitsPerM;

@@ -1,18 +1,9 @@
-import {
-  ChangeDetectionStrategy,
-  Component,
-  ElementRef,
-  ViewEncapsulation,
-  afterRenderEffect,
-  computed,
-  input,
-  viewChild,
-  inject,
-} from '@angular/core';
-import { axisBottom, axisLeft, scaleBand, scaleLinear, select } from 'd3';
-import { drawWidth, injectChartWidth } from './chart-width';
+import { ChangeDetectionStrategy, Component, ViewEncapsulation, computed, input } from '@angular/core';
+import { axisBottom, axisLeft, scaleBand, scaleLinear } from 'd3';
 import type { QuantityFormat } from '../../../../shared/quantity-format';
-import { ClubFormat } from '../../core/club-format';
+import { chartFrame, drawAxis, drawBottomAxis, drawEmptyNote, drawGrid } from './chart-frame';
+import { ChartTable } from './chart-table';
+import { D3Chart } from './d3-chart';
 
 /** The hit rate of one band of target distance. */
 export interface ZoneRate {
@@ -55,116 +46,66 @@ export function bandSlots(zones: readonly ZoneRate[]): ZoneRate[] {
  */
 @Component({
   selector: 'll-zone-rate-chart',
+  imports: [ChartTable],
   template: `
     <svg #svg role="img" [attr.aria-label]="summary()"></svg>
-    <details class="ll-chart__alt">
-      <summary>Show as table</summary>
-      <div class="ll-chart__alt-scroll">
-        <table>
-          <thead>
-            <tr>
-              <th scope="col">Target distance</th>
-              <th scope="col">Repetitions</th>
-              <th scope="col">Hit rate</th>
-            </tr>
-          </thead>
-          <tbody>
-            @for (row of rows(); track row.band) {
-              <tr>
-                <td>{{ row.band }}</td>
-                <td>{{ row.reps }}</td>
-                <td>{{ row.hitRate }}</td>
-              </tr>
-            } @empty {
-              <tr>
-                <td colspan="3">No repetitions in this week.</td>
-              </tr>
-            }
-          </tbody>
-        </table>
-      </div>
-    </details>
+    <ll-chart-table [headers]="['Target distance', 'Repetitions', 'Hit rate']" [rows]="rows()" empty="No repetitions in this week." />
   `,
   styleUrl: './zone-rate-chart.scss',
   encapsulation: ViewEncapsulation.None,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class ZoneRateChart {
+export class ZoneRateChart extends D3Chart {
   /** The bands, nearest first. */
   readonly zones = input.required<readonly ZoneRate[]>();
   /** One sentence read by screen readers in place of the drawing. */
   readonly summary = input.required<string>();
 
-  private readonly svg = viewChild.required<ElementRef<SVGSVGElement>>('svg');
-  private readonly width = injectChartWidth();
-  /** The club's formatter (distance unit, locale). */
-  private readonly fmt = inject(ClubFormat).format;
-
   protected readonly rows = computed(() =>
-    this.zones().map((z) => ({ band: bandLabel(z, this.fmt()), reps: z.reps, hitRate: this.fmt().percent(z.hitRate) })),
+    this.zones().map((z) => {
+      const band = bandLabel(z, this.fmt());
+      return { key: band, cells: [band, z.reps, this.fmt().percent(z.hitRate)] };
+    }),
   );
 
-  constructor() {
-    afterRenderEffect(() => this.draw(this.svg().nativeElement, this.zones(), drawWidth(this.width())));
-  }
-
-  private draw(element: SVGSVGElement, zones: readonly ZoneRate[], width: number): void {
-    const svg = select(element);
-    svg.selectAll('*').remove();
-    svg.attr('viewBox', `0 0 ${width} ${HEIGHT_PX}`).attr('width', width).attr('height', HEIGHT_PX);
-    const innerW = Math.max(10, width - MARGIN.left - MARGIN.right);
-    const innerH = HEIGHT_PX - MARGIN.top - MARGIN.bottom;
-    const g = svg.append('g').attr('transform', `translate(${MARGIN.left},${MARGIN.top})`);
+  protected override draw(element: SVGSVGElement, width: number, f: QuantityFormat): void {
+    const zones = this.zones();
+    const frame = chartFrame(element, width, HEIGHT_PX, MARGIN);
+    const { plot: g, innerW, innerH } = frame;
     if (zones.length === 0) {
-      g.append('text')
-        .attr('class', 'll-chart__empty')
-        .attr('x', innerW / 2)
-        .attr('y', innerH / 2)
-        .attr('text-anchor', 'middle')
-        .text('No repetitions of this technique this week');
+      drawEmptyNote(frame, 'No repetitions of this technique this week');
       return;
     }
     // Every band from the nearest to the farthest, so a distance nobody trained at shows as a gap.
     const slots = bandSlots(zones);
     const x = scaleBand<string>()
-      .domain(slots.map((z) => bandLabel(z, this.fmt())))
+      .domain(slots.map((z) => bandLabel(z, f)))
       .range([0, innerW])
       .padding(0.2);
     const y = scaleLinear().domain([0, 1]).range([innerH, 0]);
-    g.append('g')
-      .attr('class', 'll-chart__grid')
-      .call(
-        axisLeft(y)
-          .ticks(4)
-          .tickSize(-innerW)
-          .tickFormat(() => ''),
-      );
-    g.append('g')
-      .attr('class', 'll-chart__axis')
-      .call(
-        axisLeft(y)
-          .ticks(4)
-          .tickFormat((v) => this.fmt().percent(Number(v))),
-      );
+    drawGrid(frame, axisLeft(y).ticks(4));
+    drawAxis(
+      frame,
+      axisLeft(y)
+        .ticks(4)
+        .tickFormat((v) => f.percent(Number(v))),
+    );
     const every = Math.max(1, Math.ceil(slots.length / Math.max(1, Math.floor(innerW / 56))));
-    g.append('g')
-      .attr('class', 'll-chart__axis')
-      .attr('transform', `translate(0,${innerH})`)
-      .call(axisBottom(x).tickValues(slots.map((z) => bandLabel(z, this.fmt())).filter((_, i) => i % every === 0)));
+    drawBottomAxis(frame, axisBottom(x).tickValues(slots.map((z) => bandLabel(z, f)).filter((_, i) => i % every === 0)));
     const bars = g.selectAll('g.ll-zone').data(zones).join('g').attr('class', 'll-zone');
     bars
       .append('rect')
       .attr('class', 'll-zone__bar')
-      .attr('x', (z) => x(bandLabel(z, this.fmt())) ?? 0)
+      .attr('x', (z) => x(bandLabel(z, f)) ?? 0)
       .attr('width', x.bandwidth())
       .attr('y', (z) => y(z.hitRate))
       .attr('height', (z) => innerH - y(z.hitRate))
       .append('title')
-      .text((z) => `${bandLabel(z, this.fmt())}: ${this.fmt().percent(z.hitRate)} of ${z.reps} reps on target`);
+      .text((z) => `${bandLabel(z, f)}: ${f.percent(z.hitRate)} of ${z.reps} reps on target`);
     bars
       .append('text')
       .attr('class', 'll-chart__label ll-zone__reps')
-      .attr('x', (z) => (x(bandLabel(z, this.fmt())) ?? 0) + x.bandwidth() / 2)
+      .attr('x', (z) => (x(bandLabel(z, f)) ?? 0) + x.bandwidth() / 2)
       .attr('y', (z) => y(z.hitRate) - 4)
       .attr('text-anchor', 'middle')
       .text((z) => (x.bandwidth() >= 22 ? `n ${z.reps}` : `${z.reps}`));

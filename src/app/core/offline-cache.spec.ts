@@ -1,6 +1,6 @@
 import { HttpErrorResponse } from '@angular/common/http';
 import { firstValueFrom, of, throwError } from 'rxjs';
-import { MemoryAnswerStore, cachedAnswer, isUnreachable } from './cached-answer';
+import { MemoryAnswerStore, cachedAnswer, isUnreachable } from './offline-cache';
 
 const offline = (): HttpErrorResponse => new HttpErrorResponse({ status: 0, statusText: 'Unknown Error', url: '/api/x' });
 const notFound = (): HttpErrorResponse =>

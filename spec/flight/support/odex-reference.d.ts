@@ -1,7 +1,9 @@
 /**
- * Local typings for the parts of odex 2.0.4 that Loftline uses. odex ships its TypeScript source
- * (src/odex.ts), which fails strict type-checking; importing it through this declaration keeps
- * `tsc --strict` clean while tsx and esbuild load the real CommonJS module via odex-solver.js.
+ * Local typings for the parts of odex 2.0.4 that the specs use: the flight model runs on our own port
+ * (shared/flight/extrapolation.ts), and spec/flight/extrapolation.spec.ts checks it against the
+ * package, step by step. odex ships its TypeScript source (src/odex.ts), which fails strict
+ * type-checking; importing it through this declaration keeps `tsc --strict` clean while tsx loads the
+ * real CommonJS module via odex-reference.js.
  */
 
 /** Right-hand side y' = f(x, y); odex copies the returned values immediately. */

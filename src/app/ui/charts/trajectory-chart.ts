@@ -1,18 +1,19 @@
 import {
   ChangeDetectionStrategy,
   Component,
-  DestroyRef,
   ElementRef,
   ViewEncapsulation,
   afterRenderEffect,
   computed,
   inject,
   input,
-  signal,
   viewChild,
 } from '@angular/core';
 import { axisBottom, axisLeft, line, max, scaleLinear, select, type Selection } from 'd3';
-import { GOAL_HEIGHT_M, GOAL_WIDTH_M } from '../../../shared/flight';
+import { GOAL_HEIGHT_M, GOAL_WIDTH_M } from '../../../../shared/flight';
+import type { QuantityFormat } from '../../../../shared/quantity-format';
+import { ClubFormat } from '../../core/club-format';
+import { injectChartWidth } from './chart-width';
 
 /** One trajectory: `x` along the aim, `y` height (side view) or lateral offset, + = left (top view). */
 export interface TrajectoryTrace {
@@ -164,20 +165,15 @@ export class TrajectoryChart {
   readonly summary = input.required<string>();
 
   private readonly svgRef = viewChild.required<ElementRef<SVGSVGElement>>('svg');
-  private readonly width = signal(0);
+  private readonly width = injectChartWidth();
+  /** The club's formatter (numbers in its locale; the axes stay in metres, as labelled). */
+  private readonly fmt = inject(ClubFormat).format;
   protected readonly height = computed(() => {
     const w = this.width() || 320;
     return this.view() === 'side' ? Math.round(Math.min(300, Math.max(170, w * 0.38))) : Math.round(Math.min(240, Math.max(140, w * 0.28)));
   });
 
   constructor() {
-    const host = inject<ElementRef<HTMLElement>>(ElementRef).nativeElement;
-    const observer = new ResizeObserver((entries) => {
-      const w = Math.round(entries[0]?.contentRect.width ?? 0);
-      if (w > 0 && w !== this.width()) this.width.set(w);
-    });
-    observer.observe(host);
-    inject(DestroyRef).onDestroy(() => observer.disconnect());
     afterRenderEffect(() => this.draw());
   }
 
@@ -185,6 +181,7 @@ export class TrajectoryChart {
     const width = this.width() || this.svgRef().nativeElement.getBoundingClientRect().width || 320;
     const height = this.height();
     const side = this.view() === 'side';
+    const f = this.fmt();
     const traces = this.traces();
     const marks = this.landmarks();
     const svg = select(this.svgRef().nativeElement);
@@ -215,7 +212,8 @@ export class TrajectoryChart {
       .call(
         axisLeft(y)
           .ticks(Math.max(3, Math.round(height / 50)))
-          .tickSize(-(width - MARGIN.left - MARGIN.right)),
+          .tickSize(-(width - MARGIN.left - MARGIN.right))
+          .tickFormat((v) => f.number(Number(v))),
       )
       .call((g) => g.select('.domain').remove());
     axes
@@ -224,7 +222,11 @@ export class TrajectoryChart {
       .join('g')
       .attr('class', 'll-trajectory__x')
       .attr('transform', `translate(0,${height - MARGIN.bottom})`)
-      .call(axisBottom(x).ticks(Math.max(3, Math.round(width / 80))));
+      .call(
+        axisBottom(x)
+          .ticks(Math.max(3, Math.round(width / 80)))
+          .tickFormat((v) => f.number(Number(v))),
+      );
     axes
       .selectAll<SVGTextElement, string>('text.ll-trajectory__axis-label')
       .data([side ? 'Distance, m' : 'Distance, m', side ? 'Height, m' : 'Left +, m'])
@@ -250,6 +252,7 @@ export class TrajectoryChart {
       y,
       side,
       marks,
+      f,
     );
 
     const path = line<{ x: number; y: number }>()
@@ -284,6 +287,7 @@ export class TrajectoryChart {
     y: (v: number) => number,
     side: boolean,
     marks: TrajectoryLandmarks,
+    f: QuantityFormat,
   ): void {
     const wall = marks.wallAtM === undefined ? [] : [marks.wallAtM];
     const wallH = side ? (marks.wallHeightM ?? 0) : 0;
@@ -303,7 +307,7 @@ export class TrajectoryChart {
       .attr('text-anchor', 'start')
       .attr('x', (d) => x(d) + Math.max(4, (x(0.3) - x(0)) / 2) + 3)
       .attr('y', side ? y(0) - 4 : y(-2.5) - 2)
-      .text((d) => `wall ${d.toFixed(2)} m`);
+      .text((d) => `wall ${f.fixed(d, 2)} m`);
     const goal = marks.goalAtM === undefined ? [] : [marks.goalAtM];
     const c = marks.goalCentreM ?? 0;
     g.selectAll<SVGPathElement, number>('path.ll-trajectory__goal')

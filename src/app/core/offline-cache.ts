@@ -1,12 +1,33 @@
+/*
+ * The one offline cache of server answers, with its two ways to read: `cachedAnswer` (network first:
+ * the server's answer, the device's copy only when the server cannot be reached — the analysis
+ * screens) and `cacheFirst` (the device's copy at once, then the server's answer — the planner, which
+ * must open on a pitch without signal). Both keep what they fetch in one store, `ANSWER_STORE`
+ * (IndexedDB through `AnalysisCache`), so clearing the device clears them all.
+ */
 import { HttpErrorResponse } from '@angular/common/http';
 import { InjectionToken, inject } from '@angular/core';
-import { AnalysisCache } from './analysis-cache';
-import { Observable, catchError, from, map, switchMap, tap, throwError } from 'rxjs';
+import { AnalysisCache } from './analysis/analysis-cache';
+import { ApiProblem, describeApiError } from './api-error';
+import { Observable, catchError, concat, filter, from, map, of, scan, switchMap, tap, throwError } from 'rxjs';
 
 /** What kind of answer a cache entry holds (so the cache can be cleared by kind). */
-export type AnswerKind = 'player' | 'squads' | 'progress' | 'kicks' | 'profile' | 'envelope' | 'week' | 'me' | 'spin';
+export type AnswerKind =
+  | 'player'
+  | 'squads'
+  | 'progress'
+  | 'kicks'
+  | 'profile'
+  | 'envelope'
+  | 'week'
+  | 'me'
+  | 'spin'
+  | 'planner-squads'
+  | 'planner-profiles'
+  | 'planner-ranking'
+  | 'planner-plan';
 
-/** The part of a key-value cache in IndexedDB the analysis screens use. */
+/** The key-value cache in IndexedDB the screens keep server answers in. */
 export interface AnswerStore {
   get<T>(key: string): Promise<T | undefined>;
   put<T>(key: string, kind: AnswerKind, value: T): Promise<void>;
@@ -49,7 +70,7 @@ export class MemoryAnswerStore implements AnswerStore {
   }
 }
 
-/** Where the Player file and Squad week keep their last answers so they open offline. */
+/** Where the Player file, Squad week and the planner keep their last answers so they open offline. */
 export const ANSWER_STORE = new InjectionToken<AnswerStore>('ANSWER_STORE', {
   providedIn: 'root',
   factory: () => inject(AnalysisCache),
@@ -95,5 +116,39 @@ export function cachedAnswer<T>(
         ),
       );
     }),
+  );
+}
+
+/** Something loaded from the server, maybe from the device's copy while the server cannot be reached. */
+export type CachedLoad<T> =
+  | { readonly status: 'loading' }
+  | { readonly status: 'ready'; readonly value: T; readonly savedAt: string | null; readonly refreshProblem: ApiProblem | null }
+  | { readonly status: 'error'; readonly problem: ApiProblem };
+
+/** A value kept by `cacheFirst` (or put beside it), with when it was kept. */
+export interface CachedValue<T> {
+  savedAt: string;
+  value: T;
+}
+
+/**
+ * The device's copy under `key` first (if any, with `savedAt`), then the server's answer, kept for
+ * next time. A failed refresh after a kept copy leaves the copy shown with `refreshProblem`; without
+ * one it is an `error`. A failing cache read or write never fails the load.
+ */
+export function cacheFirst<T>(store: AnswerStore, key: string, kind: AnswerKind, fetch: () => Observable<T>): Observable<CachedLoad<T>> {
+  const kept = from(store.get<CachedValue<T>>(key).catch(() => undefined)).pipe(
+    filter((v): v is CachedValue<T> => v !== undefined),
+    map((v): CachedLoad<T> => ({ status: 'ready', value: v.value, savedAt: v.savedAt, refreshProblem: null })),
+  );
+  const fresh = fetch().pipe(
+    tap((value) => void store.put<CachedValue<T>>(key, kind, { savedAt: new Date().toISOString(), value }).catch(() => undefined)),
+    map((value): CachedLoad<T> => ({ status: 'ready', value, savedAt: null, refreshProblem: null })),
+    catchError((e: unknown) => of<CachedLoad<T>>({ status: 'error', problem: describeApiError(e) })),
+  );
+  return concat(of<CachedLoad<T>>({ status: 'loading' }), kept, fresh).pipe(
+    scan((prev: CachedLoad<T>, next: CachedLoad<T>) =>
+      next.status === 'error' && prev.status === 'ready' ? { ...prev, refreshProblem: next.problem } : next,
+    ),
   );
 }
