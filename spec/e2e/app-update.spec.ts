@@ -16,37 +16,23 @@ import type { BrowserContext, Page } from 'playwright-core';
 import { DEMO_ACCOUNTS } from '../../seed/scenario';
 import { launchContext } from './support/browser';
 import { startE2eServer, type E2eServer } from './support/server';
-import { startsSyncPush, TcpRelay } from './support/tcp-relay';
+import { startsSyncPush, TcpRelay, type RelayVerdict } from './support/tcp-relay';
 import { signInThroughUi } from './support/sign-in';
 import { until, untilAppCached } from './support/waiting';
 
 /** Forwards TCP to the server, closing any connection that starts a sync push while pushes are refused. */
-class PushGate {
+class PushGate extends TcpRelay<null> {
   refusePushes = false;
   refused = 0;
-  private readonly relay: TcpRelay<null>;
 
-  constructor(targetPort: () => number) {
-    this.relay = new TcpRelay(targetPort, {
-      newConnection: () => null,
-      fromClient: (chunk) => {
-        if (!this.refusePushes || !startsSyncPush(chunk)) return 'forward';
-        this.refused++;
-        return 'close';
-      },
-    });
+  protected newConnection(): null {
+    return null;
   }
 
-  get port(): number {
-    return this.relay.port;
-  }
-
-  start(): Promise<void> {
-    return this.relay.start();
-  }
-
-  stop(): Promise<void> {
-    return this.relay.stop();
+  protected override fromClient(chunk: Buffer): RelayVerdict {
+    if (!this.refusePushes || !startsSyncPush(chunk)) return 'forward';
+    this.refused++;
+    return 'close';
   }
 }
 

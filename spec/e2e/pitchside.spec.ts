@@ -11,49 +11,36 @@ import { resolve } from 'node:path';
 import type { BrowserContext, Page } from 'playwright-core';
 import { launchContext } from './support/browser';
 import { startE2eServer, type E2eServer } from './support/server';
-import { startsSyncPush, TcpRelay } from './support/tcp-relay';
+import { startsSyncPush, TcpRelay, type RelayVerdict } from './support/tcp-relay';
 
 const PASSWORD = 'loftline-demo';
 const COACH = 'assistant.coach@kestrel-vale.test';
 
 /** Forwards TCP to the server; can cut one push's answer off and report when it did. */
-class Relay {
+class Relay extends TcpRelay<{ pushSent: boolean }> {
   private cutNextPush: (() => void) | null = null;
-  private readonly relay: TcpRelay<{ pushSent: boolean }>;
-
-  constructor(targetPort: () => number) {
-    this.relay = new TcpRelay(targetPort, {
-      newConnection: () => ({ pushSent: false }),
-      fromClient: (chunk, connection) => {
-        if (this.cutNextPush && startsSyncPush(chunk)) connection.pushSent = true;
-        return 'forward';
-      },
-      fromServer: (_chunk, connection) => {
-        const cut = this.cutNextPush;
-        if (!connection.pushSent || !cut) return 'forward';
-        // The server answers only after its transaction committed: the phone never hears it.
-        this.cutNextPush = null;
-        cut();
-        return 'close';
-      },
-    });
-  }
-
-  get port(): number {
-    return this.relay.port;
-  }
-
-  start(): Promise<void> {
-    return this.relay.start();
-  }
-
-  stop(): Promise<void> {
-    return this.relay.stop();
-  }
 
   /** Resolves once the server has started answering a push, whose answer is then withheld. */
   cutNextPushAnswer(): Promise<void> {
     return new Promise((done) => (this.cutNextPush = done));
+  }
+
+  protected newConnection(): { pushSent: boolean } {
+    return { pushSent: false };
+  }
+
+  protected override fromClient(chunk: Buffer, connection: { pushSent: boolean }): RelayVerdict {
+    if (this.cutNextPush && startsSyncPush(chunk)) connection.pushSent = true;
+    return 'forward';
+  }
+
+  protected override fromServer(_chunk: Buffer, connection: { pushSent: boolean }): RelayVerdict {
+    const cut = this.cutNextPush;
+    if (!connection.pushSent || !cut) return 'forward';
+    // The server answers only after its transaction committed: the phone never hears it.
+    this.cutNextPush = null;
+    cut();
+    return 'close';
   }
 }
 
