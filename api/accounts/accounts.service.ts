@@ -6,6 +6,7 @@ import { audit } from '../audit';
 import bcrypt from 'bcryptjs';
 import { randomUUID } from 'node:crypto';
 import { and, eq, gt, inArray } from 'drizzle-orm';
+import type { InviteCreated, InviteView } from '../../shared/schemas/accounts';
 import type { InviteRequest } from '../../shared/schemas/mail';
 import type { AuthUser } from '../auth/passport';
 import type { AppConfig } from '../config';
@@ -26,7 +27,7 @@ export class AccountsService {
   ) {}
 
   /** Creates a not-yet-activated account with its links and mails the invitation. */
-  invite(admin: AuthUser, req: InviteRequest): { userId: string; email: string; expiresAt: string } {
+  invite(admin: AuthUser, req: InviteRequest): InviteCreated {
     if (this.db.select({ id: users.id }).from(users).where(eq(users.email, req.email)).get()) {
       throw new Invalid('An account with this e-mail already exists', [{ field: 'email', message: 'Already has an account' }]);
     }
@@ -102,7 +103,7 @@ export class AccountsService {
    * Sends a fresh invitation to an account of the admin's club that never set a password: an expired
    * invite, or a guardian the roster import created (who had no way in before). Earlier links stop working.
    */
-  reinvite(admin: AuthUser, userId: string): { userId: string; email: string; expiresAt: string } {
+  reinvite(admin: AuthUser, userId: string): InviteCreated {
     const user = this.db.select().from(users).where(eq(users.id, userId)).get();
     if (!user || user.clubId !== admin.clubId) throw new NotFound('No such user in your club');
     if (user.passwordHash) throw new Invalid('This account already has a password; its owner can reset it from the sign-in page');
@@ -132,7 +133,7 @@ export class AccountsService {
   }
 
   /** Who an invitation is for (the accept page shows it). */
-  describeInvite(token: string): { email: string; displayName: string; role: string } {
+  describeInvite(token: string): InviteView {
     const { userId } = checkAccountToken(this.db, token, 'invite');
     const user = this.db.select().from(users).where(eq(users.id, userId)).get();
     if (!user) throw new NotFound();

@@ -1,12 +1,13 @@
 /** What Club admin lists: the club's accounts (optionally of one role) and its mail outbox. */
 import { and, desc, eq } from 'drizzle-orm';
 import type { Role } from '../../shared/roles';
+import type { AdminUser } from '../../shared/schemas/accounts';
 import type { OutboxMail } from '../../shared/schemas/mail';
 import type { Db } from '../db/client';
 import { mailOutbox, users } from '../db/schema';
 
 /** The club's accounts by name, with whether each has set a password and whether it is disabled. */
-export function clubUsers(db: Db, clubId: string, role: Role | undefined) {
+export function clubUsers(db: Db, clubId: string, role: Role | undefined): AdminUser[] {
   const rows = db
     .select()
     .from(users)

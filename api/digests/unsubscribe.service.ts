@@ -1,5 +1,6 @@
 /** The one-click unsubscribe of a Family digest (RFC 8058): a signed link turns one guardian link's digests off. */
 import { eq } from 'drizzle-orm';
+import type { UnsubscribeResult } from '../../shared/schemas/mail';
 import { audit } from '../audit';
 import type { Db } from '../db/client';
 import { guardianLinks, players } from '../db/schema';
@@ -11,7 +12,7 @@ import { verifyUnsubscribeToken } from './unsubscribe-token';
  * Turns off the digests of the guardian link a valid `token` names (idempotent: a second click
  * changes nothing and audits nothing) and answers the child's first name for the confirmation.
  */
-export function unsubscribe(db: Db, secret: string, token: string): { unsubscribed: true; firstName: string } {
+export function unsubscribe(db: Db, secret: string, token: string): UnsubscribeResult {
   const linkId = verifyUnsubscribeToken(secret, token);
   const link = linkId ? db.select().from(guardianLinks).where(eq(guardianLinks.id, linkId)).get() : undefined;
   if (!link)

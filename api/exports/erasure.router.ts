@@ -9,6 +9,7 @@ import { requireRole } from '../auth/passport';
 import type { Db } from '../db/client';
 import { parseOrThrow } from '../errors';
 import { scopeOf } from '../scope/scope.middleware';
+import type { Erasure } from '../../shared/schemas/exports';
 import { erasePlayer } from './erasure.service';
 
 export const eraseSchema = z.strictObject({
@@ -23,7 +24,7 @@ export function erasureRouter(db: Db): Router {
     const id = parseOrThrow(idSchema, req.params['id'], 'Player id', 'id').toLowerCase();
     const { mode, confirmName } = parseOrThrow(eraseSchema, req.body, 'Erasure');
     const kicksAffected = erasePlayer(db, scopeOf(req).user, id, mode, confirmName);
-    res.json({ erased: true, kicksAffected });
+    res.json({ erased: true, kicksAffected } satisfies Erasure);
   });
   return router;
 }

@@ -1,3 +1,5 @@
+import type { ConsentText } from '../../shared/schemas/mail';
+
 /**
  * The consent a guardian gives before any Family digest is sent. The version is recorded
  * with the consent, so a later change of wording is visible in the record.
@@ -10,4 +12,4 @@ export const CONSENT_TEXT = {
     'It contains nothing about other children. I can stop the e-mails at any time with the link in each ' +
     'digest or here, and withdraw this consent at any time. The club handles this data under its ' +
     'safeguarding policy and the data-protection law that applies to it.',
-} as const;
+} as const satisfies ConsentText;

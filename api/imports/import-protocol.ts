@@ -6,7 +6,7 @@
  */
 import type { AuthUser } from '../auth/passport';
 import { HttpError, HttpErrorWithBody, type FieldError } from '../errors';
-import type { ImportResult } from './import-types';
+import type { ImportAnswer } from './import-types';
 
 /** How long an import on the worker waits for SQLite's write lock, ms. */
 export const IMPORT_BUSY_TIMEOUT_MS = 60_000;
@@ -28,7 +28,7 @@ export type ImportFailure =
   | { other: { message: string; code?: string } };
 
 /** The worker's answer to job `id`. */
-export type ImportReply = { id: number; ok: true; result: ImportResult<unknown> } | { id: number; ok: false; failure: ImportFailure };
+export type ImportReply = { id: number; ok: true; result: ImportAnswer<unknown> } | { id: number; ok: false; failure: ImportFailure };
 
 /** Turns a thrown error into data that survives `postMessage`. */
 export function failureOf(err: unknown): ImportFailure {

@@ -9,7 +9,7 @@ import type { AuthUser } from '../auth/passport';
 import type { Db } from '../db/client';
 import { runImportJob } from './import-jobs';
 import { errorOf, failureOf, type ImportJob, type ImportReply } from './import-protocol';
-import type { ImportResult } from './import-types';
+import type { ImportAnswer } from './import-types';
 import type { KicksSummary } from './kicks-import.service';
 import type { RosterSummary } from './roster.service';
 
@@ -18,7 +18,7 @@ type WithoutId<J> = J extends unknown ? Omit<J, 'id'> : never;
 type JobInput = WithoutId<ImportJob>;
 
 interface Pending {
-  resolve(result: ImportResult<unknown>): void;
+  resolve(result: ImportAnswer<unknown>): void;
   reject(err: Error): void;
 }
 
@@ -34,13 +34,13 @@ export class ImportRunner {
   ) {}
 
   /** Previews or commits a roster file for the admin's club. */
-  roster(user: AuthUser, file: { name: string; buffer: Buffer }, dryRun: boolean): Promise<ImportResult<RosterSummary>> {
-    return this.run({ kind: 'roster', user, file, dryRun }) as Promise<ImportResult<RosterSummary>>;
+  roster(user: AuthUser, file: { name: string; buffer: Buffer }, dryRun: boolean): Promise<ImportAnswer<RosterSummary>> {
+    return this.run({ kind: 'roster', user, file, dryRun }) as Promise<ImportAnswer<RosterSummary>>;
   }
 
   /** Previews or commits a device export for one squad. */
-  kicks(user: AuthUser, file: { name: string; buffer: Buffer }, mapping: unknown, dryRun: boolean): Promise<ImportResult<KicksSummary>> {
-    return this.run({ kind: 'kicks', user, file, mapping, dryRun }) as Promise<ImportResult<KicksSummary>>;
+  kicks(user: AuthUser, file: { name: string; buffer: Buffer }, mapping: unknown, dryRun: boolean): Promise<ImportAnswer<KicksSummary>> {
+    return this.run({ kind: 'kicks', user, file, mapping, dryRun }) as Promise<ImportAnswer<KicksSummary>>;
   }
 
   /** Stops the worker; jobs still running are refused. */
@@ -51,7 +51,7 @@ export class ImportRunner {
     if (worker) await worker.terminate();
   }
 
-  private run(input: JobInput): Promise<ImportResult<unknown>> {
+  private run(input: JobInput): Promise<ImportAnswer<unknown>> {
     const job = { ...input, id: this.nextId++ } as ImportJob;
     if (this.dbPath === ':memory:') {
       try {

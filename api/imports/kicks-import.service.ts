@@ -18,7 +18,8 @@ import { clubs, drills, players, squads, trainingSessions, uploads } from '../db
 import { Forbidden, Invalid, parseOrThrow } from '../errors';
 import type { Scope } from '../scope/scope';
 import { readCsv } from './csv';
-import { ImportInvalid, type ImportResult, type RowError } from './import-types';
+import type { KicksSummary } from '../../shared/schemas/imports';
+import { ImportInvalid, type ImportAnswer, type ImportRowError } from './import-types';
 import { distanceToM, speedToMs, spinToRps } from './units';
 
 const column = z.string().trim().min(1).max(120).optional();
@@ -47,12 +48,8 @@ export const kickMappingSchema = z.strictObject({
 });
 export type KickMapping = z.infer<typeof kickMappingSchema>;
 
-/** What a measured-kick commit did. */
-export interface KicksSummary {
-  kicksCreated: number;
-  kicksSkipped: number;
-  sessionId: string | null;
-}
+/** What a measured-kick commit did (shape defined once in shared/). */
+export type { KicksSummary };
 
 interface KickRow {
   id: string;
@@ -97,7 +94,7 @@ export function importKicks(
   file: { name: string; buffer: Buffer },
   rawMapping: unknown,
   dryRun: boolean,
-): ImportResult<KicksSummary> {
+): ImportAnswer<KicksSummary> {
   const mapping = parseOrThrow(kickMappingSchema, rawMapping, 'Mapping');
   const squad = db
     .select()
@@ -135,7 +132,7 @@ export function importKicks(
     if (p.shirtNumber !== null && !byShirt.has(p.shirtNumber)) byShirt.set(p.shirtNumber, p);
     if (!byName.has(p.displayName.toLowerCase())) byName.set(p.displayName.toLowerCase(), p);
   }
-  const errors: RowError[] = [];
+  const errors: ImportRowError[] = [];
   const rows: KickRow[] = [];
   const hash = createHash('sha256').update(file.buffer).update(JSON.stringify(mapping)).digest('hex');
   for (const { row, values } of table.rows) {

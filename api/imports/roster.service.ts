@@ -12,17 +12,12 @@ import type { AuthUser } from '../auth/passport';
 import type { Db } from '../db/client';
 import { squads, uploads } from '../db/schema';
 import { hasUnsafeNameCharacters } from '../../shared/safe-text';
+import type { RosterSummary } from '../../shared/schemas/imports';
 import { readCsv } from './csv';
-import { ImportInvalid, type ImportResult, type RowError } from './import-types';
+import { ImportInvalid, type ImportAnswer, type ImportRowError } from './import-types';
 
-/** What a roster commit did. */
-export interface RosterSummary {
-  squadsCreated: number;
-  playersCreated: number;
-  playersUpdated: number;
-  guardiansCreated: number;
-  linksCreated: number;
-}
+/** What a roster commit did (shape defined once in shared/). */
+export type { RosterSummary };
 
 interface RosterRow {
   row: number;
@@ -46,8 +41,8 @@ export function ballSizeFor(ageGroup: string): number {
   return age <= 8 ? 3 : age <= 14 ? 4 : 5;
 }
 
-function validate(table: ReturnType<typeof readCsv>, now: Date): { rows: RosterRow[]; errors: RowError[] } {
-  const errors: RowError[] = [];
+function validate(table: ReturnType<typeof readCsv>, now: Date): { rows: RosterRow[]; errors: ImportRowError[] } {
+  const errors: ImportRowError[] = [];
   const rows: RosterRow[] = [];
   const seen = new Map<string, number>();
   for (const { row, values } of table.rows) {
@@ -106,7 +101,7 @@ export function importRoster(
   file: { name: string; buffer: Buffer },
   dryRun: boolean,
   now = new Date(),
-): ImportResult<RosterSummary> {
+): ImportAnswer<RosterSummary> {
   const table = readCsv(file.buffer, ['squad', 'name']);
   const { rows, errors } = validate(table, now);
   const hash = createHash('sha256').update(file.buffer).digest('hex');

@@ -53,15 +53,15 @@ function parameters(op: Operation, components: Components): Json[] {
   return out;
 }
 
+/** The success response: 204 without a body, a non-JSON content type, or the JSON answer's schema. */
+function successOf(op: Operation, components: Components): Json {
+  if (op.noContent) return { description: 'Done (no body)' };
+  if (op.produces) return { description: op.summary, content: { [op.produces]: { schema: { type: 'string' } } } };
+  return { description: op.summary, content: { 'application/json': { schema: schemaOf(op.answer, 'output', components) } } };
+}
+
 function operation(op: Operation, components: Components): Json {
-  const success: Json = op.noContent
-    ? { description: 'Done (no body)' }
-    : op.produces
-      ? { description: op.summary, content: { [op.produces]: { schema: { type: 'string' } } } }
-      : {
-          description: op.summary,
-          content: { 'application/json': { schema: schemaOf(op.answer ?? z.looseObject({}), 'output', components) } },
-        };
+  const success = successOf(op, components);
   const error = {
     description: 'Refused: the body names the reason (and, for 400, each field)',
     content: { 'application/json': { schema: { $ref: '#/components/schemas/Error' } } },

@@ -5,19 +5,25 @@
  */
 import type * as z from 'zod';
 import { ROLES, STAFF_ROLES, type Role } from '../../shared/roles';
-import { loginRequestSchema, refreshRequestSchema } from '../../shared/schemas/auth';
+import { adminUserListSchema, inviteCreatedSchema, inviteViewSchema, resetRequestedSchema } from '../../shared/schemas/accounts';
+import { authTokensSchema, loginRequestSchema, refreshRequestSchema } from '../../shared/schemas/auth';
+import { erasureSchema, playerDataExportSchema } from '../../shared/schemas/exports';
+import { kicksImportAnswerSchema, rosterImportAnswerSchema } from '../../shared/schemas/imports';
+import { openApiDocumentSchema, readinessSchema } from '../../shared/schemas/service';
 import { clubSettingsUpdateSchema } from '../../shared/schemas/club';
 import { groundConditionsSchema, groundInputSchema, groundSchema } from '../../shared/schemas/grounds';
 import {
   acceptInviteSchema,
   childSummarySchema,
   consentSchema,
+  consentTextSchema,
   createLinkSchema,
   digestOptInSchema,
   digestRunResultSchema,
   forgotPasswordSchema,
   inviteRequestSchema,
   resetPasswordSchema,
+  unsubscribeResultSchema,
 } from '../../shared/schemas/mail';
 import {
   playerKicksResponseSchema,
@@ -35,8 +41,6 @@ import { kicksQuery } from '../exports/exports.router';
 import { kicksQuerySchema, listPlayersQuerySchema, profileQuerySchema, progressQuerySchema } from '../players/players.schemas';
 import { weekQuerySchema } from '../squads/squads.router';
 import {
-  anyObjectSchema,
-  authTokensSchema,
   capturedMailAnswerSchema,
   capturedMailListSchema,
   clubSettingsAnswerSchema,
@@ -55,8 +59,8 @@ import {
 /** Who may call an operation: anyone, or signed-in users of these roles. */
 export type Access = 'public' | readonly Role[];
 
-/** One documented operation. */
-export interface Operation {
+/** What every documented operation has. */
+interface OperationBase {
   readonly method: 'GET' | 'POST' | 'PUT' | 'DELETE';
   /** Express path under `/api`, e.g. `/api/players/:id`. */
   readonly path: string;
@@ -67,15 +71,35 @@ export interface Operation {
   readonly body?: z.ZodType;
   /** A multipart upload (`file` field) instead of a JSON body. */
   readonly upload?: boolean;
-  /** The answer's schema; omitted for answers documented by summary only. */
-  readonly answer?: z.ZodType;
-  /** Content type of a non-JSON answer. */
-  readonly produces?: 'text/csv' | 'text/html' | 'text/javascript';
-  /** Whether success is 204 without a body. */
-  readonly noContent?: boolean;
   /** Whether success is 201 Created. */
   readonly created?: boolean;
 }
+
+/**
+ * One documented operation. Its success is exactly one of: a JSON answer with its schema, a non-JSON answer
+ * of a content type, or 204 without a body — so an operation cannot be added without saying what it answers.
+ */
+export type Operation = OperationBase &
+  (
+    | {
+        /** The JSON answer's schema (the spec parses real answers with it). */
+        readonly answer: z.ZodType;
+        readonly produces?: never;
+        readonly noContent?: never;
+      }
+    | {
+        /** Content type of a non-JSON answer. */
+        readonly produces: 'text/csv' | 'text/html' | 'text/javascript';
+        readonly answer?: never;
+        readonly noContent?: never;
+      }
+    | {
+        /** Success is 204 without a body. */
+        readonly noContent: true;
+        readonly answer?: never;
+        readonly produces?: never;
+      }
+  );
 
 const STAFF: readonly Role[] = STAFF_ROLES;
 const ALL: readonly Role[] = ROLES;
@@ -88,7 +112,7 @@ export const OPERATIONS: readonly Operation[] = [
     tag: 'Service',
     summary: 'Whether the server is ready to serve',
     access: 'public',
-    answer: anyObjectSchema,
+    answer: readinessSchema,
   },
   { method: 'GET', path: '/api/health', tag: 'Service', summary: 'Whether the server is up', access: 'public', answer: healthSchema },
   {
@@ -97,7 +121,7 @@ export const OPERATIONS: readonly Operation[] = [
     tag: 'Service',
     summary: 'This OpenAPI 3.1 document',
     access: 'public',
-    answer: anyObjectSchema,
+    answer: openApiDocumentSchema,
   },
   {
     method: 'GET',
@@ -148,7 +172,7 @@ export const OPERATIONS: readonly Operation[] = [
     tag: 'Auth',
     summary: 'Check an invitation token (`?token=`)',
     access: 'public',
-    answer: anyObjectSchema,
+    answer: inviteViewSchema,
   },
   {
     method: 'POST',
@@ -157,7 +181,7 @@ export const OPERATIONS: readonly Operation[] = [
     summary: 'Accept an invitation and choose a password',
     access: 'public',
     body: acceptInviteSchema,
-    answer: anyObjectSchema,
+    answer: authTokensSchema,
   },
   {
     method: 'POST',
@@ -166,7 +190,7 @@ export const OPERATIONS: readonly Operation[] = [
     summary: 'Mail a password-reset link (same answer whether or not the account exists)',
     access: 'public',
     body: forgotPasswordSchema,
-    answer: anyObjectSchema,
+    answer: resetRequestedSchema,
   },
   {
     method: 'POST',
@@ -183,7 +207,7 @@ export const OPERATIONS: readonly Operation[] = [
     tag: 'Mail',
     summary: 'One-click unsubscribe from the Family digest (RFC 8058, `?token=`)',
     access: 'public',
-    answer: anyObjectSchema,
+    answer: unsubscribeResultSchema,
   },
   {
     method: 'GET',
@@ -350,7 +374,7 @@ export const OPERATIONS: readonly Operation[] = [
     tag: 'Guardians',
     summary: 'The consent text guardians agree to, with its version',
     access: ALL,
-    answer: anyObjectSchema,
+    answer: consentTextSchema,
   },
   {
     method: 'GET',
@@ -411,7 +435,7 @@ export const OPERATIONS: readonly Operation[] = [
     summary: "Erase or anonymise a player's data",
     access: ['admin'],
     body: eraseSchema,
-    answer: anyObjectSchema,
+    answer: erasureSchema,
   },
   {
     method: 'GET',
@@ -420,7 +444,7 @@ export const OPERATIONS: readonly Operation[] = [
     summary: "The club's users",
     access: ['admin'],
     query: usersQuerySchema,
-    answer: anyObjectSchema,
+    answer: adminUserListSchema,
   },
   {
     method: 'POST',
@@ -429,16 +453,16 @@ export const OPERATIONS: readonly Operation[] = [
     summary: 'Invite a user by e-mail',
     access: ['admin'],
     body: inviteRequestSchema,
-    answer: anyObjectSchema,
+    answer: inviteCreatedSchema,
     created: true,
   },
   {
     method: 'POST',
-    path: '/api/admin/users/{id}/invite',
+    path: '/api/admin/users/:id/invite',
     tag: 'Admin',
     summary: 'Invite again an account that never set a password (expired invite, imported guardian)',
     access: ['admin'],
-    answer: anyObjectSchema,
+    answer: inviteCreatedSchema,
     created: true,
   },
   {
@@ -464,7 +488,7 @@ export const OPERATIONS: readonly Operation[] = [
     summary: 'Roster CSV (dry run or commit)',
     access: ['admin'],
     upload: true,
-    answer: anyObjectSchema,
+    answer: rosterImportAnswerSchema,
   },
   {
     method: 'POST',
@@ -473,7 +497,7 @@ export const OPERATIONS: readonly Operation[] = [
     summary: 'Measured-kick CSV from a device (dry run or commit)',
     access: STAFF,
     upload: true,
-    answer: anyObjectSchema,
+    answer: kicksImportAnswerSchema,
   },
   {
     method: 'GET',
@@ -490,7 +514,7 @@ export const OPERATIONS: readonly Operation[] = [
     tag: 'Exports',
     summary: "A player's full data (data-access request)",
     access: ['admin'],
-    answer: anyObjectSchema,
+    answer: playerDataExportSchema,
   },
   {
     method: 'POST',

@@ -31,12 +31,9 @@ export const sessionUserSchema = z.object({
 });
 export type SessionUser = z.infer<typeof sessionUserSchema>;
 
-/** Answer of `POST /api/auth/login` and `POST /api/auth/refresh`. */
-export interface AuthTokens {
-  accessToken: string;
-  refreshToken: string;
-  user: SessionUser;
-}
+/** Answer of `POST /api/auth/login`, `POST /api/auth/refresh` and `POST /api/auth/accept-invite`. */
+export const authTokensSchema = z.object({ accessToken: z.string(), refreshToken: z.string(), user: sessionUserSchema });
+export type AuthTokens = z.infer<typeof authTokensSchema>;
 
 /** Answer of `GET /api/me`: the user plus the club's name for the app shell. */
 export interface MeResponse {

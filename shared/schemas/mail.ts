@@ -136,3 +136,11 @@ export const digestRunResultSchema = z
   .object({ weekStart: z.string(), familySent: z.number().int(), familySkipped: z.number().int(), squadWeekSent: z.number().int() })
   .meta({ id: 'DigestRunResult' });
 export type DigestRunResult = z.infer<typeof digestRunResultSchema>;
+
+/** The consent wording guardians agree to (`GET /api/guardians/consent-text`); versioned so a record says which text was shown. */
+export const consentTextSchema = z.object({ version: z.string(), text: z.string() }).meta({ id: 'ConsentText' });
+export type ConsentText = z.infer<typeof consentTextSchema>;
+
+/** Answer of the one-click unsubscribe (`POST /api/digests/unsubscribe?token=`): the child's first name for the confirmation. */
+export const unsubscribeResultSchema = z.object({ unsubscribed: z.literal(true), firstName: z.string() }).meta({ id: 'UnsubscribeResult' });
+export type UnsubscribeResult = z.infer<typeof unsubscribeResultSchema>;

@@ -2,33 +2,14 @@ import { HttpClient, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
 import type { Role } from '../../../shared/roles';
+import type { AdminUser, InviteCreated } from '../../../shared/schemas/accounts';
 import type { InviteRequest, OutboxMail } from '../../../shared/schemas/mail';
-
-/** An account of the club as the admin list shows it. */
-export interface AdminUser {
-  id: string;
-  email: string;
-  displayName: string;
-  role: Role;
-  /** When the last invitation went out (ISO time), or null for accounts made another way. */
-  invitedAt: string | null;
-  /** Whether the account has a password (invitation accepted). */
-  activated: boolean;
-}
-
-/** Answer of `POST /api/admin/invites`. */
-export interface InviteCreated {
-  userId: string;
-  email: string;
-  /** When the invitation link stops working (ISO time, 7 days on). */
-  expiresAt: string;
-}
 
 /** Delivery state of one outgoing mail. */
 export type OutboxStatus = OutboxMail['status'];
 
-/** The shared shapes (`shared/schemas/mail.ts`), re-exported so screens import them from the service that fetches them. */
-export type { InviteRequest, OutboxMail };
+/** The shared shapes (`shared/schemas/`), re-exported so screens import them from the service that fetches them. */
+export type { AdminUser, InviteCreated, InviteRequest, OutboxMail };
 
 /**
  * The Club admin calls about accounts and mail delivery: who is in the club, sending

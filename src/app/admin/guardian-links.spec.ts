@@ -23,6 +23,7 @@ const guardianUser: AdminUser = {
   role: 'guardian',
   invitedAt: '2026-11-01T12:00:00.000Z',
   activated: false,
+  disabled: false,
 };
 const players: PlayerSummary[] = [
   {

@@ -46,6 +46,7 @@ const waiting: AdminUser = {
   role: 'guardian',
   invitedAt: '2026-11-28T12:00:00.000Z',
   activated: false,
+  disabled: false,
 };
 const neverInvited: AdminUser = {
   id: 'u-2',
@@ -54,6 +55,7 @@ const neverInvited: AdminUser = {
   role: 'admin',
   invitedAt: null,
   activated: true,
+  disabled: false,
 };
 
 describe('InviteForm', () => {

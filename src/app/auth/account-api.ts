@@ -1,15 +1,11 @@
 import { HttpClient, HttpHeaders, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
-import type { Role } from '../../../shared/roles';
+import type { InviteView } from '../../../shared/schemas/accounts';
 import type { AuthTokens } from '../../../shared/schemas/auth';
 
-/** Who an invitation is for (`GET /api/auth/invite?token=`), shown before the password is set. */
-export interface InviteView {
-  email: string;
-  displayName: string;
-  role: Role;
-}
+/** Who an invitation is for (`GET /api/auth/invite?token=`), shown before the password is set (shape in shared/). */
+export type { InviteView };
 
 /**
  * The public account calls behind e-mailed links: looking up and accepting an invitation, and

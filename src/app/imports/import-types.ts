@@ -2,50 +2,11 @@ import type { Technique } from '../../../shared/schemas/sync';
 
 /*
  * The import contract as the client sees it: what `POST /api/imports/roster` and
- * `POST /api/imports/kicks` take and answer. Written down here, next to the screens that use it,
- * because the answers are plain JSON and the screens must not guess at their shape.
+ * `POST /api/imports/kicks` take (here, next to the screens that build it) and answer (the shared schemas).
  */
 
-/** One problem with one cell (or row) of an upload. */
-export interface ImportRowError {
-  /** The row's line number in the file: the header row is 1, so the first data row is 2. */
-  readonly row: number;
-  /** The column the problem is in, as the file's header names it. */
-  readonly column: string;
-  /** Why the row was refused, worded by the server for the coach. */
-  readonly message: string;
-}
-
-/** A preview (`dryRun=true`) or commit answer of either import. */
-export interface ImportAnswer<S> {
-  /** Whether nothing was written (a preview). */
-  readonly dryRun: boolean;
-  /** The stored upload, once committed (null for a preview). */
-  readonly uploadId: string | null;
-  /** Whether this exact file was committed before, so nothing was applied again. */
-  readonly alreadyImported: boolean;
-  /** Data rows the server read. */
-  readonly rows: number;
-  readonly errors: readonly ImportRowError[];
-  readonly summary: S;
-}
-
-/** What a roster import did (commit) or would do (preview). */
-export interface RosterSummary {
-  readonly squadsCreated: number;
-  readonly playersCreated: number;
-  readonly playersUpdated: number;
-  readonly guardiansCreated: number;
-  readonly linksCreated: number;
-}
-
-/** What a measured-kick import did (commit) or would do (preview). */
-export interface KicksSummary {
-  readonly kicksCreated: number;
-  readonly kicksSkipped: number;
-  /** The training session the kicks were filed under (null for a preview). */
-  readonly sessionId: string | null;
-}
+/** The answers, defined once in shared/ (server, client and the OpenAPI document use the same shapes). */
+export type { ImportAnswer, ImportRowError, KicksSummary, RosterSummary } from '../../../shared/schemas/imports';
 
 /** Speed units a device may export. */
 export type SpeedUnit = 'm/s' | 'km/h' | 'mph';

@@ -1,16 +1,10 @@
 import { HttpClient, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
-import type { DigestRunResult } from '../../../../shared/schemas/mail';
+import type { DigestRunResult, UnsubscribeResult } from '../../../../shared/schemas/mail';
 
 /** The shared shapes (`shared/schemas/mail.ts`), re-exported so screens import them from the service that fetches them. */
-export type { DigestRunResult };
-
-/** Answer of the one-click unsubscribe (`POST /api/digests/unsubscribe?token=`). */
-export interface UnsubscribeResult {
-  unsubscribed: true;
-  firstName: string;
-}
+export type { DigestRunResult, UnsubscribeResult };
 
 /**
  * The Family digest's two calls outside the weekly job: staff sending the digests now, and the

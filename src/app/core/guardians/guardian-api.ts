@@ -2,13 +2,7 @@ import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
 import type * as z from 'zod';
-import type { ChildSummary, GuardianLinkView, createLinkSchema } from '../../../../shared/schemas/mail';
-
-/** The consent wording guardians agree to (`GET /api/guardians/consent-text`); versioned so a record says which text was shown. */
-export interface ConsentText {
-  version: string;
-  text: string;
-}
+import type { ChildSummary, ConsentText, GuardianLinkView, createLinkSchema } from '../../../../shared/schemas/mail';
 
 /** One ISO week of a child's training (Monday `weekStart`, reps, share on target or null). */
 export type ChildWeek = ChildSummary['weeks'][number];
@@ -17,7 +11,7 @@ export type ChildWeek = ChildSummary['weeks'][number];
 export type LinkGuardianRequest = z.input<typeof createLinkSchema>;
 
 /** The shared shapes (`shared/schemas/mail.ts`), re-exported so screens import them from the service that fetches them. */
-export type { ChildSummary, GuardianLinkView };
+export type { ChildSummary, ConsentText, GuardianLinkView };
 
 /**
  * Guardian links, consent and the child summary: the one place that knows these URLs. Guardian
