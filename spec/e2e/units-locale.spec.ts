@@ -82,6 +82,8 @@ describe('units and locale (end to end, Chromium)', () => {
     try {
       const page = await context.newPage();
       await signInThroughUi(page, server.baseUrl, DEMO_ACCOUNTS.head_coach);
+      // A new device learns the club's locale from GET /api/club/settings after sign-in: wait for that answer.
+      await page.waitForFunction((locale) => document.documentElement.lang === locale, LOCALE, { timeout: 15_000 });
       expect(await page.evaluate(() => document.documentElement.lang)).toBe(LOCALE);
 
       // Pitchside: the drill's target in yards, a carry typed in yards (decimal comma) stored in metres.
