@@ -39,6 +39,8 @@ const MAIL_LEASE_MS = 5 * 60_000;
 export class Mailer {
   private readonly transport: Transporter | null;
   private flushing: Promise<number> | null = null;
+  /** Whether `close()` was called: a send still in flight then records nothing (the database may be closed too). */
+  private closed = false;
 
   constructor(
     private readonly db: Db,
@@ -80,7 +82,7 @@ export class Mailer {
 
   private async sendDue(): Promise<number> {
     const transport = this.transport;
-    if (!transport) return 0;
+    if (!transport || this.closed) return 0;
     const now = new Date().toISOString();
     const due = this.db
       .select()
@@ -91,6 +93,7 @@ export class Mailer {
       .all();
     let sent = 0;
     for (const row of due) {
+      if (this.closed) break;
       // Claim the row with a lease before sending, so two processes flushing one outbox never both send it;
       // a process that dies mid-send leaves the lease to run out and the message is tried again.
       const claimed = this.db
@@ -121,6 +124,8 @@ export class Mailer {
             content: Buffer.from(a.contentBase64, 'base64'),
           })),
         });
+        // Closed while sending (shutting down): the lease runs out and the next start records or resends it.
+        if (this.closed) break;
         this.db
           .update(mailOutbox)
           .set({ status: 'sent', sentAt: new Date().toISOString(), attempts: row.attempts + 1, lastError: null })
@@ -128,6 +133,8 @@ export class Mailer {
           .run();
         sent++;
       } catch (err) {
+        // A send cut short by `close()` is not a failed attempt; the lease runs out and it is tried again.
+        if (this.closed) break;
         const attempts = row.attempts + 1;
         // Exponential backoff: 1, 2, 4, 8, 16 minutes, then give up (still listed, with the error).
         const next = new Date(Date.now() + 60_000 * 2 ** (attempts - 1)).toISOString();
@@ -148,6 +155,7 @@ export class Mailer {
 
   /** Closes the SMTP connection pool. */
   close(): void {
+    this.closed = true;
     this.transport?.close();
   }
 }
