@@ -2,7 +2,7 @@ import { HarnessLoader } from '@angular/cdk/testing';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
-import { provideZonelessChangeDetection } from '@angular/core';
+import { provideZonelessChangeDetection, type Provider } from '@angular/core';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { MatButtonHarness } from '@angular/material/button/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
@@ -11,7 +11,9 @@ import { provideRouter } from '@angular/router';
 import { BALL_SIZES, setPieceCheck } from '../../../shared/flight';
 import { setPieceCloud } from '../flight/set-piece-rank';
 import { attackingHalfMarkings } from '../ui/pitch-markings';
+import { BROWSER_STORAGE, MemoryStorage } from '../core/browser-storage';
 import { ANSWER_STORE, type AnswerStore } from '../core/offline-cache';
+import { SliderFieldHarness } from '../ui/slider-field-harness';
 import { FIXTURE_PROFILES, FIXTURE_SQUAD } from './planner-fixture';
 import { Planner } from './planner';
 import { PLANNER_SAMPLES, PLANNER_SEED, PlannerStore } from './planner-store';
@@ -69,9 +71,9 @@ describe('Planner (Set-piece planner)', () => {
   let loader: HarnessLoader;
   let http: HttpTestingController;
 
-  function open(cache: AnswerStore): void {
+  function open(cache: AnswerStore, providers: Provider[] = []): void {
     TestBed.configureTestingModule({
-      providers: [provideZonelessChangeDetection(), provideRouter([]), provideHttpClient(), provideHttpClientTesting()],
+      providers: [...providers, provideZonelessChangeDetection(), provideRouter([]), provideHttpClient(), provideHttpClientTesting()],
     });
     TestBed.overrideComponent(Planner, { set: { providers: [PlannerStore, { provide: ANSWER_STORE, useValue: cache }] } });
     fixture = TestBed.createComponent(Planner);
@@ -166,6 +168,20 @@ describe('Planner (Set-piece planner)', () => {
     await until('Bo’s cloud', () => count('g.ll-goal-mouth__cloud path.ll-goal-mouth__mark') === reached);
     expect((fixture.nativeElement as HTMLElement).querySelector('#planner-player-title')?.textContent).toContain('Bo Brennan');
   }, 60_000);
+
+  it("takes the aim in a yards club's unit and keeps it in metres, inside the posts", async () => {
+    const storage = new MemoryStorage();
+    storage.setItem('loftline.clubSettings', JSON.stringify({ timingBiasS: 0.2, timingSdS: 0.08, distanceUnit: 'yd', locale: 'en-GB' }));
+    open(memoryCache(), [{ provide: BROWSER_STORAGE, useValue: storage }]);
+    const aim = await loader.getHarness(SliderFieldHarness.with({ label: 'Aim' }));
+    // 2 yd = 1.8288 m (1 yd = 0.9144 m exactly, international yard and pound agreement, 1959).
+    await aim.type('2');
+    await until('the aim in metres', () => fixture.componentInstance['store'].spot().aimXM === 1.8288);
+    // Half a metre inside a post is 3.16 m from the centre (Law 1: 7.32 m between the posts) = 3.46 yd.
+    await aim.type('3.5');
+    expect(await aim.getError()).toBe('-3.4 to 3.4 yd');
+    expect(fixture.componentInstance['store'].spot().aimXM).toBe(1.8288);
+  });
 
   it('recomputes when the ball is moved with the keyboard', async () => {
     await openOnline(memoryCache());

@@ -12,7 +12,7 @@ import { MatTableModule } from '@angular/material/table';
 import { map } from 'rxjs';
 import { GOAL_WIDTH_M, TECHNIQUES, type Technique } from '../../../shared/flight';
 import { LoadFailure } from '../ui/load-failure';
-import { SliderField } from '../ui/slider-field';
+import { SliderField, distanceSlider } from '../ui/slider-field';
 import { TrajectoryChart, type TrajectoryLandmarks, type TrajectoryTrace } from '../ui/charts/trajectory-chart';
 import { GoalMouthView } from './goal-mouth-view';
 import type { RankedPlayer } from './planner-rank';
@@ -63,7 +63,11 @@ export class Planner {
 
   protected readonly techniques = TECHNIQUES;
   protected readonly samples = PLANNER_SAMPLES;
-  protected readonly aimLimitM = GOAL_WIDTH_M / 2 - 0.5;
+  /** Where the aim may sit, from the centre of the goal: inside the posts by half a metre, in the club's unit. */
+  protected readonly aimField = computed(() => {
+    const limitM = GOAL_WIDTH_M / 2 - 0.5;
+    return distanceSlider({ sliderMin: -limitM, sliderMax: limitM, min: -limitM, max: limitM, step: 0.1 }, this.fmt());
+  });
   protected readonly form = new FormGroup({
     squadId: new FormControl<string | null>(null),
     technique: new FormControl<Technique>(this.store.technique(), { nonNullable: true }),

@@ -2,7 +2,7 @@
  * The sandbox's words and numbers: the results table's rows and the charts' text alternatives, from the
  * same figures, so the table, the charts' accessible names and the screen never disagree. Numbers follow the
  * club's locale; distances along the ground (carry, landing point, the wall's and goal's distance) follow its
- * distance unit, while heights stay in metres like the sandbox's height controls and the charts' axes.
+ * distance unit, while heights stay in metres like the sandbox's height controls and the charts' height axis.
  */
 
 import { WALL_DISTANCE_M, type Flight } from '../../../shared/flight';

@@ -1,12 +1,13 @@
 import { HarnessLoader } from '@angular/cdk/testing';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
-import { provideZonelessChangeDetection } from '@angular/core';
+import { provideZonelessChangeDetection, type Provider } from '@angular/core';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { MatButtonHarness } from '@angular/material/button/testing';
 import { MatButtonToggleHarness } from '@angular/material/button-toggle/testing';
 import { MatTableHarness } from '@angular/material/table/testing';
 import { ActivatedRoute, Router, convertToParamMap, provideRouter } from '@angular/router';
 import { simulateKick } from '../../../shared/flight';
+import { BROWSER_STORAGE, MemoryStorage } from '../core/browser-storage';
 import { SliderFieldHarness } from '../ui/slider-field-harness';
 import { Sandbox } from './sandbox';
 import { DEFAULT_GOAL_DISTANCE_M, DEFAULT_KICK, encodeState, flightFigures, toKickInput, type SandboxKick } from './sandbox-kick';
@@ -28,9 +29,10 @@ describe('Sandbox (Flight sandbox)', () => {
   let fixture: ComponentFixture<Sandbox>;
   let loader: HarnessLoader;
 
-  function open(query: Record<string, string | string[]> = {}): void {
+  function open(query: Record<string, string | string[]> = {}, providers: Provider[] = []): void {
     TestBed.configureTestingModule({
       providers: [
+        ...providers,
         provideZonelessChangeDetection(),
         provideRouter([]),
         { provide: ActivatedRoute, useValue: { snapshot: { queryParamMap: convertToParamMap(query) } } },
@@ -132,5 +134,31 @@ describe('Sandbox (Flight sandbox)', () => {
     const extras = navigate.calls.mostRecent().args[1];
     expect(extras?.replaceUrl).toBeTrue();
     expect(extras?.queryParams).toEqual(encodeState({ kicks: [DEFAULT_KICK, { ...b, speedMs: 24 }], selected: 1, goalDistanceM: 20 }));
+  });
+
+  it("slides the goal line and draws ground distances in a yards club's unit, while the kick flies to the line in metres", async () => {
+    // A device that last saw a yards club (ClubSettingsStore caches the settings for a pitch without signal).
+    const storage = new MemoryStorage();
+    storage.setItem('loftline.clubSettings', JSON.stringify({ timingBiasS: 0.2, timingSdS: 0.08, distanceUnit: 'yd', locale: 'en-GB' }));
+    open({}, [{ provide: BROWSER_STORAGE, useValue: storage }]);
+    await until('the default kick', async () => (await carries()).length === 1);
+    const goal = await loader.getHarness(SliderFieldHarness.with({ label: 'Goal line at' }));
+    // 25 m is 27.34 yd: 1 yd = 0.9144 m exactly (international yard and pound agreement, 1959).
+    expect(await goal.getTypedValue()).toBe('27.34');
+    const text = (fixture.nativeElement as HTMLElement).textContent ?? '';
+    expect(text).toContain('Distance, yd');
+    expect(text).toContain('Left +, yd');
+    expect(text).toContain('Height, m');
+
+    const navigate = spyOn(TestBed.inject(Router), 'navigate').and.resolveTo(true);
+    await goal.type('30');
+    await until('the URL update', () => navigate.calls.count() > 0);
+    // 30 yd = 27.432 m: the state and the flight stay in metres.
+    expect(navigate.calls.mostRecent().args[1]?.queryParams).toEqual(
+      encodeState({ kicks: [DEFAULT_KICK], selected: 0, goalDistanceM: 27.432 }),
+    );
+    // Typed beyond the metre range (100 m = 109.36 yd) the field says so in yards.
+    await goal.type('110');
+    expect(await goal.getError()).toBe('11 to 109 yd');
   });
 });

@@ -12,7 +12,7 @@ import { catchError, debounceTime, map, of, skip, type Observable } from 'rxjs';
 import { WALL_DISTANCE_M, type Flight } from '../../../shared/flight';
 import { FlightEngine } from '../flight/flight-engine';
 import { latestWhenIdle } from '../flight/latest-when-idle';
-import { SliderField } from '../ui/slider-field';
+import { SliderField, distanceSlider } from '../ui/slider-field';
 import { TrajectoryChart, type TrajectoryTrace } from '../ui/charts/trajectory-chart';
 import {
   CONDITION_FIELDS,
@@ -70,7 +70,8 @@ export class Sandbox {
 
   protected readonly launchFields = LAUNCH_FIELDS;
   protected readonly conditionFields = CONDITION_FIELDS;
-  protected readonly goalField = GOAL_DISTANCE_FIELD;
+  /** The goal line's distance, slid and typed in the club's unit (the kick state keeps metres). */
+  protected readonly goalField = computed(() => ({ ...GOAL_DISTANCE_FIELD, ...distanceSlider(GOAL_DISTANCE_FIELD, this.fmt()) }));
   protected readonly kickNames = KICK_NAMES;
   protected readonly maxKicks = MAX_KICKS;
   protected readonly ballSizes: readonly SandboxBallSize[] = [5, 4, 3];

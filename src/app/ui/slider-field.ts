@@ -13,6 +13,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSliderModule } from '@angular/material/slider';
 import type { ErrorStateMatcher } from '@angular/material/core';
+import type { QuantityFormat } from '../../../shared/quantity-format';
 
 let nextId = 0;
 
@@ -88,6 +89,12 @@ export class SliderField implements ControlValueAccessor {
   readonly step = input(1);
   /** A short note under the number, e.g. what the sign means. */
   readonly hint = input<string | undefined>(undefined);
+  /**
+   * Shown units per stored unit: the form holds SI (metres) while a yards club slides and types yards
+   * (factor 1 / 0.9144). The ranges and the step above are in the shown unit, so a yards slider moves in
+   * round yards rather than in 0.547 yd steps.
+   */
+  readonly factor = input(1);
 
   protected readonly inputId = `ll-slider-field-${nextId++}`;
   protected readonly slider = new FormControl(0, { nonNullable: true });
@@ -121,7 +128,7 @@ export class SliderField implements ControlValueAccessor {
 
   /** @inheritdoc */
   writeValue(value: unknown): void {
-    const n = typeof value === 'number' && Number.isFinite(value) ? value : this.min();
+    const n = typeof value === 'number' && Number.isFinite(value) ? this.shown(value) : this.min();
     this.slider.setValue(this.clampToSlider(n), { emitEvent: false });
     this.typed.setValue(n, { emitEvent: false });
     this.lastValue = n;
@@ -149,9 +156,20 @@ export class SliderField implements ControlValueAccessor {
     this.touchedFn();
   }
 
+  /** `value` is in the shown unit; the form receives it in the stored one. */
   private emit(value: number): void {
     this.lastValue = value;
-    this.changed(value);
+    // toPrecision(12) drops the float noise of the division (11 yd is 10.0584 m, not 10.058399999999999).
+    this.changed(this.factor() === 1 ? value : Number((value / this.factor()).toPrecision(12)));
+  }
+
+  /**
+   * A stored value in the shown unit, to a hundredth of the step's precision at most, so 25 m reads
+   * 27.34 yd rather than 27.340332458.
+   */
+  private shown(stored: number): number {
+    if (this.factor() === 1) return stored;
+    return Math.round(stored * this.factor() * 100) / 100;
   }
 
   private clampToSlider(value: number): number {
@@ -163,4 +181,41 @@ export class SliderField implements ControlValueAccessor {
     if (typeof value !== 'number' || !Number.isFinite(value)) return { required: true };
     return value < this.min() || value > this.max() ? { range: true } : null;
   }
+}
+
+/** A slider's ranges and step, in the unit it shows. */
+export interface SliderRange {
+  readonly sliderMin: number;
+  readonly sliderMax: number;
+  readonly min: number;
+  readonly max: number;
+  readonly step: number;
+}
+
+/** A distance slider as the club reads it: ranges in its unit, the unit's symbol and the `factor` to pass on. */
+export interface DistanceSlider extends SliderRange {
+  readonly unit: string;
+  readonly factor: number;
+}
+
+/**
+ * A distance slider given in metres, shown in the club's unit: the ranges are converted and kept inside
+ * the metre ranges (rounded inwards to the step), the step stays a round number of the club's unit.
+ */
+export function distanceSlider(metres: SliderRange, format: QuantityFormat): DistanceSlider {
+  const factor = format.toUnit(1);
+  if (factor === 1) return { ...metres, unit: format.unit, factor };
+  const step = metres.step;
+  // toFixed(6) first, so a value already on the step (10 yd) is not rounded a whole step inwards by float noise.
+  const inwards = (v: number, round: (x: number) => number): number =>
+    Number((round(Number(((v * factor) / step).toFixed(6))) * step).toFixed(6));
+  return {
+    sliderMin: inwards(metres.sliderMin, Math.ceil),
+    sliderMax: inwards(metres.sliderMax, Math.floor),
+    min: inwards(metres.min, Math.ceil),
+    max: inwards(metres.max, Math.floor),
+    step,
+    unit: format.unit,
+    factor,
+  };
 }

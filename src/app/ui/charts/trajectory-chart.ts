@@ -44,7 +44,7 @@ export type TrajectoryView = 'side' | 'top';
 const MARGIN = { top: 24, right: 14, bottom: 36, left: 44 };
 
 /**
- * A kick's path (or several overlaid) from the side or from above, in d3 with metre axes, a wall and
+ * A kick's path (or several overlaid) from the side or from above, in d3 with axes in the club's unit, a wall and
  * the goal drawn to the same scale, and a landing mark per kick. Responsive: it redraws for its own
  * width, so it fits a 360 px phone and a desktop panel. Colours come from CSS custom properties with
  * `light-dark()`, and each kick also differs by dash pattern so the overlay reads without colour. The
@@ -166,7 +166,7 @@ export class TrajectoryChart {
 
   private readonly svgRef = viewChild.required<ElementRef<SVGSVGElement>>('svg');
   private readonly width = injectChartWidth();
-  /** The club's formatter (numbers in its locale; the axes stay in metres, as labelled). */
+  /** The club's formatter: numbers in its locale, ground distances in its unit (heights in metres, as labelled). */
   private readonly fmt = inject(ClubFormat).format;
   protected readonly height = computed(() => {
     const w = this.width() || 320;
@@ -187,20 +187,26 @@ export class TrajectoryChart {
     const svg = select(this.svgRef().nativeElement);
     svg.attr('viewBox', `0 0 ${width} ${height}`);
 
+    // Ground distances (along the aim, and across it in the top view) are drawn in the club's unit;
+    // heights stay in metres like the Laws' 2.44 m bar and the wall. Axes scale in the unit shown, and
+    // `x`/`y` below take metres, so the landmarks and paths need no conversion of their own.
+    const u = (m: number): number => f.toUnit(m);
     const maxX = Math.max(10, max(traces, (t) => max(t.points, (p) => p.x)) ?? 0, (marks.goalAtM ?? 0) + 2);
-    const x = scaleLinear()
-      .domain([0, maxX * 1.04])
+    const xAxis = scaleLinear()
+      .domain([0, u(maxX) * 1.04])
       .nice()
       .range([MARGIN.left, width - MARGIN.right]);
-    const y = scaleLinear().range([height - MARGIN.bottom, MARGIN.top]);
+    const yAxis = scaleLinear().range([height - MARGIN.bottom, MARGIN.top]);
     if (side) {
       const top = Math.max(GOAL_HEIGHT_M, marks.wallHeightM ?? 0, max(traces, (t) => max(t.points, (p) => p.y)) ?? 0);
-      y.domain([0, top * 1.15]).nice();
+      yAxis.domain([0, top * 1.15]).nice();
     } else {
       const goalEdge = marks.goalAtM !== undefined ? Math.abs(marks.goalCentreM ?? 0) + GOAL_WIDTH_M / 2 + 0.5 : 0;
       const reach = Math.max(3, goalEdge, max(traces, (t) => max(t.points, (p) => Math.abs(p.y))) ?? 0);
-      y.domain([-reach * 1.15, reach * 1.15]).nice();
+      yAxis.domain([-u(reach) * 1.15, u(reach) * 1.15]).nice();
     }
+    const x = (m: number): number => xAxis(u(m));
+    const y = (m: number): number => yAxis(side ? m : u(m));
 
     const axes = svg.selectAll<SVGGElement, null>('g.ll-trajectory__axes').data([null]).join('g').attr('class', 'll-trajectory__axes');
     axes
@@ -210,7 +216,7 @@ export class TrajectoryChart {
       .attr('class', 'll-trajectory__grid')
       .attr('transform', `translate(${MARGIN.left},0)`)
       .call(
-        axisLeft(y)
+        axisLeft(yAxis)
           .ticks(Math.max(3, Math.round(height / 50)))
           .tickSize(-(width - MARGIN.left - MARGIN.right))
           .tickFormat((v) => f.number(Number(v))),
@@ -223,13 +229,13 @@ export class TrajectoryChart {
       .attr('class', 'll-trajectory__x')
       .attr('transform', `translate(0,${height - MARGIN.bottom})`)
       .call(
-        axisBottom(x)
+        axisBottom(xAxis)
           .ticks(Math.max(3, Math.round(width / 80)))
           .tickFormat((v) => f.number(Number(v))),
       );
     axes
       .selectAll<SVGTextElement, string>('text.ll-trajectory__axis-label')
-      .data([side ? 'Distance, m' : 'Distance, m', side ? 'Height, m' : 'Left +, m'])
+      .data([`Distance, ${f.unit}`, side ? 'Height, m' : `Left +, ${f.unit}`])
       .join('text')
       .attr('class', 'll-trajectory__axis-label')
       .attr('text-anchor', (_, i) => (i === 0 ? 'end' : 'start'))
@@ -307,7 +313,7 @@ export class TrajectoryChart {
       .attr('text-anchor', 'start')
       .attr('x', (d) => x(d) + Math.max(4, (x(0.3) - x(0)) / 2) + 3)
       .attr('y', side ? y(0) - 4 : y(-2.5) - 2)
-      .text((d) => `wall ${f.fixed(d, 2)} m`);
+      .text((d) => `wall ${f.round(d, 2)}`);
     const goal = marks.goalAtM === undefined ? [] : [marks.goalAtM];
     const c = marks.goalCentreM ?? 0;
     g.selectAll<SVGPathElement, number>('path.ll-trajectory__goal')
