@@ -174,6 +174,8 @@ describe('Planner (Set-piece planner)', () => {
     storage.setItem('loftline.clubSettings', JSON.stringify({ timingBiasS: 0.2, timingSdS: 0.08, distanceUnit: 'yd', locale: 'en-GB' }));
     open(memoryCache(), [{ provide: BROWSER_STORAGE, useValue: storage }]);
     const aim = await loader.getHarness(SliderFieldHarness.with({ label: 'Aim' }));
+    // 9.15 m (Law 13) is 10.01 yd.
+    expect((fixture.nativeElement as HTMLElement).textContent).toContain('The wall stands 10.01 yd away');
     // 2 yd = 1.8288 m (1 yd = 0.9144 m exactly, international yard and pound agreement, 1959).
     await aim.type('2');
     await until('the aim in metres', () => fixture.componentInstance['store'].spot().aimXM === 1.8288);

@@ -10,7 +10,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
 import { map } from 'rxjs';
-import { GOAL_WIDTH_M, TECHNIQUES, type Technique } from '../../../shared/flight';
+import { GOAL_WIDTH_M, TECHNIQUES, WALL_DISTANCE_M, type Technique } from '../../../shared/flight';
 import { LoadFailure } from '../ui/load-failure';
 import { SliderField, distanceSlider } from '../ui/slider-field';
 import { TrajectoryChart, type TrajectoryLandmarks, type TrajectoryTrace } from '../ui/charts/trajectory-chart';
@@ -63,6 +63,8 @@ export class Planner {
 
   protected readonly techniques = TECHNIQUES;
   protected readonly samples = PLANNER_SAMPLES;
+  /** The wall's distance from the ball (IFAB Laws of the Game, Law 13: 9.15 m), in the club's unit. */
+  protected readonly wallDistance = computed(() => this.fmt().round(WALL_DISTANCE_M, 2));
   /** Where the aim may sit, from the centre of the goal: inside the posts by half a metre, in the club's unit. */
   protected readonly aimField = computed(() => {
     const limitM = GOAL_WIDTH_M / 2 - 0.5;
